@@ -1,0 +1,102 @@
+import path from 'node:path';
+import { existsSync } from 'node:fs';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import type { Logger } from 'pino';
+import type { AppDeps } from './deps';
+import { requestId, idOf } from './middleware/request-id';
+import { sameOriginWrites } from './middleware/same-origin';
+import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { loadUser, sessionMiddleware } from './auth/session';
+import { mount, route, type RouteDef } from './http/route';
+import { openApiDocument } from './http/openapi';
+import { authRoutes } from './routes/auth/auth.routes';
+import { meRoutes } from './routes/me/me.routes';
+import { usersRoutes } from './routes/users/users.routes';
+import { auditRoutes } from './routes/audit/audit.routes';
+import { devMailRoutes } from './routes/dev-mail/dev-mail.routes';
+import { systemRoutes } from './routes/system/system.routes';
+
+/** Every route the app serves, in one list: Express mounts it and OpenAPI describes it. */
+export function allRoutes(deps: AppDeps): RouteDef[] {
+  const routes: RouteDef[] = [
+    ...systemRoutes(deps),
+    ...authRoutes(deps),
+    ...meRoutes(deps),
+    ...usersRoutes(),
+    ...auditRoutes(),
+    ...devMailRoutes(deps),
+  ];
+  routes.push(
+    route({
+      method: 'get',
+      path: '/api/openapi.json',
+      summary: 'This document',
+      tags: ['system'],
+      access: 'public',
+      response: { description: 'OpenAPI 3.1 description of every route' },
+      handler: () => openApiDocument(routes, deps.version),
+    }),
+  );
+  return routes;
+}
+
+export function buildApp(deps: AppDeps, logger: Logger): Express {
+  const { env } = deps;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', env.TRUST_PROXY === 'false' ? false : env.TRUST_PROXY);
+  app.set('query parser', 'extended');
+
+  app.use(requestId);
+  app.use(pinoHttp({ logger, genReqId: (req) => idOf(req as express.Request), autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+
+  const issuerOrigin = new URL(env.OIDC_ISSUER).origin;
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: false,
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          styleSrc: ["'self'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'"],
+          connectSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          baseUri: ["'self'"],
+          frameAncestors: ["'none'"],
+          formAction: ["'self'", issuerOrigin],
+          ...(env.PUBLIC_URL.startsWith('https://') ? { upgradeInsecureRequests: [] } : {}),
+        },
+      },
+      strictTransportSecurity: env.PUBLIC_URL.startsWith('https://'),
+    }),
+  );
+
+  app.use(express.json({ limit: '1mb' }));
+  app.use(sameOriginWrites([env.PUBLIC_URL, ...env.ALLOWED_ORIGINS]));
+  app.use(sessionMiddleware(env, deps.pool));
+  app.use(loadUser(env));
+
+  const router = express.Router();
+  mount(router, allRoutes(deps), { checkResponses: env.NODE_ENV !== 'production' });
+  app.use(router);
+  app.use('/api', apiNotFound);
+  app.use('/auth', apiNotFound);
+
+  const staticDir = env.STATIC_DIR ?? path.resolve(import.meta.dirname, '../../frontend/dist');
+  if (existsSync(path.join(staticDir, 'index.html'))) {
+    app.use(express.static(staticDir, { index: false, maxAge: '1h', setHeaders: (res, file) => {
+      if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+    } }));
+    app.get('/{*splat}', (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(path.join(staticDir, 'index.html'));
+    });
+  }
+
+  app.use(errorHandler);
+  return app;
+}

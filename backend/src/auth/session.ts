@@ -1,0 +1,66 @@
+import session from 'express-session';
+import connectPgSimple from 'connect-pg-simple';
+import pg from 'pg';
+import type { NextFunction, Request, Response } from 'express';
+import type { Env } from '../config/env';
+import { User } from '../models';
+import type { CurrentUser } from './current-user';
+
+declare module 'express-session' {
+  interface SessionData {
+    userId?: string;
+    startedAt?: number;
+    idToken?: string | null;
+    pendingSignIn?: { state: string; codeVerifier: string; returnTo: string; at: number };
+  }
+}
+
+declare module 'express-serve-static-core' {
+  interface Request {
+    user?: CurrentUser | null;
+  }
+}
+
+export const SESSION_COOKIE = 'toneledger.sid';
+
+export function sessionMiddleware(e: Env, pool: pg.Pool) {
+  const PgStore = connectPgSimple(session);
+  return session({
+    name: SESSION_COOKIE,
+    secret: e.SESSION_SECRET,
+    store: new PgStore({ pool, tableName: 'http_sessions', pruneSessionInterval: 15 * 60 }),
+    resave: false,
+    saveUninitialized: false,
+    rolling: true,
+    proxy: e.NODE_ENV === 'production',
+    cookie: {
+      httpOnly: true,
+      sameSite: 'lax',
+      secure: e.PUBLIC_URL.startsWith('https://'),
+      maxAge: e.SESSION_IDLE_MINUTES * 60_000,
+      path: '/',
+    },
+  });
+}
+
+export function sessionExpiresAt(req: Request, e: Env): Date {
+  const idle = Date.now() + e.SESSION_IDLE_MINUTES * 60_000;
+  const absolute = (req.session.startedAt ?? Date.now()) + e.SESSION_ABSOLUTE_HOURS * 3_600_000;
+  return new Date(Math.min(idle, absolute));
+}
+
+/** Puts the signed-in user on the request, with the role read fresh from the database. */
+export function loadUser(e: Env) {
+  return async (req: Request, _res: Response, next: NextFunction) => {
+    req.user = null;
+    const s = req.session;
+    if (!s?.userId) return next();
+    if (!s.startedAt || Date.now() - s.startedAt > e.SESSION_ABSOLUTE_HOURS * 3_600_000) {
+      await new Promise<void>((resolve) => s.destroy(() => resolve()));
+      return next();
+    }
+    const user = await User.findByPk(s.userId);
+    if (user) req.user = { id: user.id, name: user.name, email: user.email, role: user.role };
+    next();
+  };
+}

@@ -1,0 +1,68 @@
+import { z } from 'zod';
+import { errorEnvelopeSchema } from '@toneledger/common/schemas/envelope';
+import type { RouteDef } from './route';
+
+type Json = Record<string, unknown>;
+
+function schemaOf(s: z.ZodType, io: 'input' | 'output'): Json {
+  const out = z.toJSONSchema(s, { io, unrepresentable: 'any', target: 'draft-2020-12' }) as Json;
+  delete out.$schema;
+  return out;
+}
+
+function parametersOf(def: RouteDef): Json[] {
+  const params: Json[] = [];
+  for (const name of def.path.match(/:([A-Za-z0-9_]+)/g) ?? []) {
+    const key = name.slice(1);
+    params.push({ name: key, in: 'path', required: true, schema: { type: 'string' } });
+  }
+  if (def.query) {
+    const json = schemaOf(def.query, 'input');
+    const props = (json.properties ?? {}) as Record<string, Json>;
+    const required = new Set((json.required as string[] | undefined) ?? []);
+    for (const [name, schema] of Object.entries(props)) {
+      params.push({ name, in: 'query', required: required.has(name) && !('default' in schema), schema });
+    }
+  }
+  return params;
+}
+
+/** OpenAPI 3.1, generated from the same route list that Express mounts. */
+export function openApiDocument(defs: RouteDef[], version: string): Json {
+  const paths: Record<string, Json> = {};
+  const error = { content: { 'application/json': { schema: { $ref: '#/components/schemas/ErrorEnvelope' } } } };
+  for (const def of defs) {
+    const path = def.path.replace(/:([A-Za-z0-9_]+)/g, '{$1}');
+    const responses: Record<string, Json> = {
+      [String(def.status ?? 200)]: {
+        description: def.response?.description ?? 'Success',
+        ...(def.response?.schema ? { content: { [def.response.contentType ?? 'application/json']: { schema: schemaOf(def.response.schema, 'output') } } } : {}),
+      },
+    };
+    if (def.params || def.query || def.body) responses['400'] = { description: 'validation_failed', ...error };
+    if (def.access !== 'public') responses['401'] = { description: 'unauthenticated', ...error };
+    if (def.access !== 'public' && def.access !== 'signed_in') responses['403'] = { description: `forbidden (needs ${def.access})`, ...error };
+    if (def.method !== 'get') responses['403'] ??= { description: 'forbidden (cross-site request)', ...error };
+    if (def.params) responses['404'] = { description: 'not_found', ...error };
+    responses['500'] = { description: 'internal_error', ...error };
+    paths[path] ??= {};
+    paths[path][def.method] = {
+      summary: def.summary,
+      tags: def.tags,
+      'x-access': def.access,
+      parameters: parametersOf(def),
+      ...(def.body ? { requestBody: { required: true, content: { 'application/json': { schema: schemaOf(def.body, 'input') } } } } : {}),
+      responses,
+      ...(def.access === 'public' ? {} : { security: [{ session: [] }] }),
+    };
+  }
+  return {
+    openapi: '3.1.0',
+    info: { title: 'Toneledger API', version, description: 'Records of toned gelatin silver prints: catalogue, condition, measurements, schedule, research.' },
+    paths,
+    components: {
+      schemas: { ErrorEnvelope: schemaOf(errorEnvelopeSchema, 'output') },
+      securitySchemes: { session: { type: 'apiKey', in: 'cookie', name: 'toneledger.sid' } },
+    },
+  };
+}

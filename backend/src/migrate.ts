@@ -1,0 +1,39 @@
+import path from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { readdirSync } from 'node:fs';
+import { Umzug, SequelizeStorage } from 'umzug';
+import type { QueryInterface, Sequelize } from 'sequelize';
+
+const here = path.dirname(fileURLToPath(import.meta.url));
+export const MIGRATIONS_DIR = path.resolve(here, '../../migrations');
+
+export interface Migration {
+  up(ctx: { context: QueryInterface }): Promise<void>;
+  down(ctx: { context: QueryInterface }): Promise<void>;
+}
+
+/** Umzug over migrations/*.ts, imported by our own code so any TS loader (tsx, vitest) works. */
+export function migrator(sequelize: Sequelize, log: (msg: string) => void = () => {}) {
+  const files = readdirSync(MIGRATIONS_DIR)
+    .filter((f) => /^\d{14}-[a-z0-9-]+\.ts$/.test(f))
+    .sort();
+  return new Umzug({
+    migrations: files.map((file) => {
+      const name = file.replace(/\.ts$/, '');
+      const load = async () => (await import(pathToFileURL(path.join(MIGRATIONS_DIR, file)).href)) as Migration;
+      return {
+        name,
+        up: async ({ context }) => (await load()).up({ context }),
+        down: async ({ context }) => (await load()).down({ context }),
+      };
+    }),
+    context: sequelize.getQueryInterface(),
+    storage: new SequelizeStorage({ sequelize, tableName: 'schema_migrations' }),
+    logger: { info: (m) => log(typeof m === 'string' ? m : `${m.event ?? ''} ${m.name ?? ''}`.trim()), warn: log, error: log, debug: () => {} },
+  });
+}
+
+export async function migrateUp(sequelize: Sequelize, log?: (msg: string) => void): Promise<string[]> {
+  const done = await migrator(sequelize, log).up();
+  return done.map((m) => m.name);
+}

@@ -1,0 +1,62 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import type { Role } from '@toneledger/common/domain/roles';
+
+export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
+  declare id: CreationOptional<string>;
+  declare issuer: string | null;
+  declare subject: string | null;
+  declare email: string | null;
+  declare name: string;
+  declare role: Role;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+  declare lastSignInAt: Date | null;
+}
+
+export class AuditEventModel extends Model<InferAttributes<AuditEventModel>, InferCreationAttributes<AuditEventModel>> {
+  declare id: CreationOptional<number>;
+  declare at: CreationOptional<Date>;
+  declare actorId: string | null;
+  declare actorName: string | null;
+  declare action: string;
+  declare entityType: string;
+  declare entityId: string | null;
+  declare before: unknown;
+  declare after: unknown;
+  declare requestId: string | null;
+  declare ip: string | null;
+}
+
+export function initModels(sequelize: Sequelize): void {
+  User.init(
+    {
+      id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+      issuer: DataTypes.TEXT,
+      subject: DataTypes.TEXT,
+      email: DataTypes.TEXT,
+      name: { type: DataTypes.TEXT, allowNull: false },
+      role: { type: DataTypes.TEXT, allowNull: false },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+      lastSignInAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: 'users', underscored: true },
+  );
+  AuditEventModel.init(
+    {
+      id: { type: DataTypes.BIGINT, primaryKey: true, autoIncrement: true },
+      at: DataTypes.DATE,
+      actorId: DataTypes.UUID,
+      actorName: DataTypes.TEXT,
+      action: { type: DataTypes.TEXT, allowNull: false },
+      entityType: { type: DataTypes.TEXT, allowNull: false },
+      entityId: DataTypes.TEXT,
+      before: DataTypes.JSONB,
+      after: DataTypes.JSONB,
+      requestId: DataTypes.TEXT,
+      ip: DataTypes.TEXT,
+    },
+    { sequelize, tableName: 'audit_events', underscored: true, timestamps: false },
+  );
+  AuditEventModel.belongsTo(User, { as: 'actor', foreignKey: 'actorId' });
+}

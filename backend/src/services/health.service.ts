@@ -1,0 +1,37 @@
+import type pg from 'pg';
+import type { ObjectStore } from '@toneledger/storage/object-store';
+import type { Health } from '@toneledger/common/schemas/system';
+
+async function timed(check: () => Promise<unknown>) {
+  const start = performance.now();
+  try {
+    await check();
+    return { ok: true, latencyMs: Math.round((performance.now() - start) * 10) / 10 };
+  } catch (err) {
+    return { ok: false, latencyMs: null, error: err instanceof Error ? err.name : 'Error' };
+  }
+}
+
+export async function checkHealth(pool: pg.Pool, store: ObjectStore, version: string): Promise<Health> {
+  const [database, storage] = await Promise.all([
+    timed(async () => {
+      const client = await Promise.race([
+        pool.connect(),
+        new Promise<never>((_, reject) => setTimeout(() => reject(new Error('timeout')), 2000)),
+      ]);
+      try {
+        await client.query('SELECT 1');
+      } finally {
+        client.release();
+      }
+    }),
+    timed(() => store.ping(2000)),
+  ]);
+  const describe = (name: string, r: { ok: boolean; latencyMs: number | null; error?: string }) =>
+    r.ok ? r : { ...r, error: `${name} is not reachable (${r.error})` };
+  return {
+    status: database.ok && storage.ok ? 'ok' : 'degraded',
+    version,
+    checks: { database: describe('PostgreSQL', database), storage: describe('Object storage', storage) },
+  };
+}

@@ -1,0 +1,133 @@
+import { Op, type Transaction } from 'sequelize';
+import type { Role } from '@toneledger/common/domain/roles';
+import type { UserListQuery } from '@toneledger/common/schemas/users';
+import { db } from '../db';
+import { User } from '../models';
+import { conflict, notFound } from '../errors';
+import { recordAudit, type AuditActor } from './audit.service';
+import { presentUser } from '../presenters/user.presenter';
+
+export interface SignInClaims {
+  issuer: string;
+  subject: string;
+  email: string | null;
+  name: string | null;
+}
+
+export interface SignInPolicy {
+  adminEmails: string[];
+  defaultRole: Role;
+}
+
+/**
+ * Finds or creates the user for an identity. A user provisioned ahead by e-mail (an invitation,
+ * or the demo seed) is claimed by the first sign-in with that address.
+ */
+export async function upsertOnSignIn(claims: SignInClaims, policy: SignInPolicy, requestId: string | null): Promise<User> {
+  return db().transaction(async (t) => {
+    let user = await User.findOne({ where: { issuer: claims.issuer, subject: claims.subject }, transaction: t, lock: t.LOCK.UPDATE });
+    const email = claims.email?.trim() || null;
+    if (!user && email) {
+      user = await User.findOne({
+        where: { subject: null, email: { [Op.iLike]: email } },
+        transaction: t,
+        lock: t.LOCK.UPDATE,
+      });
+      if (user) {
+        await user.update({ issuer: claims.issuer, subject: claims.subject }, { transaction: t });
+      }
+    }
+    const now = new Date();
+    if (!user) {
+      const admin = email !== null && policy.adminEmails.some((a) => a.toLowerCase() === email.toLowerCase());
+      user = await User.create(
+        {
+          issuer: claims.issuer,
+          subject: claims.subject,
+          email,
+          name: claims.name?.trim() || email || claims.subject,
+          role: admin ? 'admin' : policy.defaultRole,
+          lastSignInAt: now,
+        },
+        { transaction: t },
+      );
+      await recordAudit(
+        { actor: { id: user.id, name: user.name }, action: 'user.created', entityType: 'user', entityId: user.id, after: presentUser(user), requestId },
+        t,
+      );
+    } else {
+      await user.update(
+        { lastSignInAt: now, ...(claims.name ? { name: claims.name } : {}), ...(email ? { email } : {}) },
+        { transaction: t },
+      );
+    }
+    await recordAudit(
+      { actor: { id: user.id, name: user.name }, action: 'session.signed_in', entityType: 'user', entityId: user.id, requestId },
+      t,
+    );
+    return user;
+  });
+}
+
+export async function findUser(id: string): Promise<User | null> {
+  return User.findByPk(id);
+}
+
+const SORTS: Record<string, [string, 'ASC' | 'DESC']> = {
+  name: ['name', 'ASC'],
+  '-name': ['name', 'DESC'],
+  email: ['email', 'ASC'],
+  '-email': ['email', 'DESC'],
+  role: ['role', 'ASC'],
+  '-role': ['role', 'DESC'],
+  lastSignInAt: ['lastSignInAt', 'ASC'],
+  '-lastSignInAt': ['lastSignInAt', 'DESC'],
+};
+
+export async function listUsers(query: UserListQuery) {
+  const where: Record<string | symbol, unknown> = {};
+  if (query.role) where.role = query.role;
+  if (query.q) {
+    const like = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    where[Op.or] = [{ name: { [Op.iLike]: like } }, { email: { [Op.iLike]: like } }];
+  }
+  const [field, dir] = SORTS[query.sort] ?? SORTS.name;
+  const { rows, count } = await User.findAndCountAll({
+    where,
+    order: [[field, dir === 'ASC' ? 'ASC NULLS LAST' : 'DESC NULLS LAST'], ['id', 'ASC']],
+    limit: query.pageSize,
+    offset: (query.page - 1) * query.pageSize,
+  });
+  return { rows, total: count };
+}
+
+/**
+ * Changes a user's role. The last admin cannot lose the role: admins are locked while counting,
+ * so two concurrent demotions cannot both pass the check.
+ */
+export async function changeRole(
+  id: string,
+  role: Role,
+  reason: string | undefined,
+  actor: AuditActor,
+  requestId: string | null,
+): Promise<User> {
+  return db().transaction(async (t: Transaction) => {
+    const user = await User.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
+    if (!user) throw notFound('The user');
+    if (user.role === role) return user;
+    if (user.role === 'admin') {
+      const admins = await User.findAll({ where: { role: 'admin' }, transaction: t, lock: t.LOCK.UPDATE });
+      if (admins.length <= 1) {
+        throw conflict('This is the last administrator: make someone else an administrator first.');
+      }
+    }
+    const before = presentUser(user);
+    await user.update({ role }, { transaction: t });
+    await recordAudit(
+      { actor, action: 'user.role_changed', entityType: 'user', entityId: user.id, before: { role: before.role }, after: { role, ...(reason ? { reason } : {}) }, requestId },
+      t,
+    );
+    return user;
+  });
+}

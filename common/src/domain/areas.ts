@@ -1,0 +1,38 @@
+import { can, type Permission, type Role } from './roles';
+
+/** The product's areas, in navigation order, each opened by one permission. */
+export interface Area {
+  id: string;
+  label: string;
+  path: string;
+  permission: Permission;
+  summary: string;
+  /** false while the area's screens are still being built. */
+  ready: boolean;
+}
+
+export const AREAS: Area[] = [
+  { id: 'catalogue', label: 'Catalogue', path: '/catalogue', permission: 'catalogue.read', ready: false,
+    summary: 'Print records with their process history, papers, bath recipes, locations and enclosures.' },
+  { id: 'condition', label: 'Condition', path: '/condition', permission: 'condition.read', ready: false,
+    summary: 'Signed condition reports, observations and images, with addenda instead of edits.' },
+  { id: 'measurements', label: 'Measurements', path: '/measurements', permission: 'measurements.read', ready: false,
+    summary: 'Colour and density at registered spots, ΔE00 against baseline, fading rates and projections.' },
+  { id: 'schedule', label: 'Inspections', path: '/inspections', permission: 'schedule.read', ready: false,
+    summary: 'Next-inspection dates from an explainable risk model; overdue and due-soon prints.' },
+  { id: 'research', label: 'Research', path: '/research', permission: 'research.run', ready: false,
+    summary: 'Cohorts by process, toner, paper and treatment; fading distributions and survival curves.' },
+];
+
+export const ADMIN_AREAS: Area[] = [
+  { id: 'users', label: 'People and roles', path: '/admin/users', permission: 'users.manage', ready: true,
+    summary: 'Everyone who has signed in, and the role each holds.' },
+  { id: 'audit', label: 'Audit trail', path: '/admin/audit', permission: 'audit.read', ready: true,
+    summary: 'Every sign-in, sign-out and change: who, when, before and after.' },
+  { id: 'mail', label: 'Outgoing mail', path: '/admin/mail', permission: 'dev_mail.read', ready: true,
+    summary: 'Messages caught by the local mail sink (development only).' },
+];
+
+export function areasFor(role: Role | null | undefined, areas: Area[] = AREAS): Area[] {
+  return areas.filter((a) => can(role, a.permission));
+}

@@ -1,0 +1,50 @@
+/**
+ * Roles and what each may do. One table, read by the server (which enforces it on every
+ * route) and by the client (which only hides what a role cannot use).
+ */
+export const ROLES = ['admin', 'registrar', 'conservator', 'researcher', 'viewer'] as const;
+export type Role = (typeof ROLES)[number];
+
+export const ROLE_LABELS: Record<Role, string> = {
+  admin: 'Administrator',
+  registrar: 'Registrar',
+  conservator: 'Conservator',
+  researcher: 'Researcher',
+  viewer: 'Viewer',
+};
+
+export const ROLE_DESCRIPTIONS: Record<Role, string> = {
+  admin: 'Users and roles, vocabularies and settings; everything a registrar can do.',
+  registrar: 'Catalogues prints, process history, recipes, papers, locations, movements and loans.',
+  conservator: 'Condition checks, measurements, images, treatments, light and climate; owns the inspection schedule.',
+  researcher: 'Reads everything, runs longevity queries and exports datasets; edits nothing.',
+  viewer: 'Reads the catalogue, without locations, valuations or staff notes.',
+};
+
+/** Permissions name an action, never a screen. */
+export const PERMISSIONS = {
+  'catalogue.read': ['admin', 'registrar', 'conservator', 'researcher', 'viewer'],
+  'catalogue.read_restricted': ['admin', 'registrar', 'conservator', 'researcher'],
+  'catalogue.write': ['admin', 'registrar'],
+  'condition.read': ['admin', 'registrar', 'conservator', 'researcher'],
+  'condition.write': ['conservator'],
+  'measurements.read': ['admin', 'registrar', 'conservator', 'researcher'],
+  'measurements.write': ['conservator'],
+  'schedule.read': ['admin', 'registrar', 'conservator', 'researcher'],
+  'research.run': ['admin', 'conservator', 'researcher'],
+  'users.manage': ['admin'],
+  'audit.read': ['admin'],
+  'settings.manage': ['admin'],
+  'dev_mail.read': ['admin'],
+} as const satisfies Record<string, readonly Role[]>;
+
+export type Permission = keyof typeof PERMISSIONS;
+
+export function can(role: Role | null | undefined, permission: Permission): boolean {
+  if (!role) return false;
+  return (PERMISSIONS[permission] as readonly Role[]).includes(role);
+}
+
+export function rolesWith(permission: Permission): Role[] {
+  return [...PERMISSIONS[permission]];
+}

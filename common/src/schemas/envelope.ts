@@ -1,0 +1,45 @@
+import { z } from 'zod';
+
+export const ERROR_CODES = [
+  'validation_failed', 'unauthenticated', 'forbidden', 'not_found', 'conflict',
+  'payload_too_large', 'unsupported_media_type', 'service_unavailable', 'internal_error',
+] as const;
+export type ErrorCode = (typeof ERROR_CODES)[number];
+
+export const fieldIssueSchema = z.object({
+  path: z.string().describe('Dotted path of the offending field, "" for the whole input'),
+  message: z.string(),
+  code: z.string(),
+});
+export type FieldIssue = z.infer<typeof fieldIssueSchema>;
+
+export const errorEnvelopeSchema = z.object({
+  error: z.object({
+    code: z.enum(ERROR_CODES),
+    message: z.string(),
+    status: z.number().int(),
+    requestId: z.string(),
+    details: z.unknown().optional(),
+  }),
+});
+export type ErrorEnvelope = z.infer<typeof errorEnvelopeSchema>;
+
+export const paginationSchema = z.object({
+  page: z.number().int().min(1),
+  pageSize: z.number().int().min(1),
+  total: z.number().int().min(0),
+});
+export type Pagination = z.infer<typeof paginationSchema>;
+
+export const pageQuerySchema = z.object({
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200).default(50),
+});
+
+export function dataEnvelope<T extends z.ZodType>(data: T) {
+  return z.object({ data });
+}
+
+export function pageEnvelope<T extends z.ZodType>(item: T) {
+  return z.object({ data: z.array(item), pagination: paginationSchema });
+}
