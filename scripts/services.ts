@@ -9,6 +9,7 @@ import { startMailSink, type MailSink } from './mail-sink';
 import { startLocalS3, LOCAL_S3_CREDENTIALS, type LocalS3 } from '../storage/src/local-s3';
 import { startDevIdentityProvider, type DevIdentityProvider } from '../backend/src/auth/dev-identity-provider';
 import { DEMO_ACCOUNTS } from '../backend/src/seed/demo-accounts';
+import { TEST_ONLY_ACCOUNTS } from '../backend/test/accounts';
 
 export const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 
@@ -97,7 +98,7 @@ export async function startLocalServices(mode: Mode, log: (m: string) => void): 
       clientId,
       redirectUris: origins.map((o) => new URL('/auth/callback', o).href),
       postLogoutRedirectUris: origins.map((o) => new URL('/signed-out', o).href),
-      accounts: DEMO_ACCOUNTS,
+      accounts: test ? [...DEMO_ACCOUNTS, ...TEST_ONLY_ACCOUNTS] : DEMO_ACCOUNTS,
     });
     stops.push(() => idp.stop());
     log(`Identity provider on ${idp.issuer}`);

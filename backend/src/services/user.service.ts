@@ -101,9 +101,12 @@ export async function listUsers(query: UserListQuery) {
   return { rows, total: count };
 }
 
+/** Role changes take this transaction-scoped lock, so they run one at a time. */
+const ROLE_CHANGE_LOCK = 727002;
+
 /**
- * Changes a user's role. The last admin cannot lose the role: admins are locked while counting,
- * so two concurrent demotions cannot both pass the check.
+ * Changes a user's role. The last admin cannot lose the role: role changes are serialised by an
+ * advisory lock, so two concurrent demotions cannot both pass the check (and cannot deadlock).
  */
 export async function changeRole(
   id: string,
@@ -113,12 +116,13 @@ export async function changeRole(
   requestId: string | null,
 ): Promise<User> {
   return db().transaction(async (t: Transaction) => {
+    await db().query('SELECT pg_advisory_xact_lock(:key)', { replacements: { key: ROLE_CHANGE_LOCK }, transaction: t });
     const user = await User.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
     if (!user) throw notFound('The user');
     if (user.role === role) return user;
     if (user.role === 'admin') {
-      const admins = await User.findAll({ where: { role: 'admin' }, transaction: t, lock: t.LOCK.UPDATE });
-      if (admins.length <= 1) {
+      const admins = await User.count({ where: { role: 'admin' }, transaction: t });
+      if (admins <= 1) {
         throw conflict('This is the last administrator: make someone else an administrator first.');
       }
     }
