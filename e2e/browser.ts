@@ -35,6 +35,8 @@ export async function screenshot(page: Page, name: string): Promise<void> {
 /** Signs in through the app's sign-in page and the identity provider's login form. */
 export async function signInAs(page: Page, role: Role): Promise<void> {
   const account = DEMO_ACCOUNTS.find((a) => a.role === role)!;
+  // Pages of one test file share a browser profile: start each sign-in from no session at all.
+  await page.context().clearCookies();
   await page.goto(BASE_URL);
   await page.getByRole('link', { name: 'Sign in' }).or(page.getByRole('button', { name: 'Sign in' })).first().click();
   await page.getByLabel('E-mail').fill(account.email);

@@ -84,7 +84,7 @@ describe('roles are enforced on the server', () => {
           headers: { 'content-type': 'application/json' },
           body: JSON.stringify({ role: 'admin' }),
         });
-        return { list: list.status, listBody: await list.json(), change: change.status };
+        return { list: list.status, listBody: (await list.json()) as { error: { code: string } }, change: change.status };
       });
       expect(result.list).toBe(403);
       expect(result.listBody.error.code).toBe('forbidden');

@@ -1,7 +1,7 @@
 import path from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { readdirSync } from 'node:fs';
-import { Umzug, SequelizeStorage } from 'umzug';
+import { Umzug, SequelizeStorage, type MigrationParams } from 'umzug';
 import type { QueryInterface, Sequelize } from 'sequelize';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
@@ -23,13 +23,18 @@ export function migrator(sequelize: Sequelize, log: (msg: string) => void = () =
       const load = async () => (await import(pathToFileURL(path.join(MIGRATIONS_DIR, file)).href)) as Migration;
       return {
         name,
-        up: async ({ context }) => (await load()).up({ context }),
-        down: async ({ context }) => (await load()).down({ context }),
+        up: async ({ context }: MigrationParams<QueryInterface>) => (await load()).up({ context }),
+        down: async ({ context }: MigrationParams<QueryInterface>) => (await load()).down({ context }),
       };
     }),
     context: sequelize.getQueryInterface(),
     storage: new SequelizeStorage({ sequelize, tableName: 'schema_migrations' }),
-    logger: { info: (m) => log(typeof m === 'string' ? m : `${m.event ?? ''} ${m.name ?? ''}`.trim()), warn: log, error: log, debug: () => {} },
+    logger: {
+      info: (m: Record<string, unknown>) => log(`${String(m.event ?? '')} ${String(m.name ?? '')}`.trim()),
+      warn: (m: Record<string, unknown>) => log(JSON.stringify(m)),
+      error: (m: Record<string, unknown>) => log(JSON.stringify(m)),
+      debug: () => {},
+    },
   });
 }
 

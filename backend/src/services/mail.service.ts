@@ -1,4 +1,5 @@
 import nodemailer, { type Transporter } from 'nodemailer';
+import type SMTPTransport from 'nodemailer/lib/smtp-transport';
 import type { CapturedMail } from '@toneledger/common/schemas/system';
 import { capturedMailSchema } from '@toneledger/common/schemas/system';
 import { z } from 'zod';
@@ -22,7 +23,7 @@ export class Mailer {
     const url = new URL(smtpUrl);
     const local = url.hostname === '127.0.0.1' || url.hostname === 'localhost';
     // The local sink speaks plain SMTP; a real relay negotiates TLS as its URL says.
-    this.transport = nodemailer.createTransport(smtpUrl, local ? { ignoreTLS: true } : {});
+    this.transport = nodemailer.createTransport({ url: smtpUrl, ...(local ? { ignoreTLS: true } : {}) } as SMTPTransport.Options);
   }
 
   async send(mail: OutgoingMail): Promise<{ messageId: string }> {

@@ -1,0 +1,125 @@
+import { createColumnHelper, getCoreRowModel, getExpandedRowModel, useReactTable } from '@tanstack/react-table';
+import type { AuditEvent, AuditListQuery } from '@toneledger/common/schemas/audit';
+import { DataTable } from '@/components/ui/data-table';
+import { formatDateTime } from '@/lib/format';
+import { ChangeView } from '@/features/audit/components/change-view';
+
+const column = createColumnHelper<AuditEvent>();
+
+const filterButton = 'text-left text-iron-700 underline decoration-iron-200 underline-offset-2 hover:text-iron-900 hover:decoration-iron-700';
+
+export interface AuditTableProps {
+  events: AuditEvent[];
+  query: AuditListQuery;
+  total: number;
+  busy: boolean;
+  onFilter: (patch: Partial<AuditListQuery>) => void;
+}
+
+/** Audit events, newest first as the server sends them; each change opens to its before and after. */
+export function AuditTable({ events, query, total, busy, onFilter }: AuditTableProps) {
+  const columns = [
+    column.display({
+      id: 'expand',
+      header: () => <span className="sr-only">Changes</span>,
+      cell: ({ row }) =>
+        row.getCanExpand() ? (
+          <button
+            type="button"
+            onClick={row.getToggleExpandedHandler()}
+            aria-expanded={row.getIsExpanded()}
+            className="rounded px-1.5 py-0.5 text-xs font-medium whitespace-nowrap text-iron-700 hover:bg-iron-50"
+          >
+            <span aria-hidden="true">{row.getIsExpanded() ? '▾ ' : '▸ '}</span>
+            {row.getIsExpanded() ? 'Hide changes' : 'Show changes'}
+          </button>
+        ) : null,
+    }),
+    column.accessor('at', {
+      header: 'When',
+      cell: (info) => (
+        <time dateTime={info.getValue()} className="whitespace-nowrap">
+          {formatDateTime(info.getValue())}
+        </time>
+      ),
+    }),
+    column.accessor('actorName', {
+      header: 'Who',
+      cell: ({ row }) => {
+        const { actorId, actorName } = row.original;
+        if (!actorId) return <span className="text-ink-700">{actorName ?? 'System'}</span>;
+        return (
+          <button
+            type="button"
+            className={filterButton}
+            title="Show only this person's events"
+            aria-label={`${actorName ?? actorId}: show only this person's events`}
+            onClick={() => onFilter({ actorId })}
+          >
+            {actorName ?? actorId}
+          </button>
+        );
+      },
+    }),
+    column.accessor('action', {
+      header: 'Action',
+      cell: (info) => (
+        <button type="button" className={`${filterButton} mono text-xs`} title="Show only this action" onClick={() => onFilter({ action: info.getValue() })}>
+          {info.getValue()}
+        </button>
+      ),
+    }),
+    column.accessor('entityType', {
+      header: 'Record',
+      cell: ({ row }) => {
+        const { entityType, entityId } = row.original;
+        return (
+          <span className="flex flex-col">
+            <button type="button" className={filterButton} title="Show only this kind of record" onClick={() => onFilter({ entityType, entityId: undefined })}>
+              {entityType}
+            </button>
+            {entityId ? (
+              <button
+                type="button"
+                className={`${filterButton} mono text-xs break-all`}
+                title="Show only this record"
+                onClick={() => onFilter({ entityType, entityId })}
+              >
+                {entityId}
+              </button>
+            ) : null}
+          </span>
+        );
+      },
+    }),
+    column.accessor('requestId', {
+      header: 'Request',
+      cell: (info) =>
+        info.getValue() ? <code className="mono text-xs text-ink-700 select-all">{info.getValue()}</code> : null,
+    }),
+  ];
+
+  const table = useReactTable({
+    data: events,
+    columns,
+    getRowId: (event) => event.id,
+    getCoreRowModel: getCoreRowModel(),
+    getExpandedRowModel: getExpandedRowModel(),
+    getRowCanExpand: (row) => row.original.before != null || row.original.after != null,
+    enableSorting: false,
+    manualPagination: true,
+    manualFiltering: true,
+    pageCount: Math.max(1, Math.ceil(total / query.pageSize)),
+    state: { pagination: { pageIndex: query.page - 1, pageSize: query.pageSize } },
+  });
+
+  return (
+    <DataTable
+      table={table}
+      caption="Audit events"
+      empty="No events match these filters."
+      busy={busy}
+      renderExpanded={(row) => <ChangeView before={row.original.before} after={row.original.after} />}
+    />
+  );
+}

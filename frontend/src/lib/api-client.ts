@@ -1,0 +1,168 @@
+import { z } from 'zod';
+import {
+  ERROR_CODES,
+  errorEnvelopeSchema,
+  fieldIssueSchema,
+  type ErrorCode,
+  type FieldIssue,
+  type Pagination,
+} from '@toneledger/common/schemas/envelope';
+
+/** A failed request, carrying the server's error envelope. */
+export class ApiError extends Error {
+  readonly code: ErrorCode;
+  readonly status: number;
+  readonly requestId: string | null;
+  readonly details: unknown;
+
+  constructor(init: { code: ErrorCode; status: number; message: string; requestId?: string | null; details?: unknown }) {
+    super(init.message);
+    this.name = 'ApiError';
+    this.code = init.code;
+    this.status = init.status;
+    this.requestId = init.requestId ?? null;
+    this.details = init.details;
+  }
+
+  /** The per-field problems of a `validation_failed` error; empty for any other error. */
+  get fieldIssues(): FieldIssue[] {
+    const parsed = z.array(fieldIssueSchema).safeParse(this.details);
+    return parsed.success ? parsed.data : [];
+  }
+}
+
+export function isApiError(error: unknown): error is ApiError {
+  return error instanceof ApiError;
+}
+
+export interface DataEnvelope<T> {
+  data: T;
+}
+export interface PageEnvelope<T> {
+  data: T[];
+  pagination: Pagination;
+}
+
+export type QueryValue = string | number | boolean | null | undefined;
+
+/** Builds `?a=1&b=x` from an object, leaving out empty values. Returns '' when nothing is left. */
+export function toQueryString(query: Record<string, QueryValue> | undefined): string {
+  if (!query) return '';
+  const params = new URLSearchParams();
+  for (const [key, value] of Object.entries(query)) {
+    if (value === undefined || value === null || value === '') continue;
+    params.set(key, String(value));
+  }
+  const text = params.toString();
+  return text ? `?${text}` : '';
+}
+
+export interface RequestOptions {
+  method?: 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
+  query?: Record<string, QueryValue>;
+  body?: unknown;
+  signal?: AbortSignal;
+}
+
+const STATUS_CODES: Record<number, ErrorCode> = {
+  400: 'validation_failed',
+  401: 'unauthenticated',
+  403: 'forbidden',
+  404: 'not_found',
+  409: 'conflict',
+  413: 'payload_too_large',
+  415: 'unsupported_media_type',
+  503: 'service_unavailable',
+};
+
+function codeForStatus(status: number): ErrorCode {
+  return STATUS_CODES[status] ?? 'internal_error';
+}
+
+async function readJson(response: Response): Promise<unknown> {
+  const text = await response.text();
+  if (!text) return undefined;
+  try {
+    return JSON.parse(text);
+  } catch {
+    return undefined;
+  }
+}
+
+/**
+ * Sends a request to our own server and returns the parsed JSON body (the envelope).
+ * Any non-2xx answer becomes an ApiError built from the error envelope; an answer that is
+ * not an envelope still becomes an ApiError with a code derived from the HTTP status.
+ */
+export async function apiRequest<T>(path: string, options: RequestOptions = {}): Promise<T> {
+  const { method = 'GET', query, body, signal } = options;
+  const headers: Record<string, string> = { accept: 'application/json' };
+  if (body !== undefined) headers['content-type'] = 'application/json';
+
+  let response: Response;
+  try {
+    response = await fetch(`${path}${toQueryString(query)}`, {
+      method,
+      headers,
+      body: body === undefined ? undefined : JSON.stringify(body),
+      credentials: 'same-origin',
+      signal,
+    });
+  } catch (cause) {
+    if (cause instanceof DOMException && cause.name === 'AbortError') throw cause;
+    throw new ApiError({
+      code: 'service_unavailable',
+      status: 0,
+      message: 'Could not reach the server. Check the connection and try again.',
+    });
+  }
+
+  const json = await readJson(response);
+  const headerRequestId = response.headers.get('x-request-id');
+
+  if (!response.ok) {
+    const envelope = errorEnvelopeSchema.safeParse(json);
+    if (envelope.success) {
+      const { code, status, message, requestId, details } = envelope.data.error;
+      throw new ApiError({ code, status, message, requestId, details });
+    }
+    throw new ApiError({
+      code: codeForStatus(response.status),
+      status: response.status,
+      message: `The server answered ${response.status}${response.statusText ? ` ${response.statusText}` : ''}.`,
+      requestId: headerRequestId,
+    });
+  }
+
+  if (response.status === 204) return undefined as T;
+  if (json === undefined || json === null || typeof json !== 'object' || !('data' in json)) {
+    throw new ApiError({
+      code: 'internal_error',
+      status: response.status,
+      message: 'The server sent an answer this page cannot read.',
+      requestId: headerRequestId,
+    });
+  }
+  return json as T;
+}
+
+/** GET/POST/PATCH returning the `data` of a `{ data }` envelope. */
+export async function requestData<T>(path: string, options?: RequestOptions): Promise<T> {
+  const envelope = await apiRequest<DataEnvelope<T>>(path, options);
+  return envelope.data;
+}
+
+/** GET returning a `{ data: [...], pagination }` envelope as it is. */
+export async function requestPage<T>(path: string, options?: RequestOptions): Promise<PageEnvelope<T>> {
+  const envelope = await apiRequest<PageEnvelope<T>>(path, options);
+  if (!Array.isArray(envelope.data) || typeof envelope.pagination !== 'object' || envelope.pagination === null) {
+    throw new ApiError({
+      code: 'internal_error',
+      status: 200,
+      message: 'The server sent a list this page cannot read.',
+    });
+  }
+  return envelope;
+}
+
+export { ERROR_CODES };

@@ -1,0 +1,7 @@
+import { useEffect } from 'react';
+
+export function useDocumentTitle(title: string): void {
+  useEffect(() => {
+    document.title = title ? `${title} · Toneledger` : 'Toneledger';
+  }, [title]);
+}
