@@ -19,6 +19,7 @@ export function buildFrontend(log: (m: string) => void, force = false): void {
   const sources = Math.max(newest(path.join(ROOT, 'frontend')), newest(path.join(ROOT, 'common', 'src')), newest(path.join(ROOT, 'fonts')));
   if (!force && existsSync(index) && statSync(index).mtimeMs >= sources) return;
   log('Building the web client…');
-  const r = spawnSync('npm', ['run', 'build', '-w', 'frontend', '--silent'], { cwd: ROOT, stdio: 'inherit' });
+  // Always a production bundle, whatever mode the caller runs in.
+  const r = spawnSync('npm', ['run', 'build', '-w', 'frontend', '--silent'], { cwd: ROOT, stdio: 'inherit', env: { ...process.env, NODE_ENV: 'production' } });
   if (r.status !== 0) throw new Error('The web client did not build.');
 }

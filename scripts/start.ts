@@ -45,7 +45,7 @@ try {
   if (!production) {
     console.log('');
     console.log('  Demo sign-ins (local identity provider):');
-    for (const a of DEMO_ACCOUNTS) console.log(`    ${ROLE_LABELS[a.role].padEnd(12)} ${a.email.padEnd(34)} ${a.password}`);
+    for (const a of DEMO_ACCOUNTS) console.log(`    ${ROLE_LABELS[a.role].padEnd(14)} ${a.email.padEnd(34)} ${a.password}`);
     console.log('');
     console.log('  Press Ctrl-C to stop everything this started.');
   }

@@ -50,7 +50,7 @@ export function buildApp(deps: AppDeps, logger: Logger): Express {
   app.set('query parser', 'extended');
 
   app.use(requestId);
-  app.use(pinoHttp({ logger, genReqId: (req) => idOf(req as express.Request), autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  app.use(pinoHttp({ logger, genReqId: (req) => idOf(req as express.Request), autoLogging: { ignore: (req) => req.url === '/api/health' || Boolean(req.url?.startsWith('/assets/')) } }));
 
   const issuerOrigin = new URL(env.OIDC_ISSUER).origin;
   app.use(
@@ -75,6 +75,16 @@ export function buildApp(deps: AppDeps, logger: Logger): Express {
     }),
   );
 
+  // The built client: served before sessions and request logging, so assets never touch the session store.
+  const staticDir = env.STATIC_DIR ?? path.resolve(import.meta.dirname, '../../frontend/dist');
+  const hasClient = existsSync(path.join(staticDir, 'index.html'));
+  if (hasClient) {
+    app.use(
+      '/assets',
+      express.static(path.join(staticDir, 'assets'), { index: false, immutable: true, maxAge: '1y', fallthrough: false }),
+    );
+  }
+
   app.use(express.json({ limit: '1mb' }));
   app.use(sameOriginWrites([env.PUBLIC_URL, ...env.ALLOWED_ORIGINS]));
   app.use(sessionMiddleware(env, deps.pool));
@@ -85,12 +95,8 @@ export function buildApp(deps: AppDeps, logger: Logger): Express {
   app.use(router);
   app.use('/api', apiNotFound);
   app.use('/auth', apiNotFound);
-
-  const staticDir = env.STATIC_DIR ?? path.resolve(import.meta.dirname, '../../frontend/dist');
-  if (existsSync(path.join(staticDir, 'index.html'))) {
-    app.use(express.static(staticDir, { index: false, maxAge: '1h', setHeaders: (res, file) => {
-      if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
-    } }));
+  if (hasClient) {
+    // Every other GET is a client route: the app shell decides what to show (including not-found).
     app.get('/{*splat}', (_req, res) => {
       res.setHeader('Cache-Control', 'no-cache');
       res.sendFile(path.join(staticDir, 'index.html'));

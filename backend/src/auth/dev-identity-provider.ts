@@ -132,6 +132,10 @@ export async function startDevIdentityProvider(options: {
     const url = new URL(req.url ?? '/', issuer);
     const m = url.pathname.match(/^\/interaction\/([A-Za-z0-9_-]+)(\/login)?$/);
     try {
+      if (url.pathname === '/favicon.ico') {
+        res.writeHead(204).end();
+        return;
+      }
       if (url.pathname === '/interaction-assets/logout.js') {
         res.writeHead(200, { 'content-type': 'text/javascript' });
         res.end(
