@@ -1,0 +1,302 @@
+import { z } from 'zod';
+import { pageQuerySchema } from './envelope';
+import {
+  INGREDIENT_UNIT, LIGHT_RESPONSIVITY, LOCATION_KIND, PAPER_BASE, PAT_RESULT, PROCESS, STATUS, STEP_TYPE, SUPPORT,
+  THIOSULFATE_METHOD, TONER_CLASS, TONING_EXTENT, YES_NO_UNKNOWN,
+} from './vocab';
+
+const text = (max: number) => z.string().trim().max(max, `At most ${max} characters`);
+const optionalText = (max: number) =>
+  z.preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), text(max).nullable()).optional();
+const id = z.string().uuid({ message: 'Not a record id' });
+const optionalId = z.preprocess((v) => (v === '' ? null : v), id.nullable()).optional();
+const mm = z.preprocess(
+  (v) => (v === '' ? null : v),
+  z.coerce.number({ message: 'Enter a number of millimetres' }).positive('Must be more than 0 mm').max(5000, 'At most 5000 mm').nullable(),
+).optional();
+const version = z.number({ message: 'The record version is required' }).int().min(1);
+export const idParamsSchema = z.object({ id });
+
+export const processSchema = z.enum(PROCESS.codes);
+export const supportSchema = z.enum(SUPPORT.codes);
+export const statusSchema = z.enum(STATUS.codes);
+export const lightResponsivitySchema = z.enum(LIGHT_RESPONSIVITY.codes);
+export const tonerClassSchema = z.enum(TONER_CLASS.codes);
+export const stepTypeSchema = z.enum(STEP_TYPE.codes);
+
+/** A warning computed from the record (see domain/compatibility). */
+export const warningSchema = z.object({
+  code: z.string(),
+  severity: z.enum(['high', 'medium', 'low']),
+  message: z.string(),
+  basis: z.string(),
+});
+export type Warning = z.infer<typeof warningSchema>;
+
+// ── Makers ───────────────────────────────────────────────────────────────────
+export const makerInputSchema = z.object({
+  name: text(300).min(1, 'Enter a name'),
+  lifeDates: optionalText(100),
+  notes: optionalText(5000),
+});
+export const makerUpdateSchema = makerInputSchema.partial().extend({ version });
+export const makerSchema = z.object({
+  id, name: z.string(), lifeDates: z.string().nullable(), notes: z.string().nullable(), printCount: z.number().int(), version: z.number().int(),
+});
+export type Maker = z.infer<typeof makerSchema>;
+
+// ── Papers ───────────────────────────────────────────────────────────────────
+export const paperInputSchema = z.object({
+  manufacturer: text(200).min(1, 'Enter the manufacturer as written on the packet'),
+  product: text(200).min(1, 'Enter the product name'),
+  base: z.enum(PAPER_BASE.codes),
+  surface: optionalText(100),
+  baseTint: optionalText(100),
+  weight: optionalText(100),
+  opticalBrighteners: z.enum(YES_NO_UNKNOWN.codes).default('unknown'),
+  madeDates: optionalText(100).describe('EDTF date or interval of manufacture'),
+  notes: optionalText(5000),
+});
+export const paperUpdateSchema = paperInputSchema.partial().extend({ version });
+export const paperSchema = z.object({
+  id, label: z.string(), manufacturer: z.string(), product: z.string(), base: z.enum(PAPER_BASE.codes),
+  surface: z.string().nullable(), baseTint: z.string().nullable(), weight: z.string().nullable(),
+  opticalBrighteners: z.enum(YES_NO_UNKNOWN.codes), madeDates: z.string().nullable(), madeDisplay: z.string().nullable(),
+  notes: z.string().nullable(), printCount: z.number().int(), version: z.number().int(),
+});
+export type Paper = z.infer<typeof paperSchema>;
+
+// ── Bath recipes ─────────────────────────────────────────────────────────────
+export const ingredientSchema = z.object({
+  chemical: text(200).min(1, 'Name the chemical'),
+  amount: z.coerce.number({ message: 'Enter an amount' }).positive('Must be more than 0'),
+  unit: z.enum(INGREDIENT_UNIT.codes),
+  strengthPercent: z.preprocess((v) => (v === '' ? null : v), z.coerce.number().gt(0, 'Above 0 %').max(100, 'At most 100 %').nullable()).optional(),
+  densityGPerMl: z.preprocess((v) => (v === '' ? null : v), z.coerce.number().positive().max(25).nullable()).optional(),
+});
+export type IngredientInput = z.infer<typeof ingredientSchema>;
+export const recipeInputSchema = z.object({
+  name: text(200).min(1, 'Name the recipe'),
+  tonerClass: tonerClassSchema.nullable().optional(),
+  volumeMl: z.coerce.number({ message: 'Enter the final volume in ml' }).positive('Must be more than 0 ml').max(1_000_000),
+  ingredients: z.array(ingredientSchema).min(1, 'Add at least one ingredient').max(40),
+  mixingNotes: optionalText(5000),
+});
+export const recipeUpdateSchema = recipeInputSchema.partial().extend({ version });
+export const normalisedIngredientSchema = z.object({
+  chemical: z.string(), givenAs: z.string(), gramsPerLitre: z.number().nullable(), mlPerLitre: z.number().nullable(),
+  pureGramsPerLitre: z.number().nullable(), note: z.string().optional(),
+});
+export const recipeSchema = z.object({
+  id, name: z.string(), tonerClass: tonerClassSchema.nullable(), volumeMl: z.number(),
+  ingredients: z.array(ingredientSchema), mixingNotes: z.string().nullable(),
+  normalised: z.array(normalisedIngredientSchema),
+  cautions: z.array(z.object({ code: z.string(), text: z.string() })),
+  stepCount: z.number().int(), version: z.number().int(),
+});
+export type Recipe = z.infer<typeof recipeSchema>;
+
+// ── Locations and enclosures ─────────────────────────────────────────────────
+export const locationInputSchema = z.object({
+  name: text(200).min(1, 'Name the place'),
+  kind: z.enum(LOCATION_KIND.codes),
+  parentId: optionalId,
+  code: optionalText(50),
+  notes: optionalText(2000),
+});
+export const locationUpdateSchema = locationInputSchema.partial().extend({ version });
+export const locationSchema = z.object({
+  id, name: z.string(), kind: z.enum(LOCATION_KIND.codes), parentId: z.string().uuid().nullable(), code: z.string().nullable(),
+  notes: z.string().nullable(), path: z.array(z.string()), pathLabel: z.string(), depth: z.number().int(),
+  printCount: z.number().int(), version: z.number().int(),
+});
+export type Location = z.infer<typeof locationSchema>;
+
+export const enclosureInputSchema = z.object({
+  name: text(200).min(1, 'Name the enclosure type'),
+  material: optionalText(300),
+  alkalineBuffered: z.boolean().nullable().describe('true = buffered, false = unbuffered, null = unknown'),
+  patResult: z.enum(PAT_RESULT.codes),
+  notes: optionalText(2000),
+});
+export const enclosureUpdateSchema = enclosureInputSchema.partial().extend({ version });
+export const enclosureSchema = z.object({
+  id, name: z.string(), material: z.string().nullable(), alkalineBuffered: z.boolean().nullable(), patResult: z.enum(PAT_RESULT.codes),
+  notes: z.string().nullable(), printCount: z.number().int(), version: z.number().int(),
+});
+export type Enclosure = z.infer<typeof enclosureSchema>;
+
+export const referenceListQuerySchema = pageQuerySchema.extend({
+  q: z.string().trim().max(200).optional(),
+  pageSize: z.coerce.number().int().min(1).max(1000).default(200),
+});
+
+// ── Process steps ────────────────────────────────────────────────────────────
+const seconds = z.preprocess((v) => (v === '' ? null : v), z.coerce.number({ message: 'Enter seconds' }).int('Whole seconds').min(0).max(7 * 24 * 3600).nullable()).optional();
+const celsius = z.preprocess((v) => (v === '' ? null : v), z.coerce.number({ message: 'Enter °C' }).min(-10).max(100).nullable()).optional();
+export const processStepInputSchema = z
+  .object({
+    type: stepTypeSchema,
+    agent: optionalText(200).describe('Developer, fixer, wash or solution as used'),
+    tonerClass: tonerClassSchema.nullable().optional(),
+    recipeId: optionalId,
+    dilution: optionalText(50),
+    timeSeconds: seconds,
+    temperatureC: celsius,
+    extent: z.enum(TONING_EXTENT.codes).nullable().optional(),
+    concentration: optionalText(100),
+    alkaline: z.boolean().nullable().optional(),
+    method: z.enum(THIOSULFATE_METHOD.codes).nullable().optional(),
+    value: z.preprocess((v) => (v === '' ? null : v), z.coerce.number().nullable()).optional(),
+    unit: optionalText(50),
+    notes: optionalText(2000),
+  })
+  .superRefine((s, ctx) => {
+    if (s.type === 'toning' && !s.tonerClass) ctx.addIssue({ code: 'custom', path: ['tonerClass'], message: 'A toning step needs its toner class' });
+    if (s.type !== 'toning' && (s.tonerClass || s.extent)) ctx.addIssue({ code: 'custom', path: ['tonerClass'], message: 'Toner class and extent belong to toning steps' });
+    if (s.type === 'residual_thiosulfate_test') {
+      if (!s.method) ctx.addIssue({ code: 'custom', path: ['method'], message: 'Name the test method' });
+      if (s.value != null && !s.unit) ctx.addIssue({ code: 'custom', path: ['unit'], message: 'Give the unit of the measured value' });
+    } else if (s.method) ctx.addIssue({ code: 'custom', path: ['method'], message: 'A method belongs to a residual-thiosulfate test' });
+  });
+export type ProcessStepInput = z.infer<typeof processStepInputSchema>;
+export const processStepSchema = z.object({
+  id, position: z.number().int(), type: stepTypeSchema, agent: z.string().nullable(), tonerClass: tonerClassSchema.nullable(),
+  recipe: z.object({ id, name: z.string() }).nullable(), dilution: z.string().nullable(), timeSeconds: z.number().int().nullable(),
+  temperatureC: z.number().nullable(), extent: z.enum(TONING_EXTENT.codes).nullable(), concentration: z.string().nullable(),
+  alkaline: z.boolean().nullable(), method: z.enum(THIOSULFATE_METHOD.codes).nullable(), value: z.number().nullable(),
+  unit: z.string().nullable(), notes: z.string().nullable(),
+});
+export type ProcessStep = z.infer<typeof processStepSchema>;
+export const stepsReplaceSchema = z.object({ version, steps: z.array(processStepInputSchema).max(60) });
+
+// ── Prints ───────────────────────────────────────────────────────────────────
+const dimensions = {
+  imageWidthMm: mm, imageHeightMm: mm, sheetWidthMm: mm, sheetHeightMm: mm, mountWidthMm: mm, mountHeightMm: mm,
+};
+export const printInputSchema = z.object({
+  accessionNumber: text(60).min(1, 'Enter the accession number'),
+  title: text(500).min(1, 'Enter a title (or a descriptive title in square brackets)'),
+  makerId: optionalId,
+  dateMade: optionalText(100).describe('EDTF, e.g. 1968, 1968-04~, 196X, 1971?, 1964/1969'),
+  ...dimensions,
+  process: processSchema,
+  support: supportSchema.nullable().optional(),
+  paperId: optionalId,
+  inscriptions: optionalText(5000),
+  provenance: optionalText(5000),
+  creditLine: optionalText(500),
+  status: statusSchema.default('in_store'),
+  enclosureId: optionalId,
+  lightResponsivity: lightResponsivitySchema.nullable().optional(),
+  staffNotes: optionalText(10000),
+  valuationAmount: z.preprocess((v) => (v === '' ? null : v), z.coerce.number().min(0).max(1e12).nullable()).optional(),
+  valuationCurrency: z.preprocess((v) => (v === '' ? null : v), z.string().regex(/^[A-Z]{3}$/, 'A three-letter currency code (ISO 4217)').nullable()).optional(),
+  /** Only on create: where the print is placed first (recorded as a movement). */
+  locationId: optionalId,
+});
+export type PrintInput = z.infer<typeof printInputSchema>;
+export const printUpdateSchema = printInputSchema.omit({ locationId: true }).partial().extend({ version });
+export type PrintUpdate = z.infer<typeof printUpdateSchema>;
+
+export const printSchema = z.object({
+  id, accessionNumber: z.string(), title: z.string(),
+  maker: z.object({ id, name: z.string() }).nullable(),
+  dateMade: z.string().nullable(), dateDisplay: z.string().nullable(), dateEarliest: z.string().nullable(), dateLatest: z.string().nullable(),
+  imageWidthMm: z.number().nullable(), imageHeightMm: z.number().nullable(), sheetWidthMm: z.number().nullable(),
+  sheetHeightMm: z.number().nullable(), mountWidthMm: z.number().nullable(), mountHeightMm: z.number().nullable(),
+  process: processSchema, support: supportSchema.nullable(),
+  paper: z.object({ id, label: z.string() }).nullable(),
+  inscriptions: z.string().nullable(), provenance: z.string().nullable(), creditLine: z.string().nullable(),
+  status: statusSchema,
+  enclosure: z.object({ id, name: z.string(), alkalineBuffered: z.boolean().nullable(), patResult: z.enum(PAT_RESULT.codes) }).nullable(),
+  lightResponsivity: lightResponsivitySchema.nullable(),
+  tonerClasses: z.array(tonerClassSchema),
+  warnings: z.array(warningSchema),
+  steps: z.array(processStepSchema),
+  /** Omitted for roles that may not see locations, valuations or staff notes. */
+  location: z.object({ id, pathLabel: z.string() }).nullable().optional(),
+  staffNotes: z.string().nullable().optional(),
+  valuationAmount: z.number().nullable().optional(),
+  valuationCurrency: z.string().nullable().optional(),
+  version: z.number().int(), createdAt: z.string().datetime(), updatedAt: z.string().datetime(),
+});
+export type Print = z.infer<typeof printSchema>;
+
+export const PRINT_SORTS = ['accessionNumber', 'title', 'maker', 'dateMade', 'status', 'updatedAt'] as const;
+export const printSortSchema = z.enum([...PRINT_SORTS, ...PRINT_SORTS.map((s) => `-${s}` as const)] as [string, ...string[]]);
+
+export const printListQuerySchema = pageQuerySchema.extend({
+  q: z.string().trim().max(200).optional(),
+  sort: printSortSchema.default('accessionNumber'),
+  process: processSchema.optional(),
+  support: supportSchema.optional(),
+  status: statusSchema.optional(),
+  tonerClass: tonerClassSchema.optional(),
+  lightResponsivity: lightResponsivitySchema.optional(),
+  makerId: id.optional(),
+  paperId: id.optional(),
+  enclosureId: id.optional(),
+  locationId: id.optional().describe('This place and everything inside it'),
+  hasWarnings: z.enum(['true', 'false']).optional(),
+  madeFrom: z.coerce.number().int().min(1800).max(2200).optional().describe('Year: made no earlier than'),
+  madeTo: z.coerce.number().int().min(1800).max(2200).optional().describe('Year: made no later than'),
+});
+export type PrintListQuery = z.infer<typeof printListQuerySchema>;
+
+export const printListItemSchema = z.object({
+  id, accessionNumber: z.string(), title: z.string(), makerName: z.string().nullable(),
+  dateMade: z.string().nullable(), dateDisplay: z.string().nullable(), process: processSchema, support: supportSchema.nullable(),
+  status: statusSchema, tonerClasses: z.array(tonerClassSchema), paperLabel: z.string().nullable(),
+  enclosureName: z.string().nullable(), warningCodes: z.array(z.string()), updatedAt: z.string().datetime(),
+  locationLabel: z.string().nullable().optional(),
+});
+export type PrintListItem = z.infer<typeof printListItemSchema>;
+
+/** 409 details when someone saved in between: the record as it is now, and who saved it last. */
+export const staleEditDetailsSchema = z.object({
+  current: z.unknown(),
+  lastChangedBy: z.string().nullable(),
+  lastChangedAt: z.string().datetime().nullable(),
+});
+
+// ── Movements ────────────────────────────────────────────────────────────────
+export const movementInputSchema = z.object({
+  toLocationId: id,
+  reason: text(500).min(1, 'Say why the print moves'),
+  movedAt: z.string().datetime({ offset: true }).optional(),
+  version,
+});
+export const movementSchema = z.object({
+  id, from: z.object({ id, pathLabel: z.string() }).nullable(), to: z.object({ id, pathLabel: z.string() }),
+  movedAt: z.string().datetime(), movedBy: z.string().nullable(), reason: z.string(),
+});
+export type Movement = z.infer<typeof movementSchema>;
+
+// ── Settings ─────────────────────────────────────────────────────────────────
+export const catalogueSettingsSchema = z.object({
+  accessionPattern: z.string().trim().min(1).max(200),
+  institutionName: z.string().trim().min(1).max(300),
+});
+export type CatalogueSettings = z.infer<typeof catalogueSettingsSchema>;
+
+// ── Imports ──────────────────────────────────────────────────────────────────
+export const IMPORT_COLUMNS = [
+  'accession_number', 'title', 'maker', 'date_made', 'process', 'support', 'paper', 'status', 'location', 'enclosure',
+  'light_responsivity', 'image_width_mm', 'image_height_mm', 'sheet_width_mm', 'sheet_height_mm', 'mount_width_mm',
+  'mount_height_mm', 'inscriptions', 'provenance', 'credit_line', 'staff_notes', 'toner_classes',
+] as const;
+export const importStatusSchema = z.enum(['validating', 'ready', 'invalid', 'committing', 'committed', 'failed']);
+export const importIssueSchema = z.object({ row: z.number().int(), column: z.string(), value: z.string().nullable(), message: z.string() });
+export const importSchema = z.object({
+  id, fileName: z.string(), status: importStatusSchema, totalRows: z.number().int(), processedRows: z.number().int(),
+  errorCount: z.number().int(), errors: z.array(importIssueSchema), newMakers: z.array(z.string()),
+  createdPrints: z.number().int(), message: z.string().nullable(), createdAt: z.string().datetime(), finishedAt: z.string().datetime().nullable(),
+});
+export type ImportJob = z.infer<typeof importSchema>;
+
+export const historyEventSchema = z.object({
+  id: z.string(), at: z.string().datetime(), actorName: z.string().nullable(), action: z.string(),
+  summary: z.string(), changes: z.array(z.object({ field: z.string(), before: z.unknown(), after: z.unknown() })),
+});
+export type HistoryEvent = z.infer<typeof historyEventSchema>;
