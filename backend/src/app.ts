@@ -17,6 +17,10 @@ import { usersRoutes } from './routes/users/users.routes';
 import { auditRoutes } from './routes/audit/audit.routes';
 import { devMailRoutes } from './routes/dev-mail/dev-mail.routes';
 import { systemRoutes } from './routes/system/system.routes';
+import { printsRoutes } from './routes/prints/prints.routes';
+import { referenceRoutes } from './routes/reference/reference.routes';
+import { settingsRoutes } from './routes/settings/settings.routes';
+import { importsRoutes } from './routes/imports/imports.routes';
 
 /** Every route the app serves, in one list: Express mounts it and OpenAPI describes it. */
 export function allRoutes(deps: AppDeps): RouteDef[] {
@@ -27,6 +31,10 @@ export function allRoutes(deps: AppDeps): RouteDef[] {
     ...usersRoutes(),
     ...auditRoutes(),
     ...devMailRoutes(deps),
+    ...printsRoutes(),
+    ...referenceRoutes(),
+    ...settingsRoutes(),
+    ...importsRoutes(),
   ];
   routes.push(
     route({

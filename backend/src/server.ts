@@ -19,6 +19,9 @@ export async function startServer(options: { migrate?: boolean } = {}): Promise<
     const done = await migrateUp(db(), (m) => logger.debug(m));
     if (done.length) logger.info({ migrations: done }, 'migrations applied');
   }
+  const { failInterruptedImports } = await import('./services/import.service');
+  const interrupted = await failInterruptedImports();
+  if (interrupted) logger.warn({ interrupted }, 'imports left unfinished by the last run were marked failed');
   const deps = composeDeps(e);
   const app = buildApp(deps, logger);
   const server = await new Promise<Server>((resolve, reject) => {

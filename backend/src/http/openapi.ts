@@ -52,6 +52,9 @@ export function openApiDocument(defs: RouteDef[], version: string): Json {
       'x-access': def.access,
       parameters: parametersOf(def),
       ...(def.body ? { requestBody: { required: true, content: { 'application/json': { schema: schemaOf(def.body, 'input') } } } } : {}),
+      ...(def.requestContentType === 'multipart/form-data'
+        ? { requestBody: { required: true, content: { 'multipart/form-data': { schema: { type: 'object', properties: { file: { type: 'string', format: 'binary' } }, required: ['file'] } } } } }
+        : {}),
       responses,
       ...(def.access === 'public' ? {} : { security: [{ session: [] }] }),
     };

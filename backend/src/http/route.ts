@@ -1,4 +1,4 @@
-import type { Request, Response, Router } from 'express';
+import type { Request, RequestHandler, Response, Router } from 'express';
 import { z } from 'zod';
 import { can, type Permission } from '@toneledger/common/domain/roles';
 import { forbidden, unauthenticated, validationFailed, AppError } from '../errors';
@@ -36,6 +36,10 @@ export interface RouteDef<P = any, Q = any, B = any> {
   /** The success status and its body schema; other statuses are added from the access rule and inputs. */
   status?: number;
   response?: RouteResponse;
+  /** Express middleware run after the access check and before validation (e.g. multer for uploads). */
+  before?: RequestHandler[];
+  /** Request body types other than JSON, for the OpenAPI document. */
+  requestContentType?: string;
   /** Returns the body to send as JSON with `status`; return undefined when the handler answered itself. */
   handler: (input: RouteInput<P, Q, B>) => Promise<unknown> | unknown;
 }
@@ -74,9 +78,12 @@ export interface MountOptions {
 
 export function mount(router: Router, defs: RouteDef[], options: MountOptions): void {
   for (const def of defs) {
-    router[def.method](def.path, async (req: Request, res: Response) => {
-      const user = (req as Request & { user?: CurrentUser | null }).user ?? null;
-      checkAccess(def.access, user);
+    const access: RequestHandler = (req, _res, next) => {
+      checkAccess(def.access, req.user ?? null);
+      next();
+    };
+    router[def.method](def.path, access, ...(def.before ?? []), async (req: Request, res: Response) => {
+      const user = req.user ?? null;
       const parts = [
         ['params', def.params],
         ['query', def.query],

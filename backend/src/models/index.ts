@@ -1,5 +1,8 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import type { Role } from '@toneledger/common/domain/roles';
+import { initCatalogueModels } from './catalogue';
+
+export * from './catalogue';
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<string>;
@@ -59,4 +62,5 @@ export function initModels(sequelize: Sequelize): void {
     { sequelize, tableName: 'audit_events', underscored: true, timestamps: false },
   );
   AuditEventModel.belongsTo(User, { as: 'actor', foreignKey: 'actorId' });
+  initCatalogueModels(sequelize);
 }

@@ -1,0 +1,31 @@
+import type { CatalogueSettings } from '@toneledger/common/schemas/catalogue';
+import { DEFAULT_ACCESSION_PATTERN, accessionRule } from '@toneledger/common/domain/accession';
+import { Setting } from '../models';
+import { db } from '../db';
+import { validationFailed } from '../errors';
+import { recordAudit, type AuditActor } from './audit.service';
+
+const KEY = 'catalogue';
+export const DEFAULT_CATALOGUE_SETTINGS: CatalogueSettings = {
+  accessionPattern: DEFAULT_ACCESSION_PATTERN,
+  institutionName: 'Your institution',
+};
+
+export async function getCatalogueSettings(): Promise<CatalogueSettings> {
+  const row = await Setting.findByPk(KEY);
+  return { ...DEFAULT_CATALOGUE_SETTINGS, ...((row?.value as Partial<CatalogueSettings>) ?? {}) };
+}
+
+export async function putCatalogueSettings(next: CatalogueSettings, actor: AuditActor, requestId: string | null): Promise<CatalogueSettings> {
+  try {
+    accessionRule(next.accessionPattern);
+  } catch (err) {
+    throw validationFailed([{ path: 'accessionPattern', message: (err as Error).message, code: 'custom' }]);
+  }
+  return db().transaction(async (t) => {
+    const before = await getCatalogueSettings();
+    await Setting.upsert({ key: KEY, value: next }, { transaction: t });
+    await recordAudit({ actor, action: 'settings.updated', entityType: 'settings', entityId: KEY, before, after: next, requestId }, t);
+    return next;
+  });
+}
