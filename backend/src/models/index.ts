@@ -1,8 +1,10 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import type { Role } from '@toneledger/common/domain/roles';
 import { initCatalogueModels } from './catalogue';
+import { initImageModels } from './images';
 
 export * from './catalogue';
+export * from './images';
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<string>;
@@ -63,4 +65,5 @@ export function initModels(sequelize: Sequelize): void {
   );
   AuditEventModel.belongsTo(User, { as: 'actor', foreignKey: 'actorId' });
   initCatalogueModels(sequelize);
+  initImageModels(sequelize);
 }
