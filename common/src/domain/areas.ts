@@ -12,7 +12,7 @@ export interface Area {
 }
 
 export const AREAS: Area[] = [
-  { id: 'catalogue', label: 'Catalogue', path: '/catalogue', permission: 'catalogue.read', ready: false,
+  { id: 'catalogue', label: 'Catalogue', path: '/catalogue', permission: 'catalogue.read', ready: true,
     summary: 'Print records with their process history, papers, bath recipes, locations and enclosures.' },
   { id: 'condition', label: 'Condition', path: '/condition', permission: 'condition.read', ready: false,
     summary: 'Signed condition reports, observations and images, with addenda instead of edits.' },

@@ -1,10 +1,12 @@
 import { useState, type ComponentType } from 'react';
 import { createBrowserRouter, RouterProvider, type RouteObject } from 'react-router-dom';
 import { ADMIN_AREAS, AREAS, type Area } from '@toneledger/common/domain/areas';
+import type { Permission } from '@toneledger/common/domain/roles';
 import { AuthGate } from '@/app/layout/auth-gate';
 import { FullPageLoading } from '@/app/layout/full-page-loading';
 import { PlainPage } from '@/app/layout/plain-page';
 import { RequireArea } from '@/app/require-area';
+import { RequirePermission } from '@/app/require-permission';
 import { ErrorPage } from '@/app/routes/error-page';
 import { NotFoundPage } from '@/app/routes/not-found-page';
 
@@ -44,6 +46,95 @@ function areaRoute(area: Area): RouteObject {
   };
 }
 
+/** A lazily loaded page inside an area, shown only to roles with `guard.permission` when given. */
+function page(load: PageLoader, guard?: { permission: Permission; what: string }) {
+  return async () => {
+    const Page = await load();
+    if (!guard) return { Component: Page };
+    return {
+      Component: () => (
+        <RequirePermission permission={guard.permission} what={guard.what}>
+          <Page />
+        </RequirePermission>
+      ),
+    };
+  };
+}
+
+const WRITE = 'catalogue.write' satisfies Permission;
+
+/**
+ * The catalogue: its own layout (sub-navigation) and screens. Prints and imports are ours; the
+ * reference records (makers, papers, recipes, locations, enclosures, settings) have screens of their own.
+ */
+function catalogueRoute(area: Area): RouteObject {
+  return {
+    path: area.path,
+    lazy: async () => {
+      const { CatalogueLayout } = await import('@/features/catalogue/routes/catalogue-layout');
+      return {
+        Component: () => (
+          <RequireArea area={area}>
+            <CatalogueLayout />
+          </RequireArea>
+        ),
+      };
+    },
+    children: [
+      { index: true, lazy: page(() => import('@/features/catalogue/routes/prints-page').then((m) => m.PrintsPage)) },
+      {
+        path: 'prints/new',
+        lazy: page(() => import('@/features/catalogue/routes/print-create-page').then((m) => m.PrintCreatePage), {
+          permission: WRITE,
+          what: 'Adding prints',
+        }),
+      },
+      { path: 'prints/:id', lazy: page(() => import('@/features/catalogue/routes/print-page').then((m) => m.PrintPage)) },
+      {
+        path: 'prints/:id/edit',
+        lazy: page(() => import('@/features/catalogue/routes/print-edit-page').then((m) => m.PrintEditPage), {
+          permission: WRITE,
+          what: 'Editing prints',
+        }),
+      },
+      {
+        path: 'prints/:id/process',
+        lazy: page(() => import('@/features/catalogue/routes/print-steps-page').then((m) => m.PrintStepsPage), {
+          permission: WRITE,
+          what: 'Editing process histories',
+        }),
+      },
+      {
+        path: 'import',
+        lazy: page(() => import('@/features/catalogue/routes/import-page').then((m) => m.ImportPage), {
+          permission: WRITE,
+          what: 'Importing prints',
+        }),
+      },
+      { path: 'makers', lazy: page(() => import('@/features/reference/routes/makers-page').then((m) => m.MakersPage)) },
+      { path: 'papers', lazy: page(() => import('@/features/reference/routes/papers-page').then((m) => m.PapersPage)) },
+      { path: 'recipes', lazy: page(() => import('@/features/reference/routes/recipes-page').then((m) => m.RecipesPage)) },
+      { path: 'recipes/:id', lazy: page(() => import('@/features/reference/routes/recipe-page').then((m) => m.RecipePage)) },
+      {
+        path: 'locations',
+        lazy: page(() => import('@/features/reference/routes/locations-page').then((m) => m.LocationsPage), {
+          permission: 'catalogue.read_restricted',
+          what: 'Locations',
+        }),
+      },
+      { path: 'enclosures', lazy: page(() => import('@/features/reference/routes/enclosures-page').then((m) => m.EnclosuresPage)) },
+      {
+        path: 'settings',
+        lazy: page(() => import('@/features/reference/routes/catalogue-settings-page').then((m) => m.CatalogueSettingsPage), {
+          permission: 'settings.manage',
+          what: 'Catalogue settings',
+        }),
+      },
+      { path: '*', Component: NotFoundPage },
+    ],
+  };
+}
+
 function PlainErrorPage() {
   return (
     <PlainPage>
@@ -69,7 +160,7 @@ export const routes: RouteObject[] = [
         errorElement: <ErrorPage />,
         children: [
           { index: true, lazy: () => import('@/app/routes/home-page').then((m) => ({ Component: m.HomePage })) },
-          ...AREAS.map(areaRoute),
+          ...AREAS.map((area) => (area.id === 'catalogue' ? catalogueRoute(area) : areaRoute(area))),
           ...ADMIN_AREAS.map(areaRoute),
           { path: '*', Component: NotFoundPage },
         ],

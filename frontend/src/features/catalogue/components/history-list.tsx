@@ -1,0 +1,77 @@
+import { useId } from 'react';
+import type { HistoryEvent } from '@toneledger/common/schemas/catalogue';
+import { ErrorNotice } from '@/components/ui/notice';
+import { Loading } from '@/components/ui/loading';
+import { formatDateTime } from '@/lib/format';
+import { useHistory } from '@/features/catalogue/api/get-history';
+
+function show(value: unknown): string {
+  if (value === null || value === undefined || value === '') return '—';
+  if (typeof value === 'string') return value;
+  if (typeof value === 'number' || typeof value === 'boolean') return String(value);
+  return JSON.stringify(value);
+}
+
+function Changes({ changes }: { changes: HistoryEvent['changes'] }) {
+  if (changes.length === 0) return null;
+  return (
+    <table className="mt-1.5 w-full border-collapse text-left text-xs">
+      <thead>
+        <tr className="text-ink-700">
+          <th scope="col" className="py-1 pr-3 font-semibold">Field</th>
+          <th scope="col" className="py-1 pr-3 font-semibold">Before</th>
+          <th scope="col" className="py-1 font-semibold">After</th>
+        </tr>
+      </thead>
+      <tbody>
+        {changes.map((c, i) => (
+          <tr key={`${c.field}-${i}`} className="border-t border-paper-200 align-top">
+            <th scope="row" className="py-1 pr-3 font-medium text-ink-900">
+              <code className="mono">{c.field}</code>
+            </th>
+            <td className="py-1 pr-3 break-words whitespace-pre-line text-ink-800">{show(c.before)}</td>
+            <td className="py-1 break-words whitespace-pre-line text-ink-900">{show(c.after)}</td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
+/** Every change to this print: who, when, what, with each field's before and after. */
+export function HistoryList({ printId }: { printId: string }) {
+  const history = useHistory(printId, true);
+  const headingId = useId();
+  return (
+    <section aria-labelledby={headingId} className="rounded border border-paper-300 bg-white p-4">
+      <h2 id={headingId} className="text-lg">
+        History of changes
+      </h2>
+      {history.isPending ? <Loading label="Loading history…" /> : null}
+      {history.isError ? <ErrorNotice error={history.error} title="The history could not be loaded." /> : null}
+      {history.data ? (
+        history.data.length === 0 ? (
+          <p className="mt-2 text-sm text-ink-700">No changes recorded.</p>
+        ) : (
+          <ol className="mt-2 flex flex-col divide-y divide-paper-200">
+            {history.data.map((event) => (
+              <li key={event.id} className="py-2 text-sm">
+                <p>
+                  <time dateTime={event.at} className="text-ink-700">
+                    {formatDateTime(event.at)}
+                  </time>
+                  {' · '}
+                  <span className="font-medium">{event.actorName ?? 'System'}</span>
+                  {' · '}
+                  <code className="mono text-xs text-ink-700">{event.action}</code>
+                </p>
+                <p className="text-ink-900">{event.summary}</p>
+                <Changes changes={event.changes} />
+              </li>
+            ))}
+          </ol>
+        )
+      ) : null}
+    </section>
+  );
+}

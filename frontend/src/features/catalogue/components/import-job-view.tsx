@@ -1,0 +1,143 @@
+import { Link } from 'react-router-dom';
+import type { ImportJob } from '@toneledger/common/schemas/catalogue';
+import { Button } from '@/components/ui/button';
+import { ErrorNotice, Notice } from '@/components/ui/notice';
+import { formatCount } from '@/lib/format';
+import { useCommitImport } from '@/features/catalogue/api/commit-import';
+
+function Progress({ job, label }: { job: ImportJob; label: string }) {
+  const total = Math.max(job.totalRows, 0);
+  return (
+    <div role="status" className="flex flex-col gap-1.5 rounded border border-paper-300 bg-white p-4">
+      <p className="text-sm font-medium text-ink-900">{label}</p>
+      <progress
+        aria-label={label}
+        value={job.processedRows}
+        max={total || undefined}
+        className="h-3 w-full max-w-xl overflow-hidden rounded accent-iron-700"
+      />
+      <p className="num text-sm text-ink-700">
+        {total > 0 ? `${formatCount(job.processedRows)} of ${formatCount(total)} rows` : 'Counting rows…'}
+      </p>
+    </div>
+  );
+}
+
+function ErrorRows({ job }: { job: ImportJob }) {
+  return (
+    <div className="overflow-x-auto rounded border border-paper-300 bg-white">
+      <table className="w-full border-collapse text-left text-sm">
+        <caption className="px-3 py-2 text-left font-semibold">
+          {formatCount(job.errorCount)} {job.errorCount === 1 ? 'problem' : 'problems'} in {job.fileName}
+        </caption>
+        <thead className="bg-paper-100 text-xs text-ink-700 uppercase">
+          <tr>
+            <th scope="col" className="px-3 py-2">Row</th>
+            <th scope="col" className="px-3 py-2">Column</th>
+            <th scope="col" className="px-3 py-2">Value</th>
+            <th scope="col" className="px-3 py-2">Problem</th>
+          </tr>
+        </thead>
+        <tbody>
+          {job.errors.map((e, i) => (
+            <tr key={`${e.row}-${e.column}-${i}`} className="border-t border-paper-200 align-top">
+              <td className="num px-3 py-1.5">{e.row}</td>
+              <td className="px-3 py-1.5">
+                <code className="mono text-xs">{e.column}</code>
+              </td>
+              <td className="px-3 py-1.5 break-all">{e.value ?? <span className="text-ink-600">empty</span>}</td>
+              <td className="px-3 py-1.5">{e.message}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+/** One import job at whatever stage it is: checking, ready to confirm, writing, done, refused or failed. */
+export function ImportJobView({ job, onStartAgain }: { job: ImportJob; onStartAgain: () => void }) {
+  const commit = useCommitImport();
+  const again = (
+    <Button onClick={onStartAgain} variant="secondary">
+      Import another file
+    </Button>
+  );
+
+  switch (job.status) {
+    case 'validating':
+      return <Progress job={job} label={`Checking ${job.fileName}…`} />;
+    case 'committing':
+      return <Progress job={job} label={`Writing prints from ${job.fileName}…`} />;
+    case 'ready':
+      return (
+        <section aria-label="Ready to import" className="flex flex-col gap-3 rounded border border-paper-300 bg-white p-4">
+          <h2 className="text-lg">Ready to import</h2>
+          <p className="text-sm">
+            <span className="num font-semibold">{formatCount(job.totalRows)}</span> {job.totalRows === 1 ? 'row' : 'rows'} in {job.fileName} were
+            checked and have no problems. Nothing has been written yet.
+          </p>
+          {job.newMakers.length > 0 ? (
+            <div className="text-sm">
+              <p>
+                These {job.newMakers.length === 1 ? 'maker is' : `${job.newMakers.length} makers are`} not in the catalogue and will be created:
+              </p>
+              <ul className="mt-1 list-disc pl-6">
+                {job.newMakers.map((name) => (
+                  <li key={name}>{name}</li>
+                ))}
+              </ul>
+            </div>
+          ) : (
+            <p className="text-sm text-ink-700">Every maker in the file is already in the catalogue.</p>
+          )}
+          {commit.isError ? <ErrorNotice error={commit.error} title="The import did not start." /> : null}
+          <div className="flex flex-wrap gap-2">
+            <Button variant="primary" disabled={commit.isPending} onClick={() => commit.mutate(job.id)}>
+              {commit.isPending ? 'Starting…' : `Import ${formatCount(job.totalRows)} ${job.totalRows === 1 ? 'print' : 'prints'}`}
+            </Button>
+            <Button variant="quiet" onClick={onStartAgain} disabled={commit.isPending}>
+              Cancel, write nothing
+            </Button>
+          </div>
+        </section>
+      );
+    case 'committed':
+      return (
+        <div className="flex flex-col gap-3">
+          <Notice tone="success" role="status" title="Import finished.">
+            <p>
+              {formatCount(job.createdPrints)} {job.createdPrints === 1 ? 'print was' : 'prints were'} added to the catalogue from {job.fileName}.
+            </p>
+          </Notice>
+          <div className="flex flex-wrap items-center gap-3">
+            <Link to="/catalogue?sort=-updatedAt">See the prints, newest first</Link>
+            {again}
+          </div>
+        </div>
+      );
+    case 'invalid':
+      return (
+        <div className="flex flex-col gap-3">
+          <Notice tone="error" role="alert" title="The file was not imported.">
+            <p>
+              {formatCount(job.errorCount)} {job.errorCount === 1 ? 'problem was' : 'problems were'} found. Nothing was written to the catalogue.
+              Correct the file and import it again.
+            </p>
+          </Notice>
+          <ErrorRows job={job} />
+          <div>{again}</div>
+        </div>
+      );
+    case 'failed':
+      return (
+        <div className="flex flex-col gap-3">
+          <Notice tone="error" role="alert" title="The import failed.">
+            <p>{job.message ?? 'The server could not finish the import.'} Nothing was written to the catalogue.</p>
+          </Notice>
+          {job.errors.length > 0 ? <ErrorRows job={job} /> : null}
+          <div>{again}</div>
+        </div>
+      );
+  }
+}

@@ -1,0 +1,92 @@
+import { describe, expect, it } from 'vitest';
+import { fireEvent, screen, waitFor, within } from '@testing-library/react';
+import { json, mockFetch } from '@/test/fetch-mock';
+import { makeMe } from '@/test/fixtures';
+import { renderRoutes } from '@/test/render';
+import type { Role } from '@toneledger/common/domain/roles';
+import { PrintPage } from '@/features/catalogue/routes/print-page';
+import { LOCATION_ID, PRINT_ID, RECIPE_ID, makePrint, makeStep, referenceHandlers } from '@/features/catalogue/testing/fixtures';
+
+const toned = makePrint({
+  staffNotes: 'Frame glazing chipped',
+  valuationAmount: 1200,
+  valuationCurrency: 'GBP',
+  tonerClasses: ['iron_blue'],
+  enclosure: { id: '41111111-2222-4333-8444-555555555555', name: 'Buffered folder', alkalineBuffered: true, patResult: 'passed' },
+  warnings: [{ code: 'prussian_blue_in_buffered_enclosure', severity: 'high', message: 'This iron-blue toned print is in an alkaline-buffered enclosure.', basis: 'Published guidance.' }],
+  steps: [
+    makeStep(),
+    makeStep({ id: '74111111-2222-4333-8444-555555555555', position: 2, type: 'toning', agent: null, tonerClass: 'iron_blue', recipe: { id: RECIPE_ID, name: 'Iron blue toner A' }, dilution: '1+4', timeSeconds: 95, temperatureC: 21, extent: 'split' }),
+  ],
+});
+
+function renderPrint(role: Role, print = toned) {
+  const fetch = mockFetch({
+    ...referenceHandlers(),
+    [`GET /api/prints/${PRINT_ID}`]: () => json({ data: print }),
+    [`GET /api/prints/${PRINT_ID}/movements`]: () =>
+      json({ data: [{ id: '81111111-2222-4333-8444-555555555555', from: null, to: { id: LOCATION_ID, pathLabel: 'Store A › Cabinet 2' }, movedAt: '2024-01-02T10:00:00.000Z', movedBy: 'Ada Marsh', reason: 'Accessioned' }] }),
+    [`GET /api/prints/${PRINT_ID}/history`]: () =>
+      json({ data: [{ id: 'h1', at: '2024-06-01T10:00:00.000Z', actorName: 'Ada Marsh', action: 'print.updated', summary: 'Changed the title', changes: [{ field: 'title', before: 'Harbour', after: 'Harbour wall, low tide' }] }] }),
+    [`POST /api/prints/${PRINT_ID}/movements`]: () => json({ data: { ...print, version: print.version + 1, location: { id: LOCATION_ID, pathLabel: 'Store A › Cabinet 2' } } }),
+  });
+  const view = renderRoutes([{ path: '/catalogue/prints/:id', element: <PrintPage /> }], { path: `/catalogue/prints/${PRINT_ID}`, me: makeMe(role) });
+  return { ...fetch, ...view };
+}
+
+describe('PrintPage', () => {
+  it('shows the record, its warnings region and its process timeline', async () => {
+    renderPrint('registrar');
+    expect(await screen.findByRole('heading', { level: 1, name: '1987.14.3' })).toBeTruthy();
+    const warnings = screen.getByRole('region', { name: 'Warnings' });
+    expect(within(warnings).getByText('This iron-blue toned print is in an alkaline-buffered enclosure.')).toBeTruthy();
+    expect(within(warnings).getByText('High')).toBeTruthy();
+    expect(screen.getByText('about April 1968')).toBeTruthy();
+    expect(screen.getByText('1968-04~')).toBeTruthy();
+
+    const timeline = screen.getByRole('region', { name: 'Process history' });
+    const toning = within(timeline).getAllByRole('listitem')[1]!;
+    expect(toning.textContent).toContain('Toning');
+    expect(within(toning).getByRole('link', { name: 'Iron blue toner A' }).getAttribute('href')).toBe(`/catalogue/recipes/${RECIPE_ID}`);
+    expect(within(toning).getByText('1:35')).toBeTruthy();
+    expect(toning.textContent).toContain('Split');
+    expect(within(timeline).getByRole('complementary', { name: 'Chemical safety' }).textContent).toMatch(/safety data sheet/);
+    expect(screen.getByRole('link', { name: 'Download JSON' }).getAttribute('href')).toBe(`/api/prints/${PRINT_ID}/export.json`);
+  });
+
+  it('hides location, movements, history, staff notes, valuation and editing from a viewer', async () => {
+    const { requests } = renderPrint('viewer', { ...toned, location: undefined, staffNotes: undefined, valuationAmount: undefined, valuationCurrency: undefined });
+    await screen.findByRole('heading', { level: 1, name: '1987.14.3' });
+    expect(screen.queryByRole('region', { name: 'Location' })).toBeNull();
+    expect(screen.queryByRole('region', { name: 'History of changes' })).toBeNull();
+    expect(screen.queryByText('Staff notes')).toBeNull();
+    expect(screen.queryByRole('link', { name: 'Edit' })).toBeNull();
+    expect(requests.map((r) => r.path)).toEqual([`/api/prints/${PRINT_ID}`]);
+  });
+
+  it('lets a researcher read staff notes, valuation, movements and history, but not move or edit', async () => {
+    renderPrint('researcher');
+    await screen.findByRole('heading', { level: 1, name: '1987.14.3' });
+    expect(screen.getByText('Frame glazing chipped')).toBeTruthy();
+    expect(screen.getByText('£1,200.00')).toBeTruthy();
+    const history = screen.getByRole('region', { name: 'History of changes' });
+    expect(await within(history).findByText('Changed the title')).toBeTruthy();
+    expect(await screen.findByText('Accessioned — Ada Marsh')).toBeTruthy();
+    expect(screen.queryByRole('button', { name: 'Move' })).toBeNull();
+    expect(screen.queryByRole('link', { name: 'Edit' })).toBeNull();
+  });
+
+  it('moves the print with the version it shows', async () => {
+    const { requests } = renderPrint('registrar', makePrint({ location: null }));
+    await screen.findByRole('heading', { level: 1, name: '1987.14.3' });
+    fireEvent.click(screen.getByRole('button', { name: 'Move' }));
+    expect(await screen.findByText('Choose where the print goes')).toBeTruthy();
+    const select = screen.getByLabelText('To location');
+    await waitFor(() => expect(within(select).getAllByRole('option')).toHaveLength(2));
+    fireEvent.change(select, { target: { value: LOCATION_ID } });
+    fireEvent.change(screen.getByLabelText('Reason'), { target: { value: 'Rehoused' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Move' }));
+    expect(await screen.findByText('Moved to Store A › Cabinet 2.')).toBeTruthy();
+    expect(requests.find((r) => r.method === 'POST')?.body).toEqual({ toLocationId: LOCATION_ID, reason: 'Rehoused', version: 3 });
+  });
+});

@@ -1,0 +1,152 @@
+import { useId, type ReactNode } from 'react';
+import { Link, useParams } from 'react-router-dom';
+import { can } from '@toneledger/common/domain/roles';
+import type { Print } from '@toneledger/common/schemas/catalogue';
+import { buttonClasses } from '@/components/ui/button';
+import { ErrorNotice } from '@/components/ui/notice';
+import { Loading } from '@/components/ui/loading';
+import { isApiError } from '@/lib/api-client';
+import { useMe } from '@/lib/auth';
+import { formatDateTime } from '@/lib/format';
+import { useDocumentTitle } from '@/lib/use-document-title';
+import { usePrint } from '@/features/catalogue/api/get-print';
+import { printJsonHref } from '@/features/catalogue/api/exports';
+import { ChemistryCaution } from '@/features/catalogue/components/chemistry-caution';
+import { DeletePrintControl } from '@/features/catalogue/components/delete-print-control';
+import { HistoryList } from '@/features/catalogue/components/history-list';
+import { LocationPanel } from '@/features/catalogue/components/location-panel';
+import { PrintIdentity } from '@/features/catalogue/components/print-identity';
+import { ProcessTimeline } from '@/features/catalogue/components/process-timeline';
+import { WarningsPanel } from '@/features/catalogue/components/warnings-panel';
+
+function Panel({ title, children }: { title: string; children: ReactNode }) {
+  const id = useId();
+  return (
+    <section aria-labelledby={id} className="rounded border border-paper-300 bg-white p-4">
+      <h2 id={id} className="mb-2 text-lg">
+        {title}
+      </h2>
+      {children}
+    </section>
+  );
+}
+
+function TextBlock({ term, value }: { term: string; value: string | null | undefined }) {
+  return (
+    <div>
+      <h3 className="font-sans text-xs font-semibold tracking-wider text-ink-700 uppercase">{term}</h3>
+      <p className="mt-0.5 text-sm whitespace-pre-line text-ink-900">{value || <span className="text-ink-600">Not recorded</span>}</p>
+    </div>
+  );
+}
+
+function formatMoney(amount: number, currency: string | null | undefined): string {
+  if (currency) {
+    try {
+      return new Intl.NumberFormat('en-GB', { style: 'currency', currency }).format(amount);
+    } catch {
+      // An unknown code is shown as it is.
+    }
+  }
+  return `${new Intl.NumberFormat('en-GB').format(amount)}${currency ? ` ${currency}` : ''}`;
+}
+
+function PrintView({ print }: { print: Print }) {
+  const me = useMe();
+  const mayWrite = can(me.role, 'catalogue.write');
+  const restricted = can(me.role, 'catalogue.read_restricted');
+  const chemistry = print.steps.some((s) => s.type === 'toning' || s.type === 'after_bath' || s.recipe);
+
+  return (
+    <article>
+      <nav aria-label="Breadcrumb" className="mb-2 text-sm">
+        <Link to="/catalogue">Prints</Link> <span aria-hidden="true">›</span> <span className="mono">{print.accessionNumber}</span>
+      </nav>
+      <header className="mb-5 flex flex-wrap items-end justify-between gap-3 border-b border-paper-300 pb-4">
+        <div className="min-w-0">
+          <h1 className="mono text-2xl sm:text-[1.75rem]">{print.accessionNumber}</h1>
+          <p className="mt-1 font-serif text-lg text-ink-900">{print.title}</p>
+          <p className="mt-1 text-xs text-ink-700">
+            Version {print.version} · updated <time dateTime={print.updatedAt}>{formatDateTime(print.updatedAt)}</time>
+          </p>
+        </div>
+        <div className="flex flex-wrap items-center gap-2">
+          {mayWrite ? (
+            <>
+              <Link to={`/catalogue/prints/${print.id}/edit`} className={buttonClasses('primary', 'md', 'no-underline text-paper-50 hover:text-white')}>
+                Edit
+              </Link>
+              <Link to={`/catalogue/prints/${print.id}/process`} className={buttonClasses('secondary', 'md', 'no-underline')}>
+                Edit process history
+              </Link>
+            </>
+          ) : null}
+          <a href={printJsonHref(print.id)} download className={buttonClasses('secondary', 'md', 'no-underline')}>
+            Download JSON
+          </a>
+          {mayWrite ? <DeletePrintControl print={print} /> : null}
+        </div>
+      </header>
+
+      <div className="grid gap-5 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+        <div className="flex min-w-0 flex-col gap-5">
+          <PrintIdentity print={print} />
+          <Panel title="Process history">
+            <ProcessTimeline steps={print.steps} />
+            {chemistry ? (
+              <div className="mt-3">
+                <ChemistryCaution />
+              </div>
+            ) : null}
+          </Panel>
+          <Panel title="Inscriptions, provenance and credit">
+            <div className="flex flex-col gap-3">
+              <TextBlock term="Inscriptions" value={print.inscriptions} />
+              <TextBlock term="Provenance" value={print.provenance} />
+              <TextBlock term="Credit line" value={print.creditLine} />
+            </div>
+          </Panel>
+          {restricted && (print.staffNotes !== undefined || print.valuationAmount !== undefined) ? (
+            <Panel title="Staff notes and valuation">
+              <p className="mb-2 text-xs text-ink-700">Not shown to viewers.</p>
+              <div className="flex flex-col gap-3">
+                <TextBlock term="Staff notes" value={print.staffNotes} />
+                <TextBlock
+                  term="Valuation"
+                  value={print.valuationAmount !== null && print.valuationAmount !== undefined ? formatMoney(print.valuationAmount, print.valuationCurrency) : null}
+                />
+              </div>
+            </Panel>
+          ) : null}
+        </div>
+        <div className="flex min-w-0 flex-col gap-5">
+          <WarningsPanel warnings={print.warnings} />
+          {restricted ? <LocationPanel print={print} mayMove={mayWrite} /> : null}
+          {restricted ? <HistoryList printId={print.id} /> : null}
+        </div>
+      </div>
+    </article>
+  );
+}
+
+export function PrintPage() {
+  const { id = '' } = useParams();
+  const print = usePrint(id);
+  useDocumentTitle(print.data ? `${print.data.accessionNumber} ${print.data.title}` : 'Print');
+  if (print.isPending) return <Loading label="Loading the print…" />;
+  if (print.isError) {
+    const missing = isApiError(print.error) && print.error.code === 'not_found';
+    return (
+      <section className="max-w-2xl">
+        <h1 className="text-2xl">{missing ? 'Print not found' : 'The print could not be loaded'}</h1>
+        <div className="mt-3">
+          {missing ? <p className="text-ink-700">There is no print with this address. It may have been deleted.</p> : <ErrorNotice error={print.error} />}
+        </div>
+        <p className="mt-4">
+          <Link to="/catalogue">Back to the prints</Link>
+        </p>
+      </section>
+    );
+  }
+  return <PrintView print={print.data} />;
+}

@@ -1,0 +1,63 @@
+import type { EdtfResult } from '@toneledger/common/domain/edtf';
+import type { CompatibilityCode } from '@toneledger/common/domain/compatibility';
+
+/** Seconds as m:ss (minutes may exceed 59, e.g. 75:00 for a long wash). */
+export function formatSeconds(seconds: number | null | undefined): string {
+  if (seconds === null || seconds === undefined) return '';
+  const whole = Math.max(0, Math.round(seconds));
+  const minutes = Math.floor(whole / 60);
+  return `${minutes}:${String(whole % 60).padStart(2, '0')}`;
+}
+
+/**
+ * Reads a time typed as m:ss (`1:30`) or as whole seconds (`90`). Empty is null; anything else
+ * is returned unchanged, so the shared schema reports it.
+ */
+export function parseTimeInput(text: string): number | null | string {
+  const value = text.trim();
+  if (value === '') return null;
+  const clock = /^(\d+):([0-5]\d)$/.exec(value);
+  if (clock) return Number(clock[1]) * 60 + Number(clock[2]);
+  if (/^\d+$/.test(value)) return Number(value);
+  return value;
+}
+
+/** "about April 1968 · 1968-04-01 to 1968-04-30" for a parsed EDTF value. */
+export function edtfSummary(result: Extract<EdtfResult, { ok: true }>): string {
+  const { display, earliest, latest } = result.value;
+  if (earliest && latest && earliest === latest) return `${display} · ${earliest}`;
+  const from = earliest ?? 'an open start';
+  const to = latest ?? 'an open end';
+  return `${display} · ${from} to ${to}`;
+}
+
+/** "240 × 180 mm" (width × height); a missing side is shown as "?". Null when neither is known. */
+export function formatDimensions(width: number | null, height: number | null): string | null {
+  if (width === null && height === null) return null;
+  const side = (n: number | null) => (n === null ? '?' : new Intl.NumberFormat('en-GB', { maximumFractionDigits: 1 }).format(n));
+  return `${side(width)} × ${side(height)} mm`;
+}
+
+export function yesNoUnknown(value: boolean | null | undefined): string {
+  if (value === true) return 'Yes';
+  if (value === false) return 'No';
+  return 'Unknown';
+}
+
+/** Short names of the warning codes, for the list's indicator. */
+export const WARNING_LABELS: Record<CompatibilityCode, string> = {
+  prussian_blue_in_buffered_enclosure: 'Iron blue in an alkaline-buffered enclosure',
+  buffering_unknown_for_prussian_blue: 'Iron blue in an enclosure of unknown buffering',
+  enclosure_failed_pat: 'Enclosure failed the Photographic Activity Test',
+  enclosure_without_pat: 'Enclosure has no Photographic Activity Test result',
+  alkaline_after_bath_on_iron_blue: 'Alkaline after-bath on iron blue',
+};
+
+export function warningLabel(code: string): string {
+  return (WARNING_LABELS as Record<string, string>)[code] ?? code.replace(/_/g, ' ');
+}
+
+export function labelOf<T extends string>(labels: Record<T, string>, code: T | null | undefined): string {
+  if (code === null || code === undefined) return '';
+  return labels[code] ?? code;
+}

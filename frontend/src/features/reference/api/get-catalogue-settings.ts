@@ -1,0 +1,19 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { CatalogueSettings } from '@toneledger/common/schemas/catalogue';
+import { requestData } from '@/lib/api-client';
+import { settingsKeys } from '@/features/reference/api/keys';
+
+export function getCatalogueSettings(signal?: AbortSignal): Promise<CatalogueSettings> {
+  return requestData<CatalogueSettings>('/api/settings/catalogue', { signal });
+}
+
+export function catalogueSettingsQueryOptions() {
+  return queryOptions({
+    queryKey: settingsKeys.catalogue(),
+    queryFn: ({ signal }) => getCatalogueSettings(signal),
+  });
+}
+
+export function useCatalogueSettings() {
+  return useQuery(catalogueSettingsQueryOptions());
+}

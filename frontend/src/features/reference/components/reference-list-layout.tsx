@@ -1,0 +1,82 @@
+import type { ReactNode } from 'react';
+import type { UseQueryResult } from '@tanstack/react-query';
+import type { PageEnvelope } from '@/lib/api-client';
+import { Button } from '@/components/ui/button';
+import { Loading } from '@/components/ui/loading';
+import { ErrorNotice, Notice } from '@/components/ui/notice';
+import { PageHeader } from '@/components/ui/page-header';
+import { Pagination } from '@/components/ui/pagination';
+import { ReferenceSearch } from '@/features/reference/components/reference-search';
+
+export interface ReferenceListQueryState {
+  q?: string;
+  page: number;
+  pageSize: number;
+}
+
+export interface ReferenceListLayoutProps<T> {
+  title: string;
+  description: ReactNode;
+  /** The accessible name of the create button, e.g. "New maker"; no button when undefined. */
+  newLabel?: string;
+  onNew?: () => void;
+  searchWhat: string;
+  searchLabel: string;
+  query: ReferenceListQueryState;
+  setQuery: (patch: Partial<ReferenceListQueryState>) => void;
+  list: UseQueryResult<PageEnvelope<T>>;
+  what: string;
+  renderTable: (rows: T[], busy: boolean) => ReactNode;
+  /** The create/edit panel, when open. */
+  panel?: ReactNode;
+  /** A short confirmation after a save. */
+  saved?: string | null;
+}
+
+/** Header, search, table and (when open) the side panel of one reference list. */
+export function ReferenceListLayout<T>(props: ReferenceListLayoutProps<T>) {
+  const { title, description, newLabel, onNew, searchWhat, searchLabel, query, setQuery, list, what, renderTable, panel, saved } = props;
+  return (
+    <section>
+      <PageHeader
+        title={title}
+        description={description}
+        actions={
+          newLabel && onNew ? (
+            <Button variant="primary" onClick={onNew}>
+              {newLabel}
+            </Button>
+          ) : null
+        }
+      />
+      <div aria-live="polite" className="empty:hidden mb-3">
+        {saved ? (
+          <Notice tone="success" role="status">
+            {saved}
+          </Notice>
+        ) : null}
+      </div>
+      <div className={panel ? 'grid items-start gap-5 lg:grid-cols-[minmax(0,1fr)_26rem]' : undefined}>
+        <div className="min-w-0">
+          <ReferenceSearch what={searchWhat} label={searchLabel} q={query.q} onSearch={(q) => setQuery({ q })} />
+          {list.isError ? <ErrorNotice error={list.error} title={`The list of ${what} could not be loaded.`} /> : null}
+          {list.isPending ? (
+            <Loading label={`Loading ${what}…`} />
+          ) : list.data ? (
+            <>
+              {renderTable(list.data.data, list.isPlaceholderData)}
+              <Pagination
+                page={query.page}
+                pageSize={query.pageSize}
+                total={list.data.pagination.total}
+                onPageChange={(page) => setQuery({ page })}
+                onPageSizeChange={(pageSize) => setQuery({ pageSize })}
+              />
+            </>
+          ) : null}
+        </div>
+        {panel}
+      </div>
+    </section>
+  );
+}

@@ -1,0 +1,36 @@
+import { useEffect, useState, type FormEvent } from 'react';
+import { Button } from '@/components/ui/button';
+import { TextField } from '@/components/ui/field';
+
+export interface ReferenceSearchProps {
+  /** What is searched, e.g. "makers". */
+  what: string;
+  label: string;
+  q: string | undefined;
+  onSearch: (q: string | undefined) => void;
+}
+
+/** The one search box of a reference list; the text goes to the API as `q`. */
+export function ReferenceSearch({ what, label, q, onSearch }: ReferenceSearchProps) {
+  const [text, setText] = useState(q ?? '');
+  useEffect(() => setText(q ?? ''), [q]);
+
+  function submit(event: FormEvent) {
+    event.preventDefault();
+    onSearch(text.trim() || undefined);
+  }
+
+  return (
+    <form role="search" aria-label={`Search ${what}`} onSubmit={submit} className="mb-4 flex flex-wrap items-end gap-3">
+      <TextField label={label} type="search" value={text} onChange={(event) => setText(event.target.value)} fieldClassName="w-72" maxLength={200} />
+      <Button type="submit" variant="primary">
+        Search
+      </Button>
+      {q ? (
+        <Button variant="quiet" onClick={() => onSearch(undefined)}>
+          Clear search
+        </Button>
+      ) : null}
+    </form>
+  );
+}
