@@ -21,6 +21,8 @@ import { printsRoutes } from './routes/prints/prints.routes';
 import { referenceRoutes } from './routes/reference/reference.routes';
 import { settingsRoutes } from './routes/settings/settings.routes';
 import { importsRoutes } from './routes/imports/imports.routes';
+import { imagesRoutes } from './routes/images/images.routes';
+import { conditionRoutes } from './routes/condition/condition.routes';
 
 /** Every route the app serves, in one list: Express mounts it and OpenAPI describes it. */
 export function allRoutes(deps: AppDeps): RouteDef[] {
@@ -35,6 +37,8 @@ export function allRoutes(deps: AppDeps): RouteDef[] {
     ...referenceRoutes(),
     ...settingsRoutes(),
     ...importsRoutes(),
+    ...imagesRoutes(deps),
+    ...conditionRoutes(),
   ];
   routes.push(
     route({

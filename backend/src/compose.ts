@@ -19,7 +19,7 @@ export function createLogger(e: Env): Logger {
 }
 
 /** Assembles the app's collaborators from the environment. */
-export function composeDeps(e: Env): AppDeps {
+export function composeDeps(e: Env, queue: AppDeps['queue'] = null): AppDeps {
   db();
   const pool = new pg.Pool({ connectionString: e.DATABASE_URL, max: 5 });
   return {
@@ -36,11 +36,12 @@ export function composeDeps(e: Env): AppDeps {
     oidc: new OidcClient(e),
     mailer: new Mailer(e.SMTP_URL, e.MAIL_FROM, e.MAIL_SINK_API),
     version: readVersion(),
+    queue,
   };
 }
 
-export async function disposeDeps(deps: AppDeps): Promise<void> {
+export async function disposeDeps(deps: AppDeps, options: { closeDatabase?: boolean } = {}): Promise<void> {
   deps.mailer.close();
   await deps.pool.end();
-  await closeDb();
+  if (options.closeDatabase ?? true) await closeDb();
 }

@@ -4,6 +4,8 @@ import { buildApp } from './app';
 import { composeDeps, createLogger, disposeDeps } from './compose';
 import { migrateUp } from './migrate';
 import { db } from './db';
+import { startQueue } from './jobs/queue';
+import { startWorkers } from './jobs/workers';
 
 export interface RunningServer {
   url: string;
@@ -22,7 +24,9 @@ export async function startServer(options: { migrate?: boolean } = {}): Promise<
   const { failInterruptedImports } = await import('./services/import.service');
   const interrupted = await failInterruptedImports();
   if (interrupted) logger.warn({ interrupted }, 'imports left unfinished by the last run were marked failed');
-  const deps = composeDeps(e);
+  const queue = await startQueue(e.DATABASE_URL, logger);
+  const deps = composeDeps(e, queue);
+  await startWorkers(queue, deps.store, logger);
   const app = buildApp(deps, logger);
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(e.PORT, e.HOST, () => resolve(s));
@@ -38,6 +42,7 @@ export async function startServer(options: { migrate?: boolean } = {}): Promise<
         server.close(() => resolve());
         server.closeAllConnections();
       });
+      await queue.stop();
       await disposeDeps(deps);
     },
   };

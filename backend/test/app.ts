@@ -15,11 +15,19 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
+let open = 0;
+
 /** The real app, on the test database and the local fakes, with logging silenced. */
 export function testApp(overrides: Partial<AppDeps> = {}): TestApp {
   const deps = { ...composeDeps(env()), ...overrides };
   const app = buildApp(deps, pino({ level: 'silent' }));
-  return { app, deps, origin: new URL(env().PUBLIC_URL).origin, close: () => disposeDeps(deps) };
+  open += 1;
+  // Apps in one test file share the database connection; the last one closed closes it.
+  const close = async () => {
+    open -= 1;
+    await disposeDeps(deps, { closeDatabase: open === 0 });
+  };
+  return { app, deps, origin: new URL(env().PUBLIC_URL).origin, close };
 }
 
 class Jar {
@@ -84,6 +92,14 @@ export async function signIn(app: Express, email: string, password: string): Pro
     next = new URL(location, next);
   }
   throw new Error('too many redirects while signing in');
+}
+
+/** The real app with a pg-boss queue: jobs are sent to PostgreSQL and run by the test server's workers. */
+export async function testAppWithQueue(): Promise<TestApp> {
+  const { startQueue } = await import('../src/jobs/queue');
+  const queue = await startQueue(env().DATABASE_URL, pino({ level: 'silent' }));
+  const t = testApp({ queue });
+  return { ...t, close: async () => { await queue.stop(); await t.close(); } };
 }
 
 const cache = new Map<string, string>();

@@ -59,3 +59,16 @@ export async function createRecipe(name = `Toner ${tag()}`) {
     ],
   });
 }
+
+import { Image } from '../src/models';
+
+/** An image row for a print (no stored file): enough for records that point at an image. */
+export async function createImageRecord(printId: string, overrides: Partial<{ withdrawnAt: Date | null; viewType: string }> = {}) {
+  const id = randomUUID();
+  return Image.create({
+    id, printId, viewType: overrides.viewType ?? 'recto', capturedOn: null, notes: null, fileName: `${id}.tif`, contentType: 'image/tiff',
+    sizeBytes: 1024, width: 4000, height: 5000, sha256: '0'.repeat(64), originalKey: `originals/${id}`, thumbKey: null, screenKey: null,
+    exif: {}, uploadedBy: null, uploadedByName: null, withdrawnAt: overrides.withdrawnAt ?? null, withdrawnByName: null,
+    withdrawnReason: null, purgeAfter: null, purgedAt: null,
+  });
+}

@@ -43,6 +43,9 @@ const envSchema = z
     SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).default(120),
     SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).default(12),
 
+    IMAGE_MAX_MB: z.coerce.number().positive().default(300),
+    IMAGE_RETENTION_DAYS: z.coerce.number().int().min(1).default(90),
+
     ADMIN_EMAILS: list,
     DEFAULT_ROLE: z.enum(['viewer', 'researcher']).default('viewer'),
   })

@@ -2,9 +2,11 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
 import type { Role } from '@toneledger/common/domain/roles';
 import { initCatalogueModels } from './catalogue';
 import { initImageModels } from './images';
+import { initConditionModels } from './condition';
 
 export * from './catalogue';
 export * from './images';
+export * from './condition';
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<string>;
@@ -66,4 +68,5 @@ export function initModels(sequelize: Sequelize): void {
   AuditEventModel.belongsTo(User, { as: 'actor', foreignKey: 'actorId' });
   initCatalogueModels(sequelize);
   initImageModels(sequelize);
+  initConditionModels(sequelize);
 }

@@ -1,0 +1,22 @@
+import type { Logger } from 'pino';
+import type { ObjectStore } from '@toneledger/storage/object-store';
+import { QUEUES, type JobQueue } from './queue';
+import { fixitySweep, makeDerivatives, purgeWithdrawn } from '../services/image.service';
+
+/** The server's workers: derivatives on upload, a nightly fixity sweep, and the purge of withdrawn images past retention. */
+export async function startWorkers(queue: JobQueue, store: ObjectStore, logger: Logger): Promise<void> {
+  const { boss } = queue;
+  await boss.work<{ imageId: string }>(QUEUES.derivatives, { batchSize: 1, pollingIntervalSeconds: 1 }, async ([job]) => {
+    await makeDerivatives(store, job.data.imageId);
+  });
+  await boss.work(QUEUES.fixity, { batchSize: 1, pollingIntervalSeconds: 5 }, async () => {
+    const result = await fixitySweep(store);
+    logger.info(result, 'fixity sweep finished');
+  });
+  await boss.work(QUEUES.purge, { batchSize: 1, pollingIntervalSeconds: 30 }, async () => {
+    const purged = await purgeWithdrawn(store);
+    if (purged) logger.info({ purged }, 'withdrawn images purged after retention');
+  });
+  await boss.schedule(QUEUES.fixity, process.env.TONELEDGER_FIXITY_CRON ?? '30 2 * * *', {}, { tz: 'UTC' });
+  await boss.schedule(QUEUES.purge, '15 3 * * *', {}, { tz: 'UTC' });
+}
