@@ -5,11 +5,28 @@ import { Loading } from '@/components/ui/loading';
 import { formatDateTime } from '@/lib/format';
 import { useHistory } from '@/features/catalogue/api/get-history';
 
-function show(value: unknown): string {
+/** A readable form of a recorded value: references by their name, step lists as one line per step. */
+export function show(value: unknown): string {
   if (value === null || value === undefined || value === '') return '—';
   if (typeof value === 'string') return value;
   if (typeof value === 'number' || typeof value === 'boolean') return String(value);
+  if (Array.isArray(value)) {
+    if (value.length === 0) return 'none';
+    return value.map((v, i) => `${i + 1}. ${show(describeStep(v))}`).join('\n');
+  }
+  if (typeof value === 'object') {
+    const o = value as Record<string, unknown>;
+    for (const key of ['pathLabel', 'label', 'name']) if (typeof o[key] === 'string') return o[key] as string;
+  }
   return JSON.stringify(value);
+}
+
+function describeStep(v: unknown): unknown {
+  if (!v || typeof v !== 'object') return v;
+  const s = v as Record<string, unknown>;
+  if (typeof s.type !== 'string') return v;
+  const recipe = s.recipe && typeof s.recipe === 'object' ? (s.recipe as { name?: string }).name : null;
+  return [s.type, s.tonerClass, s.agent, recipe, s.timeSeconds != null ? `${s.timeSeconds} s` : null].filter(Boolean).join(', ').replace(/_/g, ' ');
 }
 
 function Changes({ changes }: { changes: HistoryEvent['changes'] }) {
@@ -29,8 +46,8 @@ function Changes({ changes }: { changes: HistoryEvent['changes'] }) {
             <th scope="row" className="py-1 pr-3 font-medium text-ink-900">
               <code className="mono">{c.field}</code>
             </th>
-            <td className="py-1 pr-3 break-words whitespace-pre-line text-ink-800">{show(c.before)}</td>
-            <td className="py-1 break-words whitespace-pre-line text-ink-900">{show(c.after)}</td>
+            <td className="py-1 pr-3 [overflow-wrap:anywhere] whitespace-pre-line text-ink-800">{show(c.before)}</td>
+            <td className="py-1 [overflow-wrap:anywhere] whitespace-pre-line text-ink-900">{show(c.after)}</td>
           </tr>
         ))}
       </tbody>
