@@ -15,12 +15,14 @@ import { AppError, validationFailed } from '../errors';
  * Receiving an image upload without holding it in memory: the file streams to a private
  * temporary file while its SHA-256 and size are computed; its type is judged from its first
  * bytes (not its name); sharp then decodes it under a pixel limit, so a truncated file or a
- * decompression bomb is refused before anything is stored.
+ * decompression bomb is refused before anything is kept (the decode check runs beside the
+ * upload to storage, and a refused file's object is deleted again).
  */
 
 /** 200 megapixels: far above any camera or scanner in use for prints; a bomb declares more. */
 export const MAX_IMAGE_PIXELS = 200_000_000;
 
+/** A file on disk whose signature says it is an image; not yet decoded (see inspectImage). */
 export interface ReceivedFile {
   tempDir: string;
   path: string;
@@ -28,9 +30,6 @@ export interface ReceivedFile {
   sizeBytes: number;
   sha256: string;
   contentType: string;
-  width: number;
-  height: number;
-  exif: ExifSummary;
   fields: Record<string, string>;
 }
 
@@ -169,10 +168,9 @@ export async function receiveImage(req: Request, maxBytes: number): Promise<Rece
     if (digest.size === 0) throw validationFailed([{ path: 'file', message: 'The file is empty.', code: 'empty' }]);
     const contentType = sniffImageType(digest.head);
     if (!contentType) throw new AppError('unsupported_media_type', 415, 'This is not a JPEG, PNG, TIFF or WebP image (judged by its content, not its name).');
-    const { width, height } = await inspectImage(target);
     return {
       tempDir, path: target, originalName: received.name.slice(0, 200), sizeBytes: digest.size, sha256: digest.hash.digest('hex'),
-      contentType, width, height, exif: await readExif(target), fields: received.fields,
+      contentType, fields: received.fields,
     };
   } catch (err) {
     await cleanup();

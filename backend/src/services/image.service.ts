@@ -15,7 +15,7 @@ import { FixityCheck, Image, ImageAlignment, Print } from '../models';
 import { AppError, notFound, serviceUnavailable, validationFailed } from '../errors';
 import { recordAudit, type AuditActor } from './audit.service';
 import { staleEdit } from './versioning';
-import { MAX_IMAGE_PIXELS, sha256Of, type ReceivedFile } from './image-ingest';
+import { MAX_IMAGE_PIXELS, inspectImage, readExif, sha256Of, type ExifSummary, type ReceivedFile } from './image-ingest';
 import type { JobQueue } from '../jobs/queue';
 import { QUEUES } from '../jobs/queue';
 
@@ -78,20 +78,28 @@ export async function storeImage(
   if (!print) throw notFound('The print');
   const id = randomUUID();
   const key = keyFor(printId, id, 'original');
-  try {
-    await deps.store.put(key, createReadStream(file.path), { contentType: file.contentType, contentLength: file.sizeBytes });
-  } catch {
-    throw serviceUnavailable('Image storage is not available; nothing was saved. Try again shortly.');
+  // Storing and the full decode check run side by side; whichever fails, nothing is kept.
+  const [put, inspected, exif] = await Promise.allSettled([
+    deps.store.put(key, createReadStream(file.path), { contentType: file.contentType, contentLength: file.sizeBytes }),
+    inspectImage(file.path),
+    readExif(file.path),
+  ]);
+  if (inspected.status === 'rejected') {
+    if (put.status === 'fulfilled') await deps.store.delete(key).catch(() => {});
+    throw inspected.reason;
   }
+  if (put.status === 'rejected') throw serviceUnavailable('Image storage is not available; nothing was saved. Try again shortly.');
+  const { width, height } = inspected.value;
+  const exifSummary: ExifSummary = exif.status === 'fulfilled' ? exif.value : { capturedAt: null, make: null, model: null, lens: null, exposureTime: null, fNumber: null, iso: null, focalLength: null };
   let image: Image;
   try {
     image = await db().transaction(async (t) => {
       const row = await Image.create(
         {
-          id, printId, viewType: fields.viewType, capturedOn: fields.capturedOn ?? (file.exif.capturedAt ? file.exif.capturedAt.slice(0, 10) : null),
+          id, printId, viewType: fields.viewType, capturedOn: fields.capturedOn ?? (exifSummary.capturedAt ? exifSummary.capturedAt.slice(0, 10) : null),
           notes: fields.notes ?? null, fileName: file.originalName, contentType: file.contentType, sizeBytes: file.sizeBytes,
-          width: file.width, height: file.height, sha256: file.sha256, originalKey: key, thumbKey: null, screenKey: null,
-          exif: file.exif as unknown as Record<string, unknown>, uploadedBy: actor.id, uploadedByName: actor.name,
+          width, height, sha256: file.sha256, originalKey: key, thumbKey: null, screenKey: null,
+          exif: exifSummary as unknown as Record<string, unknown>, uploadedBy: actor.id, uploadedByName: actor.name,
           withdrawnAt: null, withdrawnByName: null, withdrawnReason: null, purgeAfter: null, purgedAt: null,
         },
         { transaction: t },
@@ -119,12 +127,14 @@ export async function makeDerivatives(store: ObjectStore, imageId: string): Prom
   try {
     const local = path.join(dir, 'original');
     await pipeline(await store.get(image.originalKey), createWriteStream(local));
-    for (const [variant, size] of Object.entries(DERIVATIVES) as ['thumb' | 'screen', number][]) {
-      const out = await sharp(local, { limitInputPixels: MAX_IMAGE_PIXELS })
-        .rotate()
-        .resize(size, size, { fit: 'inside', withoutEnlargement: true })
-        .webp({ quality: variant === 'thumb' ? 70 : 82 })
-        .toBuffer();
+    // Decode the original once, for the screen copy; the thumbnail is made from that copy.
+    const screen = await sharp(local, { limitInputPixels: MAX_IMAGE_PIXELS })
+      .rotate()
+      .resize(DERIVATIVES.screen, DERIVATIVES.screen, { fit: 'inside', withoutEnlargement: true })
+      .webp({ quality: 82 })
+      .toBuffer();
+    const thumb = await sharp(screen).resize(DERIVATIVES.thumb, DERIVATIVES.thumb, { fit: 'inside', withoutEnlargement: true }).webp({ quality: 70 }).toBuffer();
+    for (const [variant, out] of [['screen', screen], ['thumb', thumb]] as const) {
       await store.put(keyFor(image.printId, image.id, variant), out, { contentType: 'image/webp', contentLength: out.length });
     }
     await image.update({ thumbKey: keyFor(image.printId, image.id, 'thumb'), screenKey: keyFor(image.printId, image.id, 'screen'), derivatives: 'ready' });
