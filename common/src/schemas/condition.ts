@@ -83,7 +83,10 @@ export const reportInputSchema = z.object({
   observations: z.array(observationInputSchema).max(200).default([]),
 });
 export type ReportInput = z.infer<typeof reportInputSchema>;
-export const reportUpdateSchema = reportInputSchema.partial().extend({ version: z.number().int().min(1) });
+/** A partial edit: fields left out stay as they are (observations too: no default here, unlike on create). */
+export const reportUpdateSchema = reportInputSchema
+  .partial()
+  .extend({ observations: z.array(observationInputSchema).max(200).optional(), version: z.number().int().min(1) });
 
 export const addendumInputSchema = z.object({ text: z.string().trim().min(1, 'Write the correction or addition').max(10000) });
 export const addendumSchema = z.object({ id, writtenAt: z.string().datetime(), authorName: z.string(), text: z.string() });

@@ -3,7 +3,7 @@ import { dataEnvelope } from '@toneledger/common/schemas/envelope';
 import { idParamsSchema } from '@toneledger/common/schemas/catalogue';
 import {
   addendumInputSchema, conditionTermInputSchema, conditionTermSchema, conditionTermUpdateSchema, gradeDefinitionsSchema,
-  observationInputSchema, reportInputSchema, reportSchema, reportUpdateSchema,
+  reportInputSchema, reportSchema, reportUpdateSchema,
 } from '@toneledger/common/schemas/condition';
 import { route, type RouteDef } from '../../http/route';
 import { idOf } from '../../middleware/request-id';
@@ -16,12 +16,6 @@ const conditionSettingsSchema = z.object({ grades: gradeDefinitionsSchema });
 const reportEnvelope = dataEnvelope(reportSchema);
 const termEnvelope = dataEnvelope(conditionTermSchema);
 const versionBody = z.object({ version: z.number().int().min(1) });
-
-/**
- * The update body as the contract declares it, except that a missing observations list means
- * "leave them as they are" (the input schema's default of [] would otherwise erase them).
- */
-const reportPatchSchema = reportUpdateSchema.extend({ observations: z.array(observationInputSchema).max(200).optional() });
 
 export function conditionRoutes(): RouteDef[] {
   return [
@@ -72,7 +66,7 @@ export function conditionRoutes(): RouteDef[] {
     route({
       method: 'patch', path: '/api/condition-reports/:id',
       summary: 'Edits a draft (author only; observations, when given, replace the list; 409 when signed or stale)', tags: ['condition'],
-      access: 'condition.write', params: idParamsSchema, body: reportPatchSchema, response: { description: 'The draft', schema: reportEnvelope },
+      access: 'condition.write', params: idParamsSchema, body: reportUpdateSchema, response: { description: 'The draft', schema: reportEnvelope },
       handler: async ({ params, body, user, req }) => ({ data: await updateReport(params.id, body, { id: user!.id, name: user!.name }, idOf(req)) }),
     }),
     route({
