@@ -8,7 +8,7 @@ import { fileURLToPath } from 'node:url';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const command = process.argv[2] ?? 'start';
-const scripts = { start: 'start.ts', test: 'test.ts', dev: 'dev.ts', migrate: 'migrate.ts', bench: 'bench.ts' };
+const scripts = { start: 'start.ts', test: 'test.ts', dev: 'dev.ts', migrate: 'migrate.ts', bench: 'bench.ts', 'seed-scale': 'seed-scale.ts' };
 if (!scripts[command]) {
   console.error(`Unknown command "${command}". Use one of: ${Object.keys(scripts).join(', ')}`);
   process.exit(2);

@@ -1,0 +1,243 @@
+/**
+ * npm run bench [-- --runs 50 --warmup 5]
+ *
+ * Measures the catalogue list at scale, on the toneledger_scale database that
+ * `npm run seed:scale` fills (on the development PostgreSQL cluster; the demo database is not
+ * touched). It starts the real app server with the local identity provider, S3 and mail sink of
+ * the test setup, signs in as the demo registrar through the real OpenID Connect flow, and for each
+ * scenario times:
+ *   - the API: GET /api/prints over HTTP on loopback with the session cookie (whole response read);
+ *   - the bare SQL: the same `buildListSql` text the service runs, select and count in parallel
+ *     on two connections, as the service does;
+ * then prints medians, p95s, the API/SQL ratio, the targets, and an EXPLAIN (ANALYZE, BUFFERS)
+ * summary per scenario (full plans for the scenarios that miss a target).
+ *
+ * Every request goes to 127.0.0.1; the number of requests is fixed; the script stops by itself.
+ */
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import pg from 'pg';
+import { startPostgres, type LocalPostgres } from './postgres';
+import { startLocalServices, type LocalServices } from './services';
+import { printListQuerySchema, printListItemSchema, type PrintListQuery } from '../common/src/schemas/catalogue';
+import { pageEnvelope } from '../common/src/schemas/envelope';
+import { DEMO_ACCOUNTS } from '../backend/src/seed/demo-accounts';
+
+const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const DATABASE = 'toneledger_scale';
+const ROLE = 'registrar' as const;
+const log = (m: string) => console.log(`[bench] ${m}`);
+
+function arg(name: string, fallback: number): number {
+  const i = process.argv.indexOf(`--${name}`);
+  const raw = i >= 0 ? process.argv[i + 1] : undefined;
+  const n = raw === undefined ? fallback : Number(raw);
+  if (!Number.isInteger(n) || n < 1 || n > 1000) throw new Error(`--${name} must be a whole number from 1 to 1000`);
+  return n;
+}
+const RUNS = arg('runs', 50);
+const WARMUP = arg('warmup', 5);
+
+interface Scenario {
+  name: string;
+  query: Record<string, string>;
+  /** Targets that apply: p95 of the API under `p95Ms`. Every scenario also has API ≤ 1.5 × SQL. */
+  p95Ms?: number;
+  target?: string;
+}
+
+const SCENARIOS: Scenario[] = [
+  { name: 'sorted, page 1', query: { sort: 'accessionNumber' } },
+  { name: 'filtered + sorted, page 1', query: { process: 'gelatin_silver_developing_out', tonerClass: 'selenium', sort: '-dateMade' }, p95Ms: 50, target: 'p95 < 50 ms' },
+  { name: 'filtered + sorted, page 500', query: { process: 'gelatin_silver_developing_out', tonerClass: 'selenium', sort: '-dateMade', page: '500', pageSize: '50' }, p95Ms: 50, target: 'p95 < 50 ms' },
+  { name: 'search, page 1', query: { q: 'harbour' }, p95Ms: 100, target: 'p95 < 100 ms' },
+  { name: 'search + filter, page 1', query: { q: 'harbour', tonerClass: 'iron_blue' }, p95Ms: 100, target: 'p95 < 100 ms' },
+  { name: 'sort by maker, page 500', query: { sort: 'maker', page: '500', pageSize: '50' } },
+];
+const RATIO_TARGET = 1.5;
+
+const median = (xs: number[]) => quantile(xs, 0.5);
+function quantile(xs: number[], q: number): number {
+  const s = [...xs].sort((a, b) => a - b);
+  const pos = (s.length - 1) * q;
+  const lo = Math.floor(pos);
+  const hi = Math.ceil(pos);
+  return s[lo] + (s[hi] - s[lo]) * (pos - lo);
+}
+const ms = (x: number) => x.toFixed(1);
+
+async function reachable(port: number): Promise<boolean> {
+  const c = new pg.Client({ host: '127.0.0.1', port, user: 'app', database: 'postgres', connectionTimeoutMillis: 1500 });
+  try {
+    await c.connect();
+    await c.end();
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+const pgPort = Number(process.env.TONELEDGER_PG_PORT ?? 54329);
+let cluster: LocalPostgres | null = null;
+let services: LocalServices | null = null;
+let closeServer: () => Promise<void> = async () => {};
+let sqlPool: pg.Pool | null = null;
+let code = 0;
+
+try {
+  if (!(await reachable(pgPort))) {
+    cluster = await startPostgres({
+      baseDir: path.resolve(ROOT, process.env.TONELEDGER_DATA_DIR ?? '.data', 'pg'), port: pgPort, database: 'postgres', log, fallbackKey: 'dev',
+    });
+  }
+  const scaleUrl = `postgres://app@127.0.0.1:${pgPort}/${DATABASE}`;
+  const probe = new pg.Client({ connectionString: scaleUrl });
+  const prints = await probe.connect().then(
+    async () => Number((await probe.query('SELECT count(*) AS n FROM prints').catch(() => ({ rows: [{ n: 0 }] }))).rows[0].n),
+    () => 0,
+  );
+  await probe.end().catch(() => {});
+  if (prints === 0) {
+    console.error(`The ${DATABASE} database is missing or empty. Fill it first:\n\n  npm run seed:scale -- --prints 200000\n`);
+    code = 2;
+  } else {
+    log(`${DATABASE}: ${prints.toLocaleString('en-GB')} prints`);
+
+    // The identity provider, S3 and mail sink of the test setup (fresh, free ports); the app on the scale database.
+    services = await startLocalServices('test', () => {});
+    Object.assign(process.env, services.env, { DATABASE_URL: scaleUrl, LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn' });
+    const { db } = await import('../backend/src/db');
+    const { seedDemoIfEmpty } = await import('../backend/src/seed/demo');
+    const { startServer } = await import('../backend/src/server');
+    const { signIn } = await import('../backend/test/app');
+    const { buildListSql } = await import('../backend/src/services/print.service');
+
+    await seedDemoIfEmpty(db(), { catalogue: false });
+    // Each run has a new identity provider (a new issuer): let the registrar's row be claimed again.
+    const registrar = DEMO_ACCOUNTS.find((a) => a.role === ROLE)!;
+    await db().query('UPDATE users SET issuer = NULL, subject = NULL WHERE lower(email) = lower($1)', { bind: [registrar.email] });
+
+    const running = await startServer({ migrate: true });
+    closeServer = running.close;
+    const base = running.url.replace('localhost', '127.0.0.1');
+    const cookie = await signIn(base as never, registrar.email, registrar.password);
+    log(`Signed in as ${registrar.email} (${ROLE}); app on ${base}, NODE_ENV=${process.env.NODE_ENV}, LOG_LEVEL=${process.env.LOG_LEVEL}`);
+
+    sqlPool = new pg.Pool({ connectionString: scaleUrl, max: 2 });
+    const envelope = pageEnvelope(printListItemSchema);
+
+    interface Result {
+      s: Scenario; total: number; api: number[]; sql: number[]; check: number[]; plan: string[]; countPlan: string[];
+    }
+    const results: Result[] = [];
+
+    for (const s of SCENARIOS) {
+      const query: PrintListQuery = printListQuerySchema.parse(s.query);
+      const url = `${base}/api/prints?${new URLSearchParams(s.query)}`;
+      const sql = buildListSql(query, ROLE);
+      const countParams = sql.params.slice(0, sql.params.length - 2);
+      const callApi = async () => {
+        const t0 = performance.now();
+        const res = await fetch(url, { headers: { cookie } });
+        const body = (await res.json()) as { data: unknown[]; pagination: { total: number } };
+        const t = performance.now() - t0;
+        if (res.status !== 200) throw new Error(`${s.name}: ${res.status} ${JSON.stringify(body).slice(0, 300)}`);
+        return { t, body };
+      };
+      const callSql = async () => {
+        const t0 = performance.now();
+        const [rows, count] = await Promise.all([sqlPool!.query(sql.select, sql.params), sqlPool!.query(sql.count, countParams)]);
+        return { t: performance.now() - t0, rows: rows.rowCount ?? 0, total: count.rows[0].total as number };
+      };
+      let lastBody: { data: unknown[]; pagination: { total: number } } | null = null;
+      for (let i = 0; i < WARMUP; i++) {
+        lastBody = (await callApi()).body;
+        await callSql();
+      }
+      const api: number[] = [];
+      const bare: number[] = [];
+      // Interleaved, so both see the same cache state and background noise.
+      for (let i = 0; i < RUNS; i++) {
+        api.push((await callApi()).t);
+        const r = await callSql();
+        bare.push(r.t);
+        if (r.total !== lastBody!.pagination.total) throw new Error(`${s.name}: API total ${lastBody!.pagination.total} ≠ SQL total ${r.total}`);
+      }
+      // What the response-contract check (on outside production) costs for this page, in process.
+      const check: number[] = [];
+      for (let i = 0; i < 20; i++) {
+        const t0 = performance.now();
+        envelope.safeParse(lastBody);
+        check.push(performance.now() - t0);
+      }
+      const explain = async (text: string, params: unknown[]) =>
+        ((await sqlPool!.query(`EXPLAIN (ANALYZE, BUFFERS) ${text}`, params)).rows as { 'QUERY PLAN': string }[]).map((x) => x['QUERY PLAN']);
+      results.push({
+        s, total: lastBody!.pagination.total, api, sql: bare, check,
+        plan: await explain(sql.select, sql.params), countPlan: await explain(sql.count, countParams),
+      });
+      log(`${s.name}: done (${lastBody!.data.length} rows of ${lastBody!.pagination.total.toLocaleString('en-GB')})`);
+    }
+
+    // ── Report ──
+    const head = ['scenario', 'matches', 'API med', 'API p95', 'SQL med', 'SQL p95', 'API/SQL', 'check med', 'targets'];
+    const rows = results.map((r) => {
+      const apiMed = median(r.api);
+      const apiP95 = quantile(r.api, 0.95);
+      const sqlMed = median(r.sql);
+      const ratio = apiMed / sqlMed;
+      const checks: string[] = [];
+      if (r.s.p95Ms) checks.push(`${r.s.target} ${apiP95 < r.s.p95Ms ? 'ok' : 'MISS'}`);
+      checks.push(`≤${RATIO_TARGET}× SQL ${ratio <= RATIO_TARGET ? 'ok' : 'MISS'}`);
+      return {
+        cells: [r.s.name, r.total.toLocaleString('en-GB'), ms(apiMed), ms(apiP95), ms(sqlMed), ms(quantile(r.sql, 0.95)), `${ratio.toFixed(2)}×`, ms(median(r.check)), checks.join('; ')],
+        miss: checks.some((c) => c.endsWith('MISS')),
+      };
+    });
+    const widths = head.map((h, i) => Math.max(h.length, ...rows.map((r) => r.cells[i].length)));
+    const line = (cells: string[]) => `| ${cells.map((c, i) => (i === 0 || i === cells.length - 1 ? c.padEnd(widths[i]) : c.padStart(widths[i]))).join(' | ')} |`;
+    console.log('');
+    console.log(`Catalogue list, ${prints.toLocaleString('en-GB')} prints, role ${ROLE}, ${RUNS} measured runs after ${WARMUP} warm-up (times in ms):`);
+    console.log('');
+    console.log(line(head));
+    console.log(`|${widths.map((w, i) => (i === 0 || i === widths.length - 1 ? ` ${'-'.repeat(w)} ` : ` ${'-'.repeat(w - 1)}: `)).join('|')}|`);
+    for (const r of rows) console.log(line(r.cells));
+    console.log('');
+    console.log('API = GET /api/prints over HTTP incl. session lookup and JSON; SQL = the same select + count in parallel; ');
+    console.log(`check = in-process cost of the response-contract check the app runs outside production (included in API).`);
+
+    console.log('');
+    console.log('EXPLAIN (ANALYZE, BUFFERS), top node and execution time:');
+    const summary = (plan: string[]) => {
+      const top = plan[0].trim();
+      const exec = plan.find((l) => l.startsWith('Execution Time'))?.trim() ?? '';
+      const buffers = plan.find((l) => l.trim().startsWith('Buffers:'))?.trim() ?? '';
+      return `${top}\n      ${buffers}${buffers ? '; ' : ''}${exec}`;
+    };
+    for (const r of results) {
+      console.log(`  ${r.s.name}`);
+      console.log(`    select: ${summary(r.plan)}`);
+      console.log(`    count:  ${summary(r.countPlan)}`);
+    }
+    // Full plans: every scenario, those that miss a target marked, so index effects can be read.
+    console.log('');
+    console.log('Full plans (select, then count):');
+    results.forEach((r, i) => {
+      console.log('');
+      console.log(`── ${r.s.name}${rows[i].miss ? ' (MISSES A TARGET)' : ''}: ${new URLSearchParams(r.s.query)} ──`);
+      console.log('select:');
+      for (const l of r.plan) console.log(`  ${l}`);
+      console.log('count:');
+      for (const l of r.countPlan) console.log(`  ${l}`);
+    });
+  }
+} catch (err) {
+  console.error(err instanceof Error ? err.stack ?? err.message : err);
+  code = 1;
+} finally {
+  await sqlPool?.end().catch(() => {});
+  await closeServer().catch(() => {});
+  await services?.stop();
+  await cluster?.stop();
+}
+process.exit(code);
