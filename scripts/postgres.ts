@@ -94,7 +94,8 @@ export async function startPostgres(options: { baseDir: string; port: number; da
     log('A PostgreSQL server left running on this cluster is stopped first.');
     run(pgCtl, ['-D', dataDir, '-m', 'fast', '-w', 'stop']);
   }
-  const opts = `-c listen_addresses=127.0.0.1 -c port=${options.port} -c unix_socket_directories=${sockDir}`;
+  // Memory settings for a collection-sized catalogue: the prints table and its indexes stay in shared buffers.
+  const opts = `-c listen_addresses=127.0.0.1 -c port=${options.port} -c unix_socket_directories=${sockDir} -c shared_buffers=384MB -c work_mem=16MB -c effective_cache_size=2GB -c random_page_cost=1.1`;
   const started = run(pgCtl, ['-D', dataDir, '-l', logFile, '-w', '-t', '30', '-o', opts, 'start']);
   if (!started.ok) {
     const tail = existsSync(logFile) ? readFileSync(logFile, 'utf8').split('\n').slice(-15).join('\n') : '';
