@@ -25,10 +25,22 @@ export const SESSION_COOKIE = 'toneledger.sid';
 
 export function sessionMiddleware(e: Env, pool: pg.Pool) {
   const PgStore = connectPgSimple(session);
+  const store = new PgStore({ pool, tableName: 'http_sessions', pruneSessionInterval: 15 * 60 });
+  // Idle expiry moves with every request, but the database row is touched at most once a minute:
+  // a session seen a moment ago needs no write on each of its requests.
+  const touch = store.touch.bind(store);
+  const lastTouched = new Map<string, number>();
+  store.touch = (sid, sess, cb) => {
+    const now = Date.now();
+    if (now - (lastTouched.get(sid) ?? 0) < 60_000) return cb?.();
+    lastTouched.set(sid, now);
+    if (lastTouched.size > 10_000) for (const [k, t] of lastTouched) if (now - t > 60_000) lastTouched.delete(k);
+    return touch(sid, sess, cb);
+  };
   return session({
     name: SESSION_COOKIE,
     secret: e.SESSION_SECRET,
-    store: new PgStore({ pool, tableName: 'http_sessions', pruneSessionInterval: 15 * 60 }),
+    store,
     resave: false,
     saveUninitialized: false,
     rolling: true,

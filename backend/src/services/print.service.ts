@@ -7,7 +7,7 @@ import type {
 } from '@toneledger/common/schemas/catalogue';
 import { db } from '../db';
 import { AuditEventModel, BathRecipe, EnclosureType, Location, Maker, Movement, Paper, Print, ProcessStep } from '../models';
-import { notFound, validationFailed } from '../errors';
+import { conflict, notFound, validationFailed } from '../errors';
 import { recordAudit, type AuditActor } from './audit.service';
 import { getCatalogueSettings } from './settings.service';
 import { changedFields, rethrowUnique, staleEdit } from './versioning';
@@ -131,6 +131,14 @@ export async function updatePrint(id: string, update: PrintUpdate, actor: AuditA
 export async function deletePrint(id: string, version: number, actor: AuditActor & { role: Role }, requestId: string | null) {
   await db().transaction(async (t) => {
     const before = await lockForEdit(id, version, t, actor.role);
+    const [kept] = await db().query<{ n: number }>(
+      `SELECT (SELECT count(*) FROM images WHERE print_id = $1) + (SELECT count(*) FROM condition_reports WHERE print_id = $1)
+            + (SELECT count(*) FROM measurement_sessions WHERE print_id = $1) AS n`,
+      { bind: [id], type: QueryTypes.SELECT, transaction: t },
+    );
+    if (Number(kept.n) > 0) {
+      throw conflict('This print has images, condition reports or measurements, which are kept for good. Set its status to deaccessioned instead of deleting it.');
+    }
     const movements = await Movement.findAll({ where: { printId: id }, include: [{ model: Location, as: 'from' }, { model: Location, as: 'to' }], transaction: t });
     // The whole record, steps and movements included, stays in the audit trail.
     await recordAudit(
@@ -260,7 +268,11 @@ export interface ListSql {
   params: unknown[];
   select: string;
   count: string;
+  estimate: string;
 }
+
+/** Results up to this size are counted exactly; larger ones get the planner's estimate. */
+export const EXACT_COUNT_CAP = 10_000;
 
 export function buildListSql(query: PrintListQuery, role: Role | null): ListSql {
   const params: unknown[] = [];
@@ -308,8 +320,10 @@ export function buildListSql(query: PrintListQuery, role: Role | null): ListSql 
     ${whereSql}
     ORDER BY ${order}
     LIMIT ${limit} OFFSET ${offset}`;
-  const count = `SELECT count(*)::int AS total FROM prints p ${whereSql}`;
-  return { where: whereSql, params, select, count };
+  // Counting is exact up to a cap; past it the planner's estimate is used (and said to be one).
+  const count = `SELECT count(*)::int AS total FROM (SELECT 1 FROM prints p ${whereSql} LIMIT ${EXACT_COUNT_CAP + 1}) capped`;
+  const estimate = `EXPLAIN (FORMAT JSON) SELECT 1 FROM prints p ${whereSql}`;
+  return { where: whereSql, params, select, count, estimate };
 }
 
 interface ListRow {
@@ -337,7 +351,14 @@ export async function listPrints(query: PrintListQuery, role: Role | null) {
     db().query<{ total: number }>(sql.count, { bind: countParams, type: QueryTypes.SELECT }),
   ]);
   const restricted = can(role, 'catalogue.read_restricted');
-  return { rows: rows.map((r) => presentListRow(r, restricted)), total: count[0].total };
+  let total = count[0].total;
+  let estimated = false;
+  if (total > EXACT_COUNT_CAP) {
+    const [plan] = await db().query<{ 'QUERY PLAN': [{ Plan: { 'Plan Rows': number } }] }>(sql.estimate, { bind: countParams, type: QueryTypes.SELECT });
+    total = Math.max(EXACT_COUNT_CAP + 1, Math.round(plan['QUERY PLAN'][0].Plan['Plan Rows']));
+    estimated = true;
+  }
+  return { rows: rows.map((r) => presentListRow(r, restricted)), total, estimated };
 }
 
 /** Recomputes stored warnings for the prints matching a column value (after an enclosure type changes). */

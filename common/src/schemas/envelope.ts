@@ -28,6 +28,8 @@ export const paginationSchema = z.object({
   page: z.number().int().min(1),
   pageSize: z.number().int().min(1),
   total: z.number().int().min(0),
+  /** True when `total` is the database's estimate: large results are counted exactly only up to a cap. */
+  estimated: z.boolean().optional(),
 });
 export type Pagination = z.infer<typeof paginationSchema>;
 

@@ -20,8 +20,8 @@ export function printsRoutes(): RouteDef[] {
       method: 'get', path: '/api/prints', summary: 'The catalogue: full-text search, filter by every controlled field, sort, page', tags: ['prints'],
       access: 'catalogue.read', query: printListQuerySchema, response: { description: 'A page of prints', schema: pageEnvelope(printListItemSchema) },
       handler: async ({ query, user }) => {
-        const { rows, total } = await listPrints(query, user!.role);
-        return { data: rows, pagination: { page: query.page, pageSize: query.pageSize, total } };
+        const { rows, total, estimated } = await listPrints(query, user!.role);
+        return { data: rows, pagination: { page: query.page, pageSize: query.pageSize, total, ...(estimated ? { estimated } : {}) } };
       },
     }),
     route({

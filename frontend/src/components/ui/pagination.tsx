@@ -5,19 +5,21 @@ export interface PaginationProps {
   page: number;
   pageSize: number;
   total: number;
+  /** The total is an estimate (large results are not counted exactly). */
+  estimated?: boolean;
   onPageChange: (page: number) => void;
   onPageSizeChange?: (pageSize: number) => void;
   pageSizes?: number[];
 }
 
-export function Pagination({ page, pageSize, total, onPageChange, onPageSizeChange, pageSizes = [25, 50, 100, 200] }: PaginationProps) {
+export function Pagination({ page, pageSize, total, estimated = false, onPageChange, onPageSizeChange, pageSizes = [25, 50, 100, 200] }: PaginationProps) {
   const pageCount = Math.max(1, Math.ceil(total / pageSize));
   const first = total === 0 ? 0 : (page - 1) * pageSize + 1;
   const last = Math.min(total, page * pageSize);
   return (
     <div className="mt-3 flex flex-wrap items-center justify-between gap-3 text-sm text-ink-700">
       <p className="num" aria-live="polite">
-        {total === 0 ? 'No results' : `${formatCount(first)}–${formatCount(last)} of ${formatCount(total)}`}
+        {total === 0 ? 'No results' : `${formatCount(first)}–${formatCount(last)} of ${estimated ? 'about ' : ''}${formatCount(total)}`}
       </p>
       <div className="flex items-center gap-3">
         {onPageSizeChange ? (

@@ -69,6 +69,7 @@ export function PrintsPage() {
             page={query.page}
             pageSize={query.pageSize}
             total={prints.data.pagination.total}
+            estimated={prints.data.pagination.estimated ?? false}
             onPageChange={(page) => setQuery({ page })}
             onPageSizeChange={(pageSize) => setQuery({ pageSize })}
           />
