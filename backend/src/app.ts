@@ -23,6 +23,7 @@ import { settingsRoutes } from './routes/settings/settings.routes';
 import { importsRoutes } from './routes/imports/imports.routes';
 import { imagesRoutes } from './routes/images/images.routes';
 import { conditionRoutes } from './routes/condition/condition.routes';
+import { measurementsRoutes } from './routes/measurements/measurements.routes';
 
 /** Every route the app serves, in one list: Express mounts it and OpenAPI describes it. */
 export function allRoutes(deps: AppDeps): RouteDef[] {
@@ -39,6 +40,7 @@ export function allRoutes(deps: AppDeps): RouteDef[] {
     ...importsRoutes(),
     ...imagesRoutes(deps),
     ...conditionRoutes(),
+    ...measurementsRoutes(),
   ];
   routes.push(
     route({

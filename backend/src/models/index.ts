@@ -3,10 +3,12 @@ import type { Role } from '@toneledger/common/domain/roles';
 import { initCatalogueModels } from './catalogue';
 import { initImageModels } from './images';
 import { initConditionModels } from './condition';
+import { initMeasurementModels } from './measurements';
 
 export * from './catalogue';
 export * from './images';
 export * from './condition';
+export * from './measurements';
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<string>;
@@ -69,4 +71,5 @@ export function initModels(sequelize: Sequelize): void {
   initCatalogueModels(sequelize);
   initImageModels(sequelize);
   initConditionModels(sequelize);
+  initMeasurementModels(sequelize);
 }

@@ -14,12 +14,18 @@ export const DENSITY_TYPES = ['visual', 'status_a'] as const;
 const id = z.string().uuid({ message: 'Not a record id' });
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'A date as YYYY-MM-DD');
 const optionalText = (max: number) => z.preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), z.string().trim().max(max).nullable()).optional();
-const n = (message: string) => z.coerce.number({ message });
+const n = (message: string) => z.number({ message });
+/**
+ * Accepts a number, or a string holding one (forms and CSV cells send strings). Unlike
+ * z.coerce.number, an empty string, null or a boolean is refused rather than read as 0 or 1.
+ */
+const fromText = <T extends z.ZodType>(schema: T) =>
+  z.preprocess((v) => (typeof v === 'string' && v.trim() !== '' ? Number(v.trim()) : v), schema);
 
 export const labReadingSchema = z.object({
-  L: n('L* must be a number').min(0, 'L* is between 0 and 100').max(100, 'L* is between 0 and 100'),
-  a: n('a* must be a number').min(-200, 'a* is between −200 and 200').max(200, 'a* is between −200 and 200'),
-  b: n('b* must be a number').min(-200, 'b* is between −200 and 200').max(200, 'b* is between −200 and 200'),
+  L: fromText(n('L* must be a number').min(0, 'L* is between 0 and 100').max(100, 'L* is between 0 and 100')),
+  a: fromText(n('a* must be a number').min(-200, 'a* is between −200 and 200').max(200, 'a* is between −200 and 200')),
+  b: fromText(n('b* must be a number').min(-200, 'b* is between −200 and 200').max(200, 'b* is between −200 and 200')),
 });
 export type LabReading = z.infer<typeof labReadingSchema>;
 
@@ -45,10 +51,10 @@ export type Spot = z.infer<typeof spotSchema>;
 export const spotReadingInputSchema = z.object({
   spotId: id,
   readings: z.array(labReadingSchema).min(1, 'At least one L*a*b* reading').max(20),
-  density: z.preprocess((v) => (v === '' ? null : v), n('Density must be a number').min(0, 'Density is 0 or more').max(5, 'Density is at most 5').nullable()).optional(),
+  density: z.preprocess((v) => (v === '' ? null : v), fromText(n('Density must be a number').min(0, 'Density is 0 or more').max(5, 'Density is at most 5')).nullable()).optional(),
   densityType: z.enum(DENSITY_TYPES).nullable().optional(),
   /** Reflectance as a fraction (0–1]; density is computed from it when no density is given. */
-  reflectance: z.preprocess((v) => (v === '' ? null : v), n('Reflectance must be a number').gt(0, 'Reflectance is above 0').max(1, 'Reflectance is a fraction up to 1').nullable()).optional(),
+  reflectance: z.preprocess((v) => (v === '' ? null : v), fromText(n('Reflectance must be a number').gt(0, 'Reflectance is above 0').max(1, 'Reflectance is a fraction up to 1')).nullable()).optional(),
 });
 
 export const sessionInputSchema = z.object({
