@@ -63,7 +63,7 @@ describe('a registrar catalogues a print', () => {
     await page.getByText(/April 1968/).first().waitFor();
     await page.getByLabel('Process').selectOption('gelatin_silver_developing_out');
     await page.getByRole('button', { name: 'Save' }).click();
-    await page.getByRole('heading', { name: accession }).waitFor();
+    await page.getByRole('heading', { name: accession, exact: true }).waitFor();
 
     await page.getByRole('link', { name: /Edit process history/ }).click();
     await page.getByLabel('Kind of step to add').selectOption('toning');
@@ -74,7 +74,7 @@ describe('a registrar catalogues a print', () => {
     await step.getByLabel('Time (m:ss or seconds)').fill('4:00');
     await step.getByLabel('Extent').selectOption('full');
     await page.getByRole('button', { name: 'Save process history' }).click();
-    await page.getByRole('heading', { name: accession }).waitFor();
+    await page.getByRole('heading', { name: accession, exact: true }).waitFor();
     await page.getByText(`Iron blue single bath ${stamp}`).first().waitFor();
 
     await page.goto(`${BASE_URL}/catalogue`);
@@ -87,7 +87,7 @@ describe('a registrar catalogues a print', () => {
 
   it('sees the buffered-enclosure warning when choosing a buffered enclosure for the iron-blue print', async () => {
     await page.getByRole('link', { name: `Breakwater in fog ${stamp}` }).or(page.getByRole('link', { name: new RegExp(accession.replace(/\./g, '\\.')) })).first().click();
-    await page.getByRole('heading', { name: accession }).waitFor();
+    await page.getByRole('heading', { name: accession, exact: true }).waitFor();
     await page.getByRole('link', { name: /^Edit$/ }).or(page.getByRole('link', { name: 'Edit print' })).first().click();
     const enclosure = page.getByLabel('Enclosure');
     const option = enclosure.locator('option', { hasText: `Buffered four-flap ${stamp}` });
@@ -96,9 +96,10 @@ describe('a registrar catalogues a print', () => {
     // The warning is previewed in the form before saving …
     await page.getByText(/buffered/i).filter({ hasText: /iron.blue|Prussian/i }).first().waitFor();
     await page.getByRole('button', { name: 'Save' }).click();
-    await page.getByRole('heading', { name: accession }).waitFor();
+    await page.getByRole('heading', { name: accession, exact: true }).waitFor();
     // … and stored on the record.
-    const warnings = page.getByRole('region', { name: 'Warnings' });
+    await page.waitForURL((u) => !u.pathname.endsWith('/edit'));
+    const warnings = page.getByRole('region', { name: 'Warnings', exact: true });
     await warnings.waitFor();
     expect(await warnings.innerText()).toMatch(/buffered/i);
     await screenshot(page, 'catalogue-print-warning');
