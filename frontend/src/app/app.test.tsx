@@ -72,10 +72,10 @@ describe('route guards and fallbacks', () => {
 
   it('says plainly that an unbuilt area is not built yet, and what it will hold', async () => {
     mockFetch({ 'GET /api/me': () => json({ data: makeMe('conservator') }) });
-    renderRoutes(routes, { path: '/measurements' });
-    expect(await screen.findByRole('heading', { level: 1, name: 'Measurements' })).toBeTruthy();
+    renderRoutes(routes, { path: '/inspections' });
+    expect(await screen.findByRole('heading', { level: 1, name: 'Inspections' })).toBeTruthy();
     expect(screen.getByText('This area is not built yet.')).toBeTruthy();
-    expect(screen.getByText(/fading rates and projections/)).toBeTruthy();
+    expect(screen.getByText(/explainable risk model/)).toBeTruthy();
   });
 
   it('does not open the research area for a registrar', async () => {

@@ -135,6 +135,101 @@ function catalogueRoute(area: Area): RouteObject {
   };
 }
 
+/**
+ * Condition and images. The area's index needs `condition.read`; a print's page opens to every role
+ * that may see its images (reports are shown only to those who may read them), and each screen
+ * inside carries its own permission.
+ */
+function conditionRoute(area: Area): RouteObject {
+  return {
+    path: area.path,
+    children: [
+      {
+        index: true,
+        lazy: async () => {
+          const Page = await import('@/features/condition/routes/condition-index-page').then((m) => m.ConditionIndexPage);
+          return {
+            Component: () => (
+              <RequireArea area={area}>
+                <Page />
+              </RequireArea>
+            ),
+          };
+        },
+      },
+      {
+        path: 'prints/:id',
+        lazy: page(() => import('@/features/condition/routes/condition-print-page').then((m) => m.ConditionPrintPage), {
+          permission: 'images.read',
+          what: 'Condition and images',
+        }),
+      },
+      {
+        path: 'prints/:id/compare',
+        lazy: page(() => import('@/features/condition/routes/compare-page').then((m) => m.ComparePage), {
+          permission: 'images.read',
+          what: 'Comparing images',
+        }),
+      },
+      {
+        path: 'prints/:id/reports/new',
+        lazy: page(() => import('@/features/condition/routes/report-new-page').then((m) => m.ReportNewPage), {
+          permission: 'condition.write',
+          what: 'Writing condition reports',
+        }),
+      },
+      {
+        path: 'reports/:id',
+        lazy: page(() => import('@/features/condition/routes/report-page').then((m) => m.ReportPage), {
+          permission: 'condition.read',
+          what: 'Condition reports',
+        }),
+      },
+      { path: '*', Component: NotFoundPage },
+    ],
+  };
+}
+
+/**
+ * Measurements. The area's index (the spots changing most, and opening a print) needs
+ * `measurements.read`, like a print's measurements; recording a session needs `measurements.write`.
+ */
+function measurementsRoute(area: Area): RouteObject {
+  return {
+    path: area.path,
+    children: [
+      {
+        index: true,
+        lazy: async () => {
+          const Page = await import('@/features/measurements/routes/leaders-page').then((m) => m.LeadersPage);
+          return {
+            Component: () => (
+              <RequireArea area={area}>
+                <Page />
+              </RequireArea>
+            ),
+          };
+        },
+      },
+      {
+        path: 'prints/:id',
+        lazy: page(() => import('@/features/measurements/routes/print-measurements-page').then((m) => m.PrintMeasurementsPage), {
+          permission: 'measurements.read',
+          what: 'Measurements',
+        }),
+      },
+      {
+        path: 'prints/:id/sessions/new',
+        lazy: page(() => import('@/features/measurements/routes/session-create-page').then((m) => m.SessionCreatePage), {
+          permission: 'measurements.write',
+          what: 'Recording measurement sessions',
+        }),
+      },
+      { path: '*', Component: NotFoundPage },
+    ],
+  };
+}
+
 function PlainErrorPage() {
   return (
     <PlainPage>
@@ -160,7 +255,7 @@ export const routes: RouteObject[] = [
         errorElement: <ErrorPage />,
         children: [
           { index: true, lazy: () => import('@/app/routes/home-page').then((m) => ({ Component: m.HomePage })) },
-          ...AREAS.map((area) => (area.id === 'catalogue' ? catalogueRoute(area) : areaRoute(area))),
+          ...AREAS.map((area) => (area.id === 'catalogue' ? catalogueRoute(area) : area.id === 'condition' ? conditionRoute(area) : area.id === 'measurements' ? measurementsRoute(area) : areaRoute(area))),
           ...ADMIN_AREAS.map(areaRoute),
           { path: '*', Component: NotFoundPage },
         ],

@@ -28,6 +28,13 @@ function renderPrint(role: Role, print = toned) {
       json({ data: [{ id: '81111111-2222-4333-8444-555555555555', from: null, to: { id: LOCATION_ID, pathLabel: 'Store A › Cabinet 2' }, movedAt: '2024-01-02T10:00:00.000Z', movedBy: 'Ada Marsh', reason: 'Accessioned' }] }),
     [`GET /api/prints/${PRINT_ID}/history`]: () =>
       json({ data: [{ id: 'h1', at: '2024-06-01T10:00:00.000Z', actorName: 'Ada Marsh', action: 'print.updated', summary: 'Changed the title', changes: [{ field: 'title', before: 'Harbour', after: 'Harbour wall, low tide' }] }] }),
+    [`GET /api/prints/${PRINT_ID}/timeline`]: () =>
+      json({
+        data: [
+          { at: '2024-07-01T10:00:00.000Z', kind: 'condition', title: 'Condition report: Fair', detail: 'Routine check', actorName: 'Tamsin Quay', link: '/condition/reports/r1' },
+          { at: '2024-06-01T10:00:00.000Z', kind: 'catalogue', title: 'Changed the title', detail: null, actorName: 'Ada Marsh', link: null },
+        ],
+      }),
     [`POST /api/prints/${PRINT_ID}/movements`]: () => json({ data: { ...print, version: print.version + 1, location: { id: LOCATION_ID, pathLabel: 'Store A › Cabinet 2' } } }),
   });
   const view = renderRoutes([{ path: '/catalogue/prints/:id', element: <PrintPage /> }], { path: `/catalogue/prints/${PRINT_ID}`, me: makeMe(role) });
@@ -61,7 +68,24 @@ describe('PrintPage', () => {
     expect(screen.queryByRole('region', { name: 'History of changes' })).toBeNull();
     expect(screen.queryByText('Staff notes')).toBeNull();
     expect(screen.queryByRole('link', { name: 'Edit' })).toBeNull();
-    expect(requests.map((r) => r.path)).toEqual([`/api/prints/${PRINT_ID}`]);
+    // The timeline is open to every reader (the server leaves out what a viewer may not see); nothing restricted is asked for.
+    expect(requests.map((r) => r.path)).toEqual([`/api/prints/${PRINT_ID}`, `/api/prints/${PRINT_ID}/timeline`]);
+  });
+
+  it('shows the timeline newest first, linking condition entries to their report', async () => {
+    renderPrint('viewer', { ...toned, location: undefined, staffNotes: undefined, valuationAmount: undefined, valuationCurrency: undefined });
+    const timeline = await screen.findByRole('region', { name: 'Timeline' });
+    const link = await within(timeline).findByRole('link', { name: 'Condition report: Fair' });
+    expect(link.getAttribute('href')).toBe('/condition/reports/r1');
+    const items = within(timeline).getAllByRole('listitem');
+    expect(items[0]?.textContent).toContain('Tamsin Quay');
+    expect(items[1]?.textContent).toContain('Changed the title');
+  });
+
+  it('links to the condition and images of the print for every role that may see images', async () => {
+    renderPrint('viewer', { ...toned, location: undefined, staffNotes: undefined, valuationAmount: undefined, valuationCurrency: undefined });
+    const link = await screen.findByRole('link', { name: 'Condition and images' });
+    expect(link.getAttribute('href')).toBe(`/condition/prints/${PRINT_ID}`);
   });
 
   it('lets a researcher read staff notes, valuation, movements and history, but not move or edit', async () => {

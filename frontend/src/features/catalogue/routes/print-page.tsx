@@ -2,6 +2,7 @@ import { useId, type ReactNode } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { can } from '@toneledger/common/domain/roles';
 import type { Print } from '@toneledger/common/schemas/catalogue';
+import type { TimelineEntry } from '@toneledger/common/schemas/images';
 import { buttonClasses } from '@/components/ui/button';
 import { ErrorNotice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/loading';
@@ -11,6 +12,7 @@ import { formatDateTime } from '@/lib/format';
 import { useDocumentTitle } from '@/lib/use-document-title';
 import { usePrint } from '@/features/catalogue/api/get-print';
 import { printJsonHref } from '@/features/catalogue/api/exports';
+import { useTimeline } from '@/features/catalogue/api/get-timeline';
 import { ChemistryCaution } from '@/features/catalogue/components/chemistry-caution';
 import { DeletePrintControl } from '@/features/catalogue/components/delete-print-control';
 import { HistoryList } from '@/features/catalogue/components/history-list';
@@ -37,6 +39,39 @@ function TextBlock({ term, value }: { term: string; value: string | null | undef
       <h3 className="font-sans text-xs font-semibold tracking-wider text-ink-700 uppercase">{term}</h3>
       <p className="mt-0.5 text-sm whitespace-pre-line text-ink-900">{value || <span className="text-ink-600">Not recorded</span>}</p>
     </div>
+  );
+}
+
+const TIMELINE_KINDS: Record<TimelineEntry['kind'], string> = {
+  catalogue: 'Catalogue', movement: 'Movement', condition: 'Condition', addendum: 'Addendum', image: 'Image', fixity: 'Fixity',
+};
+
+/** The print's whole life in one list, newest first. */
+function TimelinePanel({ printId }: { printId: string }) {
+  const timeline = useTimeline(printId);
+  return (
+    <Panel title="Timeline">
+      {timeline.isPending ? <Loading label="Loading the timeline…" /> : null}
+      {timeline.isError ? <ErrorNotice error={timeline.error} title="The timeline could not be loaded." /> : null}
+      {timeline.data ? (
+        timeline.data.length === 0 ? (
+          <p className="text-sm text-ink-700">Nothing recorded yet.</p>
+        ) : (
+          <ol className="flex flex-col divide-y divide-paper-200">
+            {timeline.data.map((entry, i) => (
+              <li key={`${entry.at}-${i}`} className="py-2 text-sm">
+                <p className="text-xs text-ink-700">
+                  <time dateTime={entry.at}>{formatDateTime(entry.at)}</time> · {TIMELINE_KINDS[entry.kind]}
+                  {entry.actorName ? ` · ${entry.actorName}` : ''}
+                </p>
+                <p className="font-medium">{entry.link ? <Link to={entry.link}>{entry.title}</Link> : entry.title}</p>
+                {entry.detail ? <p className="whitespace-pre-line text-ink-800">{entry.detail}</p> : null}
+              </li>
+            ))}
+          </ol>
+        )
+      ) : null}
+    </Panel>
   );
 }
 
@@ -81,6 +116,11 @@ function PrintView({ print }: { print: Print }) {
               </Link>
             </>
           ) : null}
+          {can(me.role, 'condition.read') || can(me.role, 'images.read') ? (
+            <Link to={`/condition/prints/${print.id}`} className={buttonClasses('secondary', 'md', 'no-underline')}>
+              Condition and images
+            </Link>
+          ) : null}
           <a href={printJsonHref(print.id)} download className={buttonClasses('secondary', 'md', 'no-underline')}>
             Download JSON
           </a>
@@ -122,6 +162,7 @@ function PrintView({ print }: { print: Print }) {
         <div className="flex min-w-0 flex-col gap-5">
           <WarningsPanel warnings={print.warnings} />
           {restricted ? <LocationPanel print={print} mayMove={mayWrite} /> : null}
+          <TimelinePanel printId={print.id} />
           {restricted ? <HistoryList printId={print.id} /> : null}
         </div>
       </div>

@@ -1,0 +1,218 @@
+import { useId, useState, type FormEvent, type ReactNode } from 'react';
+import { can, type Role } from '@toneledger/common/domain/roles';
+import { VIEW_TYPES, VIEW_TYPE_LABELS, imageDeleteSchema, type PrintImage } from '@toneledger/common/schemas/images';
+import { Button } from '@/components/ui/button';
+import { SelectField, TextField } from '@/components/ui/field';
+import { ErrorNotice, Notice } from '@/components/ui/notice';
+import { TextAreaField } from '@/components/ui/text-area-field';
+import { formatDateTime } from '@/lib/format';
+import { useFixityHistory } from '@/features/condition/api/fixity';
+import { useCheckFixity, useUpdateImage, useWithdrawImage } from '@/features/condition/api/save-image';
+import { FixityBadge } from '@/features/condition/components/fixity-badge';
+import { formatBytes, formatDay, formatExposure } from '@/features/condition/utils/format';
+import { serverIssuesToErrors } from '@/features/condition/utils/report-form';
+
+function Row({ term, children }: { term: string; children: ReactNode }) {
+  return (
+    <div className="grid grid-cols-[8rem_1fr] gap-2 border-b border-paper-200 py-1 last:border-b-0">
+      <dt className="text-xs font-semibold tracking-wide text-ink-700 uppercase">{term}</dt>
+      <dd className="text-sm [overflow-wrap:anywhere]">{children}</dd>
+    </div>
+  );
+}
+
+function exifLine(image: PrintImage): string | null {
+  const e = image.exif;
+  const parts = [formatExposure(e.exposureTime), e.fNumber ? `f/${e.fNumber}` : null, e.iso ? `ISO ${e.iso}` : null, e.focalLength ? `${e.focalLength} mm` : null].filter(Boolean);
+  return parts.length ? parts.join(' · ') : null;
+}
+
+function EditImageForm({ image, onDone }: { image: PrintImage; onDone: () => void }) {
+  const [viewType, setViewType] = useState<string>(image.viewType);
+  const [capturedOn, setCapturedOn] = useState(image.capturedOn ?? '');
+  const [notes, setNotes] = useState(image.notes ?? '');
+  const update = useUpdateImage();
+  const errors = update.isError ? serverIssuesToErrors((update.error as { details?: unknown }).details) : {};
+
+  function submit(event: FormEvent) {
+    event.preventDefault();
+    update.mutate(
+      { id: image.id, update: { viewType: viewType as PrintImage['viewType'], capturedOn: capturedOn || null, notes: notes.trim() || null, version: image.version } },
+      { onSuccess: onDone },
+    );
+  }
+
+  return (
+    <form onSubmit={submit} noValidate aria-label="Edit image details" className="mt-3 flex flex-col gap-3 rounded border border-paper-300 bg-paper-50 p-3">
+      <SelectField label="View shown" value={viewType} onChange={(e) => setViewType(e.target.value)} error={errors.viewType}>
+        {VIEW_TYPES.map((v) => (
+          <option key={v} value={v}>
+            {VIEW_TYPE_LABELS[v]}
+          </option>
+        ))}
+      </SelectField>
+      <TextField type="date" label="Captured on" value={capturedOn} onChange={(e) => setCapturedOn(e.target.value)} error={errors.capturedOn} />
+      <TextAreaField label="Image notes" value={notes} onChange={(e) => setNotes(e.target.value)} error={errors.notes} rows={2} maxLength={2000} />
+      {update.isError && Object.keys(errors).length === 0 ? <ErrorNotice error={update.error} title="Not saved." /> : null}
+      <div className="flex gap-2">
+        <Button type="submit" variant="primary" size="sm" disabled={update.isPending}>
+          Save image details
+        </Button>
+        <Button size="sm" onClick={onDone}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}
+
+function WithdrawForm({ image, onDone, onWithdrawn }: { image: PrintImage; onDone: () => void; onWithdrawn?: (image: PrintImage) => void }) {
+  const [reason, setReason] = useState('');
+  const [error, setError] = useState<string | undefined>();
+  const withdraw = useWithdrawImage();
+
+  function submit(event: FormEvent) {
+    event.preventDefault();
+    const checked = imageDeleteSchema.safeParse({ reason, version: image.version });
+    if (!checked.success) {
+      setError(checked.error.issues[0]?.message);
+      return;
+    }
+    setError(undefined);
+    withdraw.mutate({ id: image.id, withdrawal: checked.data }, { onSuccess: (saved) => (onWithdrawn ? onWithdrawn(saved) : onDone()) });
+  }
+
+  return (
+    <form onSubmit={submit} noValidate aria-label="Withdraw image" className="mt-3 flex flex-col gap-3 rounded border border-danger-200 bg-danger-50 p-3 text-sm">
+      <p>
+        A withdrawn image is no longer shown or offered for comparison. Its files are kept for the retention period and then purged; the record of
+        the upload and of the withdrawal stays in the audit trail.
+      </p>
+      <TextField label="Reason for withdrawal" value={reason} onChange={(e) => setReason(e.target.value)} error={error} maxLength={500} />
+      {withdraw.isError ? <ErrorNotice error={withdraw.error} title="Not withdrawn." /> : null}
+      <div className="flex gap-2">
+        <Button type="submit" variant="danger" size="sm" disabled={withdraw.isPending}>
+          Withdraw image
+        </Button>
+        <Button size="sm" onClick={onDone}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}
+
+function FixityHistory({ image }: { image: PrintImage }) {
+  const history = useFixityHistory(image.id, true);
+  if (history.isPending) return <p className="text-xs text-ink-700">Loading fixity checks…</p>;
+  if (history.isError) return <ErrorNotice error={history.error} title="The fixity checks could not be loaded." />;
+  if (history.data.length === 0) return <p className="text-xs text-ink-700">No fixity checks yet.</p>;
+  return (
+    <ol className="mt-1 flex flex-col gap-1 text-xs">
+      {history.data.map((r) => (
+        <li key={r.id}>
+          <time dateTime={r.checkedAt}>{formatDateTime(r.checkedAt)}</time> · <FixityBadge result={r} />
+          {r.detail ? <span className="text-ink-700"> {r.detail}</span> : null}
+        </li>
+      ))}
+    </ol>
+  );
+}
+
+/** One image's record: file, capture, EXIF summary, fixity, and (for those who may) edit and withdraw. */
+export function ImageDetails({ image, role, onWithdrawn }: { image: PrintImage; role: Role; onWithdrawn?: (image: PrintImage) => void }) {
+  const headingId = useId();
+  const [mode, setMode] = useState<'view' | 'edit' | 'withdraw'>('view');
+  const [showChecks, setShowChecks] = useState(false);
+  const [message, setMessage] = useState<string | null>(null);
+  const check = useCheckFixity();
+  const mayWrite = can(role, 'images.write');
+  const staff = can(role, 'catalogue.read_restricted');
+  const camera = [image.exif.make, image.exif.model].filter(Boolean).join(' ');
+  const exposure = exifLine(image);
+
+  return (
+    <section aria-labelledby={headingId} className="rounded border border-paper-300 bg-white p-3">
+      <h3 id={headingId} className="text-base">
+        {VIEW_TYPE_LABELS[image.viewType]} · {image.capturedOn ? formatDay(image.capturedOn) : 'capture date not recorded'}
+      </h3>
+      {image.withdrawn ? (
+        <Notice tone="warning">
+          <p>
+            Withdrawn on {formatDateTime(image.withdrawn.at)}
+            {image.withdrawn.by ? ` by ${image.withdrawn.by}` : ''}: {image.withdrawn.reason}. The files are kept until{' '}
+            {formatDateTime(image.withdrawn.purgeAfter)}, then purged.
+          </p>
+        </Notice>
+      ) : null}
+      {message ? (
+        <Notice tone="success" role="status">
+          <p>{message}</p>
+        </Notice>
+      ) : null}
+      <dl className="mt-2">
+        <Row term="File">
+          {image.fileName} · {image.width} × {image.height} px · {formatBytes(image.sizeBytes)}
+        </Row>
+        <Row term="Uploaded">
+          {formatDateTime(image.uploadedAt)}
+          {image.uploadedBy ? ` by ${image.uploadedBy}` : ''}
+        </Row>
+        <Row term="Camera">{camera || 'Not in the file'}</Row>
+        {image.exif.lens ? <Row term="Lens">{image.exif.lens}</Row> : null}
+        <Row term="Exposure">{exposure ?? 'Not in the file'}</Row>
+        {image.exif.capturedAt ? <Row term="Taken (EXIF)">{image.exif.capturedAt}</Row> : null}
+        {image.notes ? <Row term="Notes">{image.notes}</Row> : null}
+        <Row term="SHA-256">
+          <code className="mono text-xs select-all">{image.sha256}</code>
+        </Row>
+        <Row term="Fixity">
+          <FixityBadge result={image.lastFixity} />
+          {image.lastFixity ? <span className="ml-1 text-xs text-ink-700">checked {formatDateTime(image.lastFixity.checkedAt)}</span> : null}
+          {showChecks ? <FixityHistory image={image} /> : null}
+        </Row>
+      </dl>
+      <div className="mt-2 flex flex-wrap gap-2">
+        {image.urls.original ? (
+          <a href={image.urls.original} download className="text-sm">
+            Download the original
+          </a>
+        ) : null}
+        {staff ? (
+          <Button size="sm" variant="quiet" onClick={() => setShowChecks((s) => !s)} aria-expanded={showChecks}>
+            {showChecks ? 'Hide fixity checks' : 'Show fixity checks'}
+          </Button>
+        ) : null}
+        {can(role, 'fixity.manage') && !image.withdrawn ? (
+          <Button
+            size="sm"
+            disabled={check.isPending}
+            onClick={() =>
+              check.mutate(
+                { id: image.id, printId: image.printId },
+                { onSuccess: (r) => setMessage(r.ok ? 'Fixity checked: the file matches its SHA-256.' : `Fixity checked: ${r.outcome}.`) },
+              )
+            }
+          >
+            Check fixity now
+          </Button>
+        ) : null}
+        {mayWrite && !image.withdrawn && mode === 'view' ? (
+          <>
+            <Button size="sm" onClick={() => setMode('edit')}>
+              Edit details
+            </Button>
+            <Button size="sm" variant="quiet" onClick={() => setMode('withdraw')}>
+              Withdraw…
+            </Button>
+          </>
+        ) : null}
+      </div>
+      {check.isError ? <ErrorNotice error={check.error} title="The check did not run." /> : null}
+      {mode === 'edit' ? <EditImageForm image={image} onDone={() => setMode('view')} /> : null}
+      {mode === 'withdraw' ? (
+        <WithdrawForm image={image} onDone={() => setMode('view')} onWithdrawn={onWithdrawn} />
+      ) : null}
+    </section>
+  );
+}
