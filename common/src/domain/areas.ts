@@ -14,9 +14,9 @@ export interface Area {
 export const AREAS: Area[] = [
   { id: 'catalogue', label: 'Catalogue', path: '/catalogue', permission: 'catalogue.read', ready: true,
     summary: 'Print records with their process history, papers, bath recipes, locations and enclosures.' },
-  { id: 'condition', label: 'Condition', path: '/condition', permission: 'condition.read', ready: false,
+  { id: 'condition', label: 'Condition', path: '/condition', permission: 'condition.read', ready: true,
     summary: 'Signed condition reports, observations and images, with addenda instead of edits.' },
-  { id: 'measurements', label: 'Measurements', path: '/measurements', permission: 'measurements.read', ready: false,
+  { id: 'measurements', label: 'Measurements', path: '/measurements', permission: 'measurements.read', ready: true,
     summary: 'Colour and density at registered spots, ΔE00 against baseline, fading rates and projections.' },
   { id: 'schedule', label: 'Inspections', path: '/inspections', permission: 'schedule.read', ready: false,
     summary: 'Next-inspection dates from an explainable risk model; overdue and due-soon prints.' },
