@@ -1,0 +1,68 @@
+import { useMemo } from 'react';
+import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import type { MeasurementSession } from '@toneledger/common/schemas/measurements';
+import { DataTable } from '@/components/ui/data-table';
+import { formatDay, formatNumber } from '@/features/measurements/utils/format';
+
+const column = createColumnHelper<MeasurementSession>();
+const none = <span className="text-ink-600">—</span>;
+
+const sessionColumns = [
+  column.accessor('measuredOn', {
+    header: 'Date',
+    cell: (info) => (
+      <time dateTime={info.getValue()} className="whitespace-nowrap">
+        {formatDay(info.getValue())}
+      </time>
+    ),
+  }),
+  column.accessor('instrument', {
+    header: 'Instrument',
+    cell: (info) => (
+      <>
+        {info.getValue()}
+        {info.row.original.serial ? <span className="block text-xs text-ink-700">Serial {info.row.original.serial}</span> : null}
+      </>
+    ),
+  }),
+  column.accessor((s) => `${s.illuminant}/${s.observer}°`, { id: 'illuminant', header: 'Illuminant / observer' }),
+  column.accessor('geometry', {
+    header: 'Geometry',
+    cell: (info) => (
+      <>
+        {info.getValue()}
+        {info.row.original.aperture ? <span className="block text-xs text-ink-700">Aperture {info.row.original.aperture}</span> : null}
+        {info.row.original.backing ? <span className="block text-xs text-ink-700">Backing: {info.row.original.backing}</span> : null}
+      </>
+    ),
+  }),
+  column.accessor('condition', { header: 'Condition', cell: (info) => info.getValue() ?? none }),
+  column.accessor('measuredBy', { header: 'Measured by', cell: (info) => info.getValue() ?? none }),
+  column.display({
+    id: 'readings',
+    // a* and b* keep their lower case inside the upper-case header row.
+    header: () => <span className="normal-case">Readings: mean L* a* b*, n, sd</span>,
+    cell: (info) => (
+      <ul className="num flex flex-col gap-1">
+        {info.row.original.readings.map((r) => (
+          <li key={r.spotId} className="whitespace-nowrap">
+            <span className="font-medium">{r.spotName}</span>: {formatNumber(r.mean.L)} {formatNumber(r.mean.a)} {formatNumber(r.mean.b)}
+            <span className="text-ink-700">
+              {' '}
+              · n = {r.n}
+              {r.sd ? ` · sd ${formatNumber(r.sd.L)} / ${formatNumber(r.sd.a)} / ${formatNumber(r.sd.b)}` : ''}
+              {r.density !== null ? ` · D ${formatNumber(r.density)}${r.densityType === 'status_a' ? ' (Status A)' : r.densityType === 'visual' ? ' (visual)' : ''}` : ''}
+            </span>
+          </li>
+        ))}
+      </ul>
+    ),
+  }),
+];
+
+/** Every session at this print, newest first, with each spot's mean reading and spread. */
+export function SessionsTable({ sessions }: { sessions: MeasurementSession[] }) {
+  const data = useMemo(() => [...sessions].sort((a, b) => b.measuredOn.localeCompare(a.measuredOn)), [sessions]);
+  const table = useReactTable({ data, columns: sessionColumns, getRowId: (s) => s.id, getCoreRowModel: getCoreRowModel(), enableSorting: false });
+  return <DataTable table={table} caption="Measurement sessions at this print" empty="No sessions recorded yet." />;
+}

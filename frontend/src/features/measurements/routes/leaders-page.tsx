@@ -1,0 +1,56 @@
+import { can } from '@toneledger/common/domain/roles';
+import { leadersQuerySchema } from '@toneledger/common/schemas/measurements';
+import { ErrorNotice } from '@/components/ui/notice';
+import { Loading } from '@/components/ui/loading';
+import { PageHeader } from '@/components/ui/page-header';
+import { Pagination } from '@/components/ui/pagination';
+import { useMe } from '@/lib/auth';
+import { useSearchQuery } from '@/lib/search-query';
+import { useDocumentTitle } from '@/lib/use-document-title';
+import { useLeaders } from '@/features/measurements/api/get-leaders';
+import { LeadersFilters } from '@/features/measurements/components/leaders-filters';
+import { LeadersTable } from '@/features/measurements/components/leaders-table';
+import { PrintFinder } from '@/features/measurements/components/print-finder';
+import { ThresholdSetting } from '@/features/measurements/components/threshold-setting';
+
+/** The measurements area: open a print by accession number, or start from the spots changing most. */
+export function LeadersPage() {
+  useDocumentTitle('Measurements');
+  const me = useMe();
+  const [query, setQuery] = useSearchQuery(leadersQuerySchema);
+  const leaders = useLeaders(query);
+
+  return (
+    <section>
+      <PageHeader
+        title="Measurements"
+        description="Colour and density measured at registered spots on each print, the change against each spot's baseline, how fast it is changing and when it may become noticeable. The figures advise; decisions rest with the conservators."
+      />
+      <PrintFinder />
+      <h2 className="mb-2 text-lg">Spots changing most</h2>
+      <ThresholdSetting mayChange={can(me.role, 'settings.manage')} />
+      <LeadersFilters query={query} onChange={setQuery} />
+      {leaders.isError ? <ErrorNotice error={leaders.error} title="The list could not be loaded." /> : null}
+      {leaders.isPending ? (
+        <Loading label="Loading the spots…" />
+      ) : leaders.data ? (
+        <>
+          <LeadersTable
+            leaders={leaders.data.data}
+            query={query}
+            total={leaders.data.pagination.total}
+            busy={leaders.isPlaceholderData}
+            onSortChange={(sort) => setQuery({ sort })}
+          />
+          <Pagination
+            page={query.page}
+            pageSize={query.pageSize}
+            total={leaders.data.pagination.total}
+            onPageChange={(page) => setQuery({ page })}
+            onPageSizeChange={(pageSize) => setQuery({ pageSize })}
+          />
+        </>
+      ) : null}
+    </section>
+  );
+}
