@@ -34,7 +34,7 @@ beforeAll(async () => {
       headers: { 'content-type': 'application/json' },
       body: JSON.stringify({ accessionNumber: `2094.${s}.1`, title: `Lighthouse keeper's cottage ${s}`, process: 'gelatin_silver_developing_out' }),
     });
-    return (await res.json()).data.id as string;
+    return ((await res.json()) as { data: { id: string } }).data.id;
   }, stamp);
   await signInAs(page, 'conservator');
 });
@@ -71,7 +71,7 @@ describe('a conservator documents a print', () => {
     await first.getByRole('button', { name: 'Draw region' }).click();
     const surface = page.getByRole('application', { name: 'Draw on the image' });
     await surface.waitFor();
-    await expect.poll(() => surface.locator('img').evaluate((i) => (i as HTMLImageElement).complete && (i as HTMLImageElement).naturalWidth > 0)).toBe(true);
+    await expect.poll(() => surface.locator('img').evaluate((i) => { const img = i as unknown as { complete: boolean; naturalWidth: number }; return img.complete && img.naturalWidth > 0; })).toBe(true);
     await surface.scrollIntoViewIfNeeded();
     const box = (await surface.boundingBox())!;
     await page.mouse.move(box.x + box.width * 0.2, box.y + box.height * 0.25);
@@ -105,7 +105,7 @@ describe('a conservator documents a print', () => {
         headers: { 'content-type': 'application/json' },
         body: JSON.stringify({ version: 2, summary: 'changed after signing' }),
       });
-      return { status: res.status, body: await res.json() };
+      return { status: res.status, body: (await res.json()) as { error: { message: string } } };
     }, reportId);
     expect(attempt.status).toBe(409);
     expect(attempt.body.error.message).toMatch(/locked/);

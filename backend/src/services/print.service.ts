@@ -312,14 +312,14 @@ export function buildListSql(query: PrintListQuery, role: Role | null): ListSql 
   const order = SORT_SQL[query.sort] ?? SORT_SQL.accessionNumber;
   const limit = p(query.pageSize);
   const offset = p((query.page - 1) * query.pageSize);
+  // The page's ids first (an index-only walk to any depth), then only those rows are read and joined.
   const select = `SELECT p.id, p.accession_number, p.title, p.maker_name, p.date_made, p.date_display, p.process, p.support, p.status,
       p.toner_classes, p.paper_label, e.name AS enclosure_name, p.warning_codes, p.updated_at${restricted ? ', l.path_label AS location_label' : ''}
-    FROM prints p
+    FROM (SELECT p.id FROM prints p ${whereSql} ORDER BY ${order} LIMIT ${limit} OFFSET ${offset}) page
+    JOIN prints p ON p.id = page.id
     LEFT JOIN enclosure_types e ON e.id = p.enclosure_id
     ${restricted ? 'LEFT JOIN locations l ON l.id = p.location_id' : ''}
-    ${whereSql}
-    ORDER BY ${order}
-    LIMIT ${limit} OFFSET ${offset}`;
+    ORDER BY ${order}`;
   // Counting is exact up to a cap; past it the planner's estimate is used (and said to be one).
   const count = `SELECT count(*)::int AS total FROM (SELECT 1 FROM prints p ${whereSql} LIMIT ${EXACT_COUNT_CAP + 1}) capped`;
   const estimate = `EXPLAIN (FORMAT JSON) SELECT 1 FROM prints p ${whereSql}`;
