@@ -1,4 +1,4 @@
-import { spawn, execFileSync } from 'node:child_process';
+import { spawn, spawnSync, execFileSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { startLocalServices, ROOT } from './services';
 import { buildFrontend } from './frontend-build';
@@ -16,6 +16,15 @@ function ensureChromium() {
 
 const extra = process.argv.slice(2);
 let code = 1;
+if (extra.length === 0) {
+  // Types first: the whole project (server, client, browser tests) must compile.
+  log('Type-checking…');
+  const tc = spawnSync('npm', ['run', 'typecheck', '--silent'], { cwd: ROOT, stdio: 'inherit' });
+  if (tc.status !== 0) {
+    console.error('[test] Type errors: fix them first.');
+    process.exit(1);
+  }
+}
 ensureChromium();
 const services = await startLocalServices('test', log);
 let closeServer = async () => {};
