@@ -49,6 +49,12 @@ export interface ChangeChartProps {
 }
 
 /** ΔE00 against the baseline over time, with the noticeable-change threshold, the fitted trend and its projection. */
+/** A little room at both ends of the time axis, so the first and last sessions are not drawn on the axes. */
+export function padded([start, end]: [number, number]): [number, number] {
+  const pad = (end - start) * 0.03;
+  return [start - pad, end + pad];
+}
+
 export function ChangeChart({ data, threshold, label, describedBy }: ChangeChartProps) {
   const ticks = yearTicks(data.domain);
   return (
@@ -58,7 +64,7 @@ export function ChangeChart({ data, threshold, label, describedBy }: ChangeChart
         <XAxis
           type="number"
           dataKey="t"
-          domain={data.domain}
+          domain={padded(data.domain)}
           ticks={ticks}
           tickFormatter={yearOf}
           allowDataOverflow
@@ -131,7 +137,7 @@ export function DensityChart({ points, domain, label, describedBy }: { points: C
     <div role="img" aria-label={label} aria-describedby={describedBy} className="measure-chart w-full">
       <ComposedChart responsive style={{ width: '100%', height: 150 }} margin={CHART_MARGIN} accessibilityLayer={false}>
         <CartesianGrid stroke={GRID} />
-        <XAxis type="number" dataKey="t" domain={domain} ticks={yearTicks(domain)} tickFormatter={yearOf} allowDataOverflow stroke={INK} fontSize={12} />
+        <XAxis type="number" dataKey="t" domain={padded(domain)} ticks={yearTicks(domain)} tickFormatter={yearOf} allowDataOverflow stroke={INK} fontSize={12} />
         <YAxis
           type="number"
           dataKey="value"
