@@ -1,30 +1,13 @@
-import multer from 'multer';
-import type { NextFunction, Request, Response } from 'express';
 import { z } from 'zod';
 import { dataEnvelope } from '@toneledger/common/schemas/envelope';
 import { IMPORT_COLUMNS, idParamsSchema, importSchema } from '@toneledger/common/schemas/catalogue';
 import { route, type RouteDef } from '../../http/route';
 import { AppError, validationFailed } from '../../errors';
 import { idOf } from '../../middleware/request-id';
+import { singleUpload } from '../../middleware/single-upload';
 import { MAX_IMPORT_BYTES, commitImport, getImport, startImport } from '../../services/import.service';
 import { presentImport } from '../../presenters/catalogue.presenter';
 
-const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_IMPORT_BYTES, files: 1, fields: 5 } });
-
-/** multer's errors as envelope errors: too large → 413, anything else → 400. */
-function single(field: string) {
-  const handler = upload.single(field);
-  return (req: Request, res: Response, next: NextFunction) => {
-    if (!req.is('multipart/form-data')) return next(new AppError('unsupported_media_type', 415, 'Send the file as multipart/form-data in the field "file".'));
-    handler(req, res, (err: unknown) => {
-      if (!err) return next();
-      if (err instanceof multer.MulterError && err.code === 'LIMIT_FILE_SIZE') {
-        return next(new AppError('payload_too_large', 413, `The file is larger than ${MAX_IMPORT_BYTES / 1024 / 1024} MB.`));
-      }
-      next(validationFailed([{ path: 'file', message: (err as Error).message, code: 'upload' }]));
-    });
-  };
-}
 
 export function importsRoutes(): RouteDef[] {
   return [
@@ -39,7 +22,7 @@ export function importsRoutes(): RouteDef[] {
     }),
     route({
       method: 'post', path: '/api/imports', summary: 'Uploads a CSV of prints and starts checking every row (nothing is written yet)', tags: ['imports'],
-      access: 'catalogue.write', before: [single('file')], requestContentType: 'multipart/form-data', status: 202,
+      access: 'catalogue.write', before: [singleUpload('file', MAX_IMPORT_BYTES)], requestContentType: 'multipart/form-data', status: 202,
       response: { description: 'The import job, validating', schema: dataEnvelope(importSchema) },
       handler: async ({ req, user }) => {
         const file = req.file;

@@ -1,5 +1,3 @@
-import multer from 'multer';
-import type { NextFunction, Request, Response } from 'express';
 import { z } from 'zod';
 import { dataEnvelope, pageEnvelope } from '@toneledger/common/schemas/envelope';
 import { idParamsSchema } from '@toneledger/common/schemas/catalogue';
@@ -10,6 +8,7 @@ import {
 import { route, type RouteDef } from '../../http/route';
 import { AppError, validationFailed } from '../../errors';
 import { idOf } from '../../middleware/request-id';
+import { singleUpload } from '../../middleware/single-upload';
 import {
   MAX_CSV_BYTES, chooseBaseline, createSpot, getMeasurementSettings, listLeaders, previewCsv, printMeasurements, putMeasurementSettings,
   recordSession, updateSpot,
@@ -17,22 +16,6 @@ import {
 
 const spotEnvelope = dataEnvelope(spotSchema);
 
-const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_CSV_BYTES, files: 1, fields: 5 } });
-
-/** multer's errors as envelope errors: too large → 413, anything else → 400. */
-function single(field: string) {
-  const handler = upload.single(field);
-  return (req: Request, res: Response, next: NextFunction) => {
-    if (!req.is('multipart/form-data')) return next(new AppError('unsupported_media_type', 415, 'Send the file as multipart/form-data in the field "file".'));
-    handler(req, res, (err: unknown) => {
-      if (!err) return next();
-      if (err instanceof multer.MulterError && err.code === 'LIMIT_FILE_SIZE') {
-        return next(new AppError('payload_too_large', 413, `The file is larger than ${MAX_CSV_BYTES / 1024 / 1024} MB.`));
-      }
-      next(validationFailed([{ path: 'file', message: (err as Error).message, code: 'upload' }]));
-    });
-  };
-}
 
 /** The multipart text field `mapping`: JSON per csvMappingSchema, problems named by their path inside it. */
 const previewFieldsSchema = z.object({
@@ -101,7 +84,7 @@ export function measurementsRoutes(): RouteDef[] {
       method: 'post', path: '/api/prints/:id/measurement-sessions/csv-preview',
       summary: "Reads an instrument's CSV (field file, ≤ 5 MB; optional field mapping as JSON) and shows the readings by spot and every problem by row and column; writes nothing",
       tags: ['measurements'],
-      access: 'measurements.write', params: idParamsSchema, before: [single('file')], requestContentType: 'multipart/form-data', body: previewFieldsSchema,
+      access: 'measurements.write', params: idParamsSchema, before: [singleUpload('file', MAX_CSV_BYTES)], requestContentType: 'multipart/form-data', body: previewFieldsSchema,
       response: { description: 'The preview', schema: dataEnvelope(csvPreviewSchema) },
       handler: async ({ params, body, req }) => {
         const file = req.file;

@@ -18,8 +18,3 @@ export const importKeys = {
   detail: (id: string) => [...importKeys.details(), id] as const,
 };
 
-/** Query keys for the `settings` resource; the catalogue reads only its own section. */
-export const settingsKeys = {
-  all: ['settings'] as const,
-  catalogue: () => [...settingsKeys.all, 'catalogue'] as const,
-};

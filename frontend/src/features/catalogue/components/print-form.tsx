@@ -10,7 +10,7 @@ import { ErrorNotice, Notice } from '@/components/ui/notice';
 import { TextAreaField } from '@/components/ui/text-area-field';
 import { isApiError } from '@/lib/api-client';
 import { useEnclosures, useLocations, useMakers, usePapers } from '@/lib/reference-api';
-import { useCatalogueSettings } from '@/features/catalogue/api/get-catalogue-settings';
+import { useCatalogueSettings } from '@/lib/settings-api';
 import { useCreatePrint } from '@/features/catalogue/api/create-print';
 import { useUpdatePrint } from '@/features/catalogue/api/update-print';
 import { StaleEditNotice } from '@/features/catalogue/components/stale-edit-notice';

@@ -20,7 +20,6 @@ export const termKeys = {
 export const settingsKeys = {
   all: ['settings'] as const,
   condition: () => [...settingsKeys.all, 'condition'] as const,
-  catalogue: () => [...settingsKeys.all, 'catalogue'] as const,
 };
 
 export interface ImageListQuery {

@@ -7,7 +7,7 @@ import { Notice } from '@/components/ui/notice';
 import { PrintArea } from '@/components/ui/print-area';
 import { useMe } from '@/lib/auth';
 import { useDocumentTitle } from '@/lib/use-document-title';
-import { useCatalogueSettings } from '@/features/condition/api/get-catalogue-settings';
+import { useCatalogueSettings } from '@/lib/settings-api';
 import { useGradeDefinitions } from '@/features/condition/api/get-condition-settings';
 import { useConditionTerms } from '@/features/condition/api/get-condition-terms';
 import { useImages } from '@/features/condition/api/get-images';

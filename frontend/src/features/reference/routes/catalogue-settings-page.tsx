@@ -4,7 +4,7 @@ import { ErrorNotice } from '@/components/ui/notice';
 import { PageHeader } from '@/components/ui/page-header';
 import { useMe } from '@/lib/auth';
 import { useDocumentTitle } from '@/lib/use-document-title';
-import { useCatalogueSettings } from '@/features/reference/api/get-catalogue-settings';
+import { useCatalogueSettings } from '@/lib/settings-api';
 import { CatalogueSettingsForm } from '@/features/reference/components/catalogue-settings-form';
 
 export function CatalogueSettingsPage() {

@@ -1,0 +1,22 @@
+import multer from 'multer';
+import type { NextFunction, Request, Response } from 'express';
+import { AppError, validationFailed } from '../errors';
+
+/**
+ * One small file in memory from a multipart field (CSV imports and previews), with multer's errors
+ * turned into the envelope: not multipart → 415, too large → 413, anything else → 400 on `file`.
+ * Large files (images) stream to disk instead: see services/image-ingest.ts.
+ */
+export function singleUpload(field: string, maxBytes: number) {
+  const handler = multer({ storage: multer.memoryStorage(), limits: { fileSize: maxBytes, files: 1, fields: 5 } }).single(field);
+  return (req: Request, res: Response, next: NextFunction) => {
+    if (!req.is('multipart/form-data')) return next(new AppError('unsupported_media_type', 415, `Send the file as multipart/form-data in the field "${field}".`));
+    handler(req, res, (err: unknown) => {
+      if (!err) return next();
+      if (err instanceof multer.MulterError && err.code === 'LIMIT_FILE_SIZE') {
+        return next(new AppError('payload_too_large', 413, `The file is larger than ${Math.round(maxBytes / 1024 / 1024)} MB.`));
+      }
+      next(validationFailed([{ path: field, message: (err as Error).message, code: 'upload' }]));
+    });
+  };
+}
