@@ -14,7 +14,7 @@ const { startServer } = await import('../backend/src/server');
 const { db } = await import('../backend/src/db');
 const { seedDemoIfEmpty } = await import('../backend/src/seed/demo');
 const running = await startServer({ migrate: true });
-await seedDemoIfEmpty(db());
+await seedDemoIfEmpty(db(), { store: running.deps.store });
 log(`API on ${running.url}`);
 
 const vite = spawn(`${ROOT}/node_modules/.bin/vite`, ['--port', String(vitePort), '--strictPort'], { cwd: `${ROOT}/frontend`, stdio: 'inherit', env: process.env });

@@ -37,7 +37,7 @@ try {
   closeServer = running.close;
   if (!production) {
     const { seedDemoIfEmpty } = await import('../backend/src/seed/demo');
-    if (await seedDemoIfEmpty(db())) log(`Seeded the demo collection of the ${DEMO_INSTITUTION}.`);
+    if (await seedDemoIfEmpty(db(), { store: running.deps.store })) log(`Seeded the demo collection of the ${DEMO_INSTITUTION}.`);
   }
   const url = process.env.PUBLIC_URL ?? running.url;
   console.log('');

@@ -6,10 +6,13 @@ import { migrateUp } from './migrate';
 import { db } from './db';
 import { startQueue } from './jobs/queue';
 import { startWorkers } from './jobs/workers';
+import type { AppDeps } from './deps';
 
 export interface RunningServer {
   url: string;
   server: Server;
+  /** The collaborators the app was built from (the demo seed stores its photographs in `deps.store`). */
+  deps: AppDeps;
   close(): Promise<void>;
 }
 
@@ -37,6 +40,7 @@ export async function startServer(options: { migrate?: boolean } = {}): Promise<
   return {
     url: `http://${e.HOST}:${port}`,
     server,
+    deps,
     close: async () => {
       await new Promise<void>((resolve) => {
         server.close(() => resolve());

@@ -1,9 +1,12 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
+import type { ObjectStore } from '@toneledger/storage/object-store';
 import { env } from '../config/env';
 import { User } from '../models';
 import { recordAudit } from '../services/audit.service';
 import { DEMO_ACCOUNTS } from './demo-accounts';
 import { seedDemoCatalogue } from './demo-catalogue';
+import { seedDemoCondition } from './demo-condition';
+import { seedDemoMeasurements } from './demo-measurements';
 
 export interface SeedDemoOptions {
   /**
@@ -11,12 +14,20 @@ export interface SeedDemoOptions {
    * only in development: the shared test database keeps an empty catalogue for the API tests.
    */
   catalogue?: boolean;
+  /**
+   * Also build the demo condition histories (reports and photographs) and measurement histories
+   * when those tables are empty. Follows `catalogue` by default (development only).
+   */
+  histories?: boolean;
+  /** Where the demo photographs go (the running server's object store); without it, no condition histories are seeded. */
+  store?: ObjectStore;
   log?: (m: string) => void;
 }
 
 /**
  * Seeds the invented demo users when the database holds none yet, then (in development) the demo
- * catalogue when it holds no catalogue records. Returns whether anything was seeded.
+ * catalogue when it holds no catalogue records, then condition and measurement histories for
+ * part of it when those are empty. Returns whether anything was seeded.
  */
 export async function seedDemoIfEmpty(sequelize: Sequelize, options: SeedDemoOptions = {}): Promise<boolean> {
   const seededUsers = await sequelize.transaction(async (t) => {
@@ -30,9 +41,13 @@ export async function seedDemoIfEmpty(sequelize: Sequelize, options: SeedDemoOpt
     }
     return true;
   });
-  if (!(options.catalogue ?? env().NODE_ENV === 'development')) return seededUsers;
-  const seededCatalogue = await seedCatalogueIfEmpty(sequelize, options.log ?? ((m) => console.log(`[toneledger] ${m}`)));
-  return seededUsers || seededCatalogue;
+  const catalogue = options.catalogue ?? env().NODE_ENV === 'development';
+  if (!catalogue) return seededUsers;
+  const log = options.log ?? ((m: string) => console.log(`[toneledger] ${m}`));
+  const seededCatalogue = await seedCatalogueIfEmpty(sequelize, log);
+  if (!(options.histories ?? catalogue)) return seededUsers || seededCatalogue;
+  const seededHistories = await seedHistoriesIfEmpty(sequelize, options.store ?? null, log);
+  return seededUsers || seededCatalogue || seededHistories;
 }
 
 /**
@@ -55,6 +70,50 @@ async function seedCatalogueIfEmpty(sequelize: Sequelize, log: (m: string) => vo
     log('Seeding the demo catalogue (about 300 prints; takes a few seconds)…');
     await seedDemoCatalogue({ id: user?.id ?? null, name: user?.name ?? registrar.name }, log);
     return true;
+  } finally {
+    await lock.commit();
+  }
+}
+
+/**
+ * Condition reports with photographs, then measurements, each only when its tables are empty
+ * (and there is a catalogue to describe). Like the catalogue, they run through the services,
+ * signed in as the demo conservator, under an advisory lock held by a transaction of their own.
+ */
+async function seedHistoriesIfEmpty(sequelize: Sequelize, store: ObjectStore | null, log: (m: string) => void): Promise<boolean> {
+  const lock = await sequelize.transaction();
+  try {
+    await sequelize.query('SELECT pg_advisory_xact_lock(727003)', { transaction: lock });
+    const [counts] = await sequelize.query<{ prints: number; condition: number; measurements: number }>(
+      `SELECT (SELECT count(*) FROM prints)::int AS prints,
+              ((SELECT count(*) FROM condition_reports) + (SELECT count(*) FROM images))::int AS condition,
+              ((SELECT count(*) FROM measurement_spots) + (SELECT count(*) FROM measurement_sessions))::int AS measurements`,
+      { type: QueryTypes.SELECT, transaction: lock },
+    );
+    if (counts.prints === 0 || (counts.condition > 0 && counts.measurements > 0)) return false;
+    const conservator = DEMO_ACCOUNTS.find((a) => a.role === 'conservator')!;
+    const user = await User.findOne({ where: { email: conservator.email }, transaction: lock });
+    if (!user) {
+      log('No demo conservator account: the demo condition and measurement histories were not seeded.');
+      return false;
+    }
+    const actor = { id: user.id, name: user.name ?? conservator.name };
+    let seeded = false;
+    if (counts.condition === 0) {
+      if (store) {
+        log('Seeding demo condition histories with photographs (about 40 prints; takes under a minute)…');
+        await seedDemoCondition(store, actor, log);
+        seeded = true;
+      } else {
+        log('No object store given: the demo condition histories and photographs were not seeded.');
+      }
+    }
+    if (counts.measurements === 0) {
+      log('Seeding demo measurement histories (about 60 prints)…');
+      await seedDemoMeasurements(actor, log);
+      seeded = true;
+    }
+    return seeded;
   } finally {
     await lock.commit();
   }
