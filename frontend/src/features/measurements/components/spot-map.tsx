@@ -59,7 +59,7 @@ export function SpotMap({ image, marks, onPlace }: SpotMapProps) {
           {marks.map((mark) => {
             const cx = mark.x * w;
             const cy = mark.y * h;
-            const anchorEnd = mark.x > 0.7;
+            const anchorEnd = mark.x > 0.55; // labels are long: right of centre, they go to the left of the dot
             return (
               <g key={mark.id}>
                 <circle cx={cx} cy={cy} r={r * (mark.active ? 1.3 : 1)} fill={mark.active ? '#9a2b1d' : '#102a44'} stroke="#fff" strokeWidth={r * 0.35} />
