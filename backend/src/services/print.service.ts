@@ -244,12 +244,11 @@ const SORT_SQL: Record<string, string> = {
   '-accessionNumber': 'p.accession_sort DESC',
   title: 'lower(p.title) ASC, p.accession_sort ASC',
   '-title': 'lower(p.title) DESC, p.accession_sort DESC',
-  // Descending orders are exact mirrors of the ascending ones (unknown values last going up,
-  // first going down), so one index serves both directions.
+  // Unknown makers and dates go last in both directions (each direction has its own index).
   maker: 'p.maker_name ASC NULLS LAST, p.accession_sort ASC',
-  '-maker': 'p.maker_name DESC NULLS FIRST, p.accession_sort DESC',
+  '-maker': 'p.maker_name DESC NULLS LAST, p.accession_sort DESC',
   dateMade: 'p.date_earliest ASC NULLS LAST, p.accession_sort ASC',
-  '-dateMade': 'p.date_earliest DESC NULLS FIRST, p.accession_sort DESC',
+  '-dateMade': 'p.date_earliest DESC NULLS LAST, p.accession_sort DESC',
   status: 'p.status ASC, p.accession_sort ASC',
   '-status': 'p.status DESC, p.accession_sort DESC',
   updatedAt: 'p.updated_at ASC, p.id ASC',
