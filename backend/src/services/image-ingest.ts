@@ -85,8 +85,12 @@ export async function readExif(file: string): Promise<ExifSummary> {
   };
 }
 
-/** Decodes the whole image (small output) so truncation and pixel bombs fail here. */
-export async function inspectImage(file: string): Promise<{ width: number; height: number }> {
+/**
+ * Decodes the whole image, so truncation and pixel bombs fail here. The decode has to happen anyway,
+ * so when `screen` is given it renders the screen-size WebP copy on the way (the thumbnail is left to
+ * the background job); otherwise it decodes to a tiny image.
+ */
+export async function inspectImage(file: string, screen?: { path: string; size: number }): Promise<{ width: number; height: number }> {
   const options = { limitInputPixels: MAX_IMAGE_PIXELS, failOn: 'truncated' as const };
   let meta: Metadata;
   try {
@@ -102,7 +106,11 @@ export async function inspectImage(file: string): Promise<{ width: number; heigh
     throw new AppError('payload_too_large', 413, `The image declares ${meta.width} × ${meta.height} pixels, more than the limit of ${MAX_IMAGE_PIXELS / 1e6} million.`);
   }
   try {
-    await sharp(file, options).resize(32, 32, { fit: 'inside' }).raw().toBuffer();
+    if (screen) {
+      await sharp(file, options).rotate().resize(screen.size, screen.size, { fit: 'inside', withoutEnlargement: true }).webp({ quality: 82 }).toFile(screen.path);
+    } else {
+      await sharp(file, options).resize(32, 32, { fit: 'inside' }).raw().toBuffer();
+    }
   } catch {
     throw validationFailed([{ path: 'file', message: 'The image is damaged or incomplete (it could not be decoded to the end).', code: 'corrupt' }], 'The image is damaged or incomplete.');
   }

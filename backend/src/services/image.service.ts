@@ -1,5 +1,5 @@
 import { createReadStream } from 'node:fs';
-import { mkdtemp, rm } from 'node:fs/promises';
+import { mkdtemp, rm, stat } from 'node:fs/promises';
 import { randomUUID } from 'node:crypto';
 import os from 'node:os';
 import path from 'node:path';
@@ -78,10 +78,12 @@ export async function storeImage(
   if (!print) throw notFound('The print');
   const id = randomUUID();
   const key = keyFor(printId, id, 'original');
-  // Storing and the full decode check run side by side; whichever fails, nothing is kept.
+  // Storing and the full decode check (which renders the screen copy) run side by side; whichever fails, nothing is kept.
+  const screenPath = path.join(file.tempDir, 'screen.webp');
+  const screenKey = keyFor(printId, id, 'screen');
   const [put, inspected, exif] = await Promise.allSettled([
     deps.store.put(key, createReadStream(file.path), { contentType: file.contentType, contentLength: file.sizeBytes }),
-    inspectImage(file.path),
+    inspectImage(file.path, { path: screenPath, size: DERIVATIVES.screen }),
     readExif(file.path),
   ]);
   if (inspected.status === 'rejected') {
@@ -89,6 +91,13 @@ export async function storeImage(
     throw inspected.reason;
   }
   if (put.status === 'rejected') throw serviceUnavailable('Image storage is not available; nothing was saved. Try again shortly.');
+  try {
+    const { size } = await stat(screenPath);
+    await deps.store.put(screenKey, createReadStream(screenPath), { contentType: 'image/webp', contentLength: size });
+  } catch {
+    await deps.store.delete(key).catch(() => {});
+    throw serviceUnavailable('Image storage is not available; nothing was saved. Try again shortly.');
+  }
   const { width, height } = inspected.value;
   const exifSummary: ExifSummary = exif.status === 'fulfilled' ? exif.value : { capturedAt: null, make: null, model: null, lens: null, exposureTime: null, fNumber: null, iso: null, focalLength: null };
   let image: Image;
@@ -98,7 +107,7 @@ export async function storeImage(
         {
           id, printId, viewType: fields.viewType, capturedOn: fields.capturedOn ?? (exifSummary.capturedAt ? exifSummary.capturedAt.slice(0, 10) : null),
           notes: fields.notes ?? null, fileName: file.originalName, contentType: file.contentType, sizeBytes: file.sizeBytes,
-          width, height, sha256: file.sha256, originalKey: key, thumbKey: null, screenKey: null,
+          width, height, sha256: file.sha256, originalKey: key, thumbKey: null, screenKey,
           exif: exifSummary as unknown as Record<string, unknown>, uploadedBy: actor.id, uploadedByName: actor.name,
           withdrawnAt: null, withdrawnByName: null, withdrawnReason: null, purgeAfter: null, purgedAt: null,
         },
@@ -112,6 +121,7 @@ export async function storeImage(
     });
   } catch (err) {
     await deps.store.delete(key).catch(() => {});
+    await deps.store.delete(screenKey).catch(() => {});
     throw err;
   }
   if (deps.queue) await deps.queue.send(QUEUES.derivatives, { imageId: id });
@@ -119,10 +129,25 @@ export async function storeImage(
   return image;
 }
 
-/** Thumbnail and screen-size WebP derivatives, made from the stored original. */
-export async function makeDerivatives(store: ObjectStore, imageId: string): Promise<void> {
+/**
+ * The display copies. An upload already stored the screen copy (made by its decode check), so the
+ * job makes the thumbnail from it; without one (or to remake both) it decodes the original.
+ */
+export async function makeDerivatives(store: ObjectStore, imageId: string, options: { remake?: boolean } = {}): Promise<void> {
   const image = await Image.findByPk(imageId);
   if (!image || image.purgedAt) return;
+  if (image.screenKey && !options.remake) {
+    try {
+      const chunks: Buffer[] = [];
+      for await (const chunk of await store.get(image.screenKey)) chunks.push(chunk as Buffer);
+      const thumb = await sharp(Buffer.concat(chunks)).resize(DERIVATIVES.thumb, DERIVATIVES.thumb, { fit: 'inside', withoutEnlargement: true }).webp({ quality: 70 }).toBuffer();
+      await store.put(keyFor(image.printId, image.id, 'thumb'), thumb, { contentType: 'image/webp', contentLength: thumb.length });
+      await image.update({ thumbKey: keyFor(image.printId, image.id, 'thumb'), derivatives: 'ready' });
+      return;
+    } catch {
+      // The screen copy is missing or unreadable: make both from the original below.
+    }
+  }
   const dir = await mkdtemp(path.join(os.tmpdir(), 'toneledger-derive-'));
   try {
     const local = path.join(dir, 'original');
