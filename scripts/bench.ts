@@ -210,6 +210,15 @@ try {
     console.log(`|${widths.map((w, i) => (i === 0 || i === widths.length - 1 ? ` ${'-'.repeat(w)} ` : ` ${'-'.repeat(w - 1)}: `)).join('|')}|`);
     for (const r of rows) console.log(line(r.cells));
     console.log('');
+    // The fixed cost of any signed-in request (HTTP on loopback, session row, user row, JSON), measured on GET /api/me.
+    const fixed: number[] = [];
+    for (let i = 0; i < RUNS + WARMUP; i++) {
+      const t0 = performance.now();
+      const res = await fetch(`${base}/api/me`, { headers: { cookie } });
+      await res.json();
+      if (i >= WARMUP) fixed.push(performance.now() - t0);
+    }
+    console.log(`Fixed cost of a signed-in request (GET /api/me): median ${median(fixed).toFixed(1)} ms, p95 ${quantile(fixed, 0.95).toFixed(1)} ms.`);
     console.log('API = GET /api/prints over HTTP incl. session lookup and JSON; SQL = the same select + count in parallel; ');
     console.log(`check = in-process cost of the response-contract check the app runs outside production (included in API).`);
 

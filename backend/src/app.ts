@@ -102,7 +102,7 @@ export function buildApp(deps: AppDeps, logger: Logger): Express {
   app.use(express.json({ limit: '1mb' }));
   app.use(sameOriginWrites([env.PUBLIC_URL, ...env.ALLOWED_ORIGINS]));
   app.use(sessionMiddleware(env, deps.pool));
-  app.use(loadUser(env));
+  app.use(loadUser(env, deps.pool));
 
   const router = express.Router();
   mount(router, allRoutes(deps), { checkResponses: env.NODE_ENV !== 'production' });

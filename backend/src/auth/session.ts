@@ -3,7 +3,6 @@ import connectPgSimple from 'connect-pg-simple';
 import pg from 'pg';
 import type { NextFunction, Request, Response } from 'express';
 import type { Env } from '../config/env';
-import { User } from '../models';
 import type { CurrentUser } from './current-user';
 
 declare module 'express-session' {
@@ -61,8 +60,8 @@ export function sessionExpiresAt(req: Request, e: Env): Date {
   return new Date(Math.min(idle, absolute));
 }
 
-/** Puts the signed-in user on the request, with the role read fresh from the database. */
-export function loadUser(e: Env) {
+/** Puts the signed-in user on the request, with the role read fresh from the database (one indexed read). */
+export function loadUser(e: Env, pool: pg.Pool) {
   return async (req: Request, _res: Response, next: NextFunction) => {
     req.user = null;
     const s = req.session;
@@ -71,8 +70,8 @@ export function loadUser(e: Env) {
       await new Promise<void>((resolve) => s.destroy(() => resolve()));
       return next();
     }
-    const user = await User.findByPk(s.userId);
-    if (user) req.user = { id: user.id, name: user.name, email: user.email, role: user.role };
+    const { rows } = await pool.query<CurrentUser>('SELECT id, name, email, role FROM users WHERE id = $1', [s.userId]);
+    if (rows[0]) req.user = rows[0];
     next();
   };
 }
