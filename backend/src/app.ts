@@ -64,7 +64,16 @@ export function buildApp(deps: AppDeps, logger: Logger): Express {
   app.set('query parser', 'extended');
 
   app.use(requestId);
-  app.use(pinoHttp({ logger, genReqId: (req) => idOf(req as express.Request), autoLogging: { ignore: (req) => req.url === '/api/health' || Boolean(req.url?.startsWith('/assets/')) } }));
+  app.use(
+    pinoHttp({
+      logger,
+      genReqId: (req) => idOf(req as express.Request),
+      autoLogging: { ignore: (req) => req.url === '/api/health' || Boolean(req.url?.startsWith('/assets/')) },
+      // Every request is logged in production; on a developer's terminal only refusals and failures.
+      customLogLevel: (_req, res, err) =>
+        err || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : env.NODE_ENV === 'production' ? 'info' : 'debug',
+    }),
+  );
 
   const issuerOrigin = new URL(env.OIDC_ISSUER).origin;
   app.use(
