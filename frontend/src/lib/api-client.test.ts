@@ -30,6 +30,17 @@ describe('requestData / requestPage', () => {
     expect(fetchMock.mock.calls[0]?.[1]?.credentials).toBe('same-origin');
   });
 
+  it('sends a FormData body as it is, leaving the multipart content type to the browser', async () => {
+    const { fetchMock } = mockFetch({ 'POST /api/imports': () => json({ data: { id: 'job1' } }, 202) });
+    const form = new FormData();
+    form.append('file', new Blob(['accession_number\n'], { type: 'text/csv' }), 'prints.csv');
+    const data = await requestData<{ id: string }>('/api/imports', { method: 'POST', body: form });
+    expect(data).toEqual({ id: 'job1' });
+    const init = fetchMock.mock.calls[0]?.[1];
+    expect(init?.body).toBe(form);
+    expect((init?.headers as Record<string, string>)['content-type']).toBeUndefined();
+  });
+
   it('sends no content-type and no body on a GET', async () => {
     const { requests } = mockFetch({ 'GET /api/health': () => json({ data: { status: 'ok' } }) });
     await requestData('/api/health');

@@ -60,6 +60,7 @@ export function toQueryString(query: Record<string, QueryValue> | undefined): st
 export interface RequestOptions {
   method?: 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
   query?: Record<string, QueryValue>;
+  /** Sent as JSON, or as multipart/form-data when it is a FormData (file uploads). */
   body?: unknown;
   signal?: AbortSignal;
 }
@@ -97,14 +98,16 @@ async function readJson(response: Response): Promise<unknown> {
 export async function apiRequest<T>(path: string, options: RequestOptions = {}): Promise<T> {
   const { method = 'GET', query, body, signal } = options;
   const headers: Record<string, string> = { accept: 'application/json' };
-  if (body !== undefined) headers['content-type'] = 'application/json';
+  const isForm = typeof FormData !== 'undefined' && body instanceof FormData;
+  // The browser sets a multipart content type, with its boundary, for a FormData body.
+  if (body !== undefined && !isForm) headers['content-type'] = 'application/json';
 
   let response: Response;
   try {
     response = await fetch(`${path}${toQueryString(query)}`, {
       method,
       headers,
-      body: body === undefined ? undefined : JSON.stringify(body),
+      body: body === undefined ? undefined : isForm ? (body as FormData) : JSON.stringify(body),
       credentials: 'same-origin',
       signal,
     });

@@ -1,74 +1,24 @@
 import type { PrintField, StaleChange } from '@/features/catalogue/utils/print-form';
-import { Button } from '@/components/ui/button';
-import { formatDateTime } from '@/lib/format';
+import { StaleEditNotice as Notice } from '@/components/ui/stale-edit-notice';
 
 export interface StaleEditNoticeProps {
   changes: StaleChange[];
   lastChangedBy: string | null;
   lastChangedAt: string | null;
   currentVersion: number;
-  /** How the person's own value of a field reads. */
   describeMine: (field: PrintField) => string;
   onReapply: () => void;
   onDiscard: () => void;
 }
 
-const blank = (value: string) => (value === '' ? <span className="text-ink-600">empty</span> : value);
-
-/**
- * Someone saved the print while this form was open. Shows what they changed since the form was
- * opened, next to what this person typed, and lets them put their edits on top of the current version.
- */
-export function StaleEditNotice({ changes, lastChangedBy, lastChangedAt, currentVersion, describeMine, onReapply, onDiscard }: StaleEditNoticeProps) {
-  const who = lastChangedBy ?? 'Someone';
-  const when = lastChangedAt ? ` on ${formatDateTime(lastChangedAt)}` : '';
+/** Someone saved the print while this form was open. */
+export function StaleEditNotice(props: StaleEditNoticeProps) {
   return (
-    <section role="alert" aria-label="Changed since you opened it" className="rounded border border-sepia-200 bg-sepia-50 p-4 text-sm text-ink-900">
-      <h2 className="font-sans text-base font-semibold text-sepia-800">Not saved: this print was changed while you were editing</h2>
-      <p className="mt-1">
-        {who} saved it{when} (now version {currentVersion}). Your edits are still in the form; nothing has been overwritten.
-      </p>
-      {changes.length > 0 ? (
-        <table className="mt-3 w-full border-collapse bg-white text-left text-sm">
-          <caption className="mb-1 text-left font-semibold">Fields changed since you opened the form</caption>
-          <thead className="bg-paper-100 text-xs text-ink-700 uppercase">
-            <tr>
-              <th scope="col" className="px-2 py-1.5">Field</th>
-              <th scope="col" className="px-2 py-1.5">When you opened it</th>
-              <th scope="col" className="px-2 py-1.5">Now</th>
-              <th scope="col" className="px-2 py-1.5">Your edit</th>
-            </tr>
-          </thead>
-          <tbody>
-            {changes.map((c) => (
-              <tr key={c.field} className="border-t border-paper-200 align-top">
-                <th scope="row" className="px-2 py-1.5 font-medium">
-                  {c.label}
-                </th>
-                <td className="px-2 py-1.5">{blank(c.opened)}</td>
-                <td className="px-2 py-1.5">{blank(c.now)}</td>
-                <td className="px-2 py-1.5">
-                  {c.alsoChangedByYou ? (
-                    <>
-                      <strong className="font-semibold text-danger-700">You changed this too:</strong> {blank(describeMine(c.field))}
-                    </>
-                  ) : (
-                    <span className="text-ink-700">Not changed by you; the current value will be kept</span>
-                  )}
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      ) : (
-        <p className="mt-2">None of the fields in this form changed (the process history or location may have).</p>
-      )}
-      <div className="mt-3 flex flex-wrap gap-2">
-        <Button variant="primary" onClick={onReapply}>
-          Re-apply my changes to the current version
-        </Button>
-        <Button onClick={onDiscard}>Discard my changes and load the current version</Button>
-      </div>
-    </section>
+    <Notice<PrintField>
+      subject="this print"
+      caption="Fields changed since you opened the form"
+      noChanges="None of the fields in this form changed (the process history or location may have)."
+      {...props}
+    />
   );
 }
