@@ -19,31 +19,24 @@ const AREA_PAGES: Record<string, PageLoader> = {
   mail: () => import('@/features/dev-mail/routes/mail-page').then((m) => m.MailPage),
 };
 
-function areaRoute(area: Area): RouteObject {
-  return {
-    path: area.path,
-    lazy: async () => {
-      const load = AREA_PAGES[area.id];
-      if (load) {
-        const Page = await load();
-        return {
-          Component: () => (
-            <RequireArea area={area}>
-              <Page />
-            </RequireArea>
-          ),
-        };
-      }
-      const { AreaPendingPage } = await import('@/app/routes/area-pending-page');
-      return {
-        Component: () => (
-          <RequireArea area={area}>
-            <AreaPendingPage area={area} />
-          </RequireArea>
-        ),
-      };
-    },
+/** A lazily loaded screen shown only to roles that may use the area (the server enforces it anyway). */
+function inArea(area: Area, load: PageLoader) {
+  return async () => {
+    const Page = await load();
+    return {
+      Component: () => (
+        <RequireArea area={area}>
+          <Page />
+        </RequireArea>
+      ),
+    };
   };
+}
+
+function areaRoute(area: Area): RouteObject {
+  const pending: PageLoader = () =>
+    import('@/app/routes/area-pending-page').then(({ AreaPendingPage }) => () => <AreaPendingPage area={area} />);
+  return { path: area.path, lazy: inArea(area, AREA_PAGES[area.id] ?? pending) };
 }
 
 /** A lazily loaded page inside an area, shown only to roles with `guard.permission` when given. */
@@ -70,16 +63,7 @@ const WRITE = 'catalogue.write' satisfies Permission;
 function catalogueRoute(area: Area): RouteObject {
   return {
     path: area.path,
-    lazy: async () => {
-      const { CatalogueLayout } = await import('@/features/catalogue/routes/catalogue-layout');
-      return {
-        Component: () => (
-          <RequireArea area={area}>
-            <CatalogueLayout />
-          </RequireArea>
-        ),
-      };
-    },
+    lazy: inArea(area, () => import('@/features/catalogue/routes/catalogue-layout').then((m) => m.CatalogueLayout)),
     children: [
       { index: true, lazy: page(() => import('@/features/catalogue/routes/prints-page').then((m) => m.PrintsPage)) },
       {
@@ -144,19 +128,7 @@ function conditionRoute(area: Area): RouteObject {
   return {
     path: area.path,
     children: [
-      {
-        index: true,
-        lazy: async () => {
-          const Page = await import('@/features/condition/routes/condition-index-page').then((m) => m.ConditionIndexPage);
-          return {
-            Component: () => (
-              <RequireArea area={area}>
-                <Page />
-              </RequireArea>
-            ),
-          };
-        },
-      },
+      { index: true, lazy: inArea(area, () => import('@/features/condition/routes/condition-index-page').then((m) => m.ConditionIndexPage)) },
       {
         path: 'prints/:id',
         lazy: page(() => import('@/features/condition/routes/condition-print-page').then((m) => m.ConditionPrintPage), {
@@ -198,19 +170,7 @@ function measurementsRoute(area: Area): RouteObject {
   return {
     path: area.path,
     children: [
-      {
-        index: true,
-        lazy: async () => {
-          const Page = await import('@/features/measurements/routes/leaders-page').then((m) => m.LeadersPage);
-          return {
-            Component: () => (
-              <RequireArea area={area}>
-                <Page />
-              </RequireArea>
-            ),
-          };
-        },
-      },
+      { index: true, lazy: inArea(area, () => import('@/features/measurements/routes/leaders-page').then((m) => m.LeadersPage)) },
       {
         path: 'prints/:id',
         lazy: page(() => import('@/features/measurements/routes/print-measurements-page').then((m) => m.PrintMeasurementsPage), {

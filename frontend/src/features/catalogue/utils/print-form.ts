@@ -1,6 +1,10 @@
 import { printInputSchema, type Print, type PrintInput, type PrintUpdate } from '@toneledger/common/schemas/catalogue';
 import { LIGHT_RESPONSIVITY, PROCESS, STATUS, SUPPORT } from '@toneledger/common/schemas/vocab';
 import { formatDimensions } from '@/features/catalogue/utils/format';
+import { issuesToErrors, type Checked, type FieldErrors } from '@/lib/form-errors';
+
+export { serverIssuesToErrors } from '@/lib/form-errors';
+export type { Checked, FieldErrors };
 
 /** The fields of a print that the form edits (location is set on create, and moved afterwards). */
 export const PRINT_FIELDS = [
@@ -12,7 +16,6 @@ export type PrintField = (typeof PRINT_FIELDS)[number];
 
 /** What the form holds: every field as the text in its control. */
 export type PrintFormValues = Record<PrintField | 'locationId', string>;
-export type FieldErrors = Partial<Record<string, string>>;
 
 export const FIELD_LABELS: Record<PrintField | 'locationId', string> = {
   accessionNumber: 'Accession number',
@@ -91,17 +94,6 @@ function raw(values: PrintFormValues, fields: readonly string[]): Record<string,
 
 const editSchema = printInputSchema.omit({ locationId: true });
 
-export type Checked<T> = { ok: true; data: T } | { ok: false; errors: FieldErrors };
-
-function issuesToErrors(issues: { path: PropertyKey[]; message: string }[]): FieldErrors {
-  const errors: FieldErrors = {};
-  for (const issue of issues) {
-    const path = issue.path.map(String).join('.') || 'form';
-    errors[path] ??= issue.message;
-  }
-  return errors;
-}
-
 /** The create form checked with the same schema the server uses. */
 export function checkCreate(values: PrintFormValues): Checked<PrintInput> {
   const result = printInputSchema.safeParse(raw(values, [...PRINT_FIELDS, 'locationId']));
@@ -124,20 +116,6 @@ export function checkUpdate(base: PrintFormValues, values: PrintFormValues, vers
   const parsed = result.data as Record<string, unknown>;
   for (const field of changedFields(base, values)) update[field] = parsed[field] ?? null;
   return { ok: true, data: update as PrintUpdate };
-}
-
-/** A server error's field issues as form errors (paths such as `accessionNumber` or `dateMade`). */
-export function serverIssuesToErrors(details: unknown): FieldErrors {
-  if (!Array.isArray(details)) return {};
-  const errors: FieldErrors = {};
-  for (const item of details) {
-    if (typeof item !== 'object' || item === null) continue;
-    const { path, message } = item as { path?: unknown; message?: unknown };
-    if (typeof message !== 'string') continue;
-    const key = typeof path === 'string' && path !== '' ? path : 'form';
-    errors[key] ??= message;
-  }
-  return errors;
 }
 
 /** How a field of a saved record reads to a person (names and labels, not ids and codes). */

@@ -10,6 +10,10 @@ import {
 } from '@toneledger/common/schemas/condition';
 import type { ReportUpdate } from '@/features/condition/api/save-report';
 import { formatDay } from '@/features/condition/utils/format';
+import { issuesToErrors, type Checked, type FieldErrors } from '@/lib/form-errors';
+
+export { serverIssuesToErrors } from '@/lib/form-errors';
+export type { Checked, FieldErrors };
 
 /** One observation as the form holds it; `key` only keeps React rows stable while reordering. */
 export interface ObservationDraft {
@@ -36,7 +40,6 @@ export interface ReportFormValues {
 
 export const REPORT_FIELDS = ['examinedOn', 'context', 'grade', 'summary', 'recommendations', 'nextCheckOn', 'observations'] as const;
 export type ReportField = (typeof REPORT_FIELDS)[number];
-export type FieldErrors = Partial<Record<string, string>>;
 
 export const FIELD_LABELS: Record<ReportField, string> = {
   examinedOn: 'Examined on',
@@ -131,17 +134,6 @@ export function changedFields(base: ReportFormValues, values: ReportFormValues):
   return REPORT_FIELDS.filter((field) => comparable(base, field) !== comparable(values, field));
 }
 
-export type Checked<T> = { ok: true; data: T } | { ok: false; errors: FieldErrors };
-
-function issuesToErrors(issues: { path: PropertyKey[]; message: string }[]): FieldErrors {
-  const errors: FieldErrors = {};
-  for (const issue of issues) {
-    const path = issue.path.map(String).join('.') || 'form';
-    errors[path] ??= issue.message;
-  }
-  return errors;
-}
-
 /** The whole form checked with the schema the server uses. */
 export function checkReport(values: ReportFormValues): Checked<ReportInput> {
   const result = reportInputSchema.safeParse(raw(values));
@@ -156,20 +148,6 @@ export function checkUpdate(base: ReportFormValues, values: ReportFormValues, ve
   const parsed = checked.data as Record<string, unknown>;
   for (const field of changedFields(base, values)) update[field] = parsed[field] ?? null;
   return { ok: true, data: update as ReportUpdate };
-}
-
-/** A server error's field issues (paths such as `grade` or `observations.2.termCode`) as form errors. */
-export function serverIssuesToErrors(details: unknown): FieldErrors {
-  if (!Array.isArray(details)) return {};
-  const errors: FieldErrors = {};
-  for (const item of details) {
-    if (typeof item !== 'object' || item === null) continue;
-    const { path, message } = item as { path?: unknown; message?: unknown };
-    if (typeof message !== 'string') continue;
-    const key = typeof path === 'string' && path !== '' ? path : 'form';
-    errors[key] ??= message;
-  }
-  return errors;
 }
 
 /** A readable label for an error's path: "Observation 3 · Observed". */
