@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { parseDuration } from '../domain/duration';
 import { pageQuerySchema } from './envelope';
 import {
   INGREDIENT_UNIT, LIGHT_RESPONSIVITY, LOCATION_KIND, PAPER_BASE, PAT_RESULT, PROCESS, STATUS, STEP_TYPE, SUPPORT,
@@ -132,7 +133,17 @@ export const referenceListQuerySchema = pageQuerySchema.extend({
 });
 
 // ── Process steps ────────────────────────────────────────────────────────────
-const seconds = z.preprocess((v) => (v === '' ? null : v), z.coerce.number({ message: 'Enter seconds' }).int('Whole seconds').min(0).max(7 * 24 * 3600).nullable()).optional();
+/** A step's time: seconds, or text as m:ss (`1:30`) or whole seconds (`90`); empty text is none. */
+const seconds = z
+  .preprocess(
+    (v) => {
+      if (typeof v !== 'string') return v;
+      const read = parseDuration(v);
+      return read === undefined ? v : read;
+    },
+    z.number({ message: 'Enter a time as m:ss or seconds, e.g. 1:30 or 90' }).int('Whole seconds').min(0).max(7 * 24 * 3600, 'At most a week (10080:00)').nullable(),
+  )
+  .optional();
 const celsius = z.preprocess((v) => (v === '' ? null : v), z.coerce.number({ message: 'Enter °C' }).min(-10).max(100).nullable()).optional();
 export const processStepInputSchema = z
   .object({

@@ -1,4 +1,6 @@
 import { z } from 'zod';
+// The product's words for zod's default messages, installed for every schema on both sides.
+import './messages';
 
 export const ERROR_CODES = [
   'validation_failed', 'unauthenticated', 'forbidden', 'not_found', 'conflict',
