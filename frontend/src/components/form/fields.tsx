@@ -1,0 +1,118 @@
+import type { InputHTMLAttributes, ReactNode, SelectHTMLAttributes, TextareaHTMLAttributes } from 'react';
+import { useController, useFormContext, useFormState, get } from 'react-hook-form';
+import { SelectField, TextField } from '@/components/ui/field';
+import { TextAreaField } from '@/components/ui/text-area-field';
+import { useFieldSetup } from '@/components/form/form-context';
+
+interface Common {
+  /** The field's path in the form (and, unless the form says otherwise, in the contract). */
+  name: string;
+  label: string;
+  hint?: string;
+  fieldClassName?: string;
+}
+
+type Native<T> = Omit<T, 'name' | 'value' | 'defaultValue' | 'onChange' | 'onBlur' | 'id' | 'form'>;
+
+export interface TextInputProps extends Common, Native<InputHTMLAttributes<HTMLInputElement>> {
+  /** Rewrites what is typed as it is typed (e.g. upper case for a currency code). */
+  transform?: (text: string) => string;
+}
+
+/** A text box bound to a schema form: label, hint or error below, and the contract's length limit. */
+export function TextInput({ name, label, hint, fieldClassName, transform, ...rest }: TextInputProps) {
+  const { id, limits } = useFieldSetup(name);
+  const { field, fieldState } = useController({ name });
+  return (
+    <TextField
+      id={id}
+      label={label}
+      hint={hint}
+      error={fieldState.error?.message}
+      fieldClassName={fieldClassName}
+      maxLength={limits.maxLength}
+      {...rest}
+      name={field.name}
+      value={(field.value as string | null | undefined) ?? ''}
+      onChange={(event) => field.onChange(transform ? transform(event.target.value) : event.target.value)}
+      onBlur={field.onBlur}
+    />
+  );
+}
+
+/** A number typed as text (the schema reads it): decimal keyboard, figures aligned. */
+export function NumberInput({ className = '', ...props }: TextInputProps) {
+  return <TextInput inputMode="decimal" className={`num ${className}`} autoComplete="off" {...props} />;
+}
+
+/** A calendar date, as YYYY-MM-DD. */
+export function DateInput(props: TextInputProps) {
+  return <TextInput type="date" {...props} />;
+}
+
+export interface TextAreaInputProps extends Common, Native<TextareaHTMLAttributes<HTMLTextAreaElement>> {}
+
+/** Multi-line text bound to a schema form, with the contract's length limit. */
+export function TextAreaInput({ name, label, hint, fieldClassName, ...rest }: TextAreaInputProps) {
+  const { id, limits } = useFieldSetup(name);
+  const { field, fieldState } = useController({ name });
+  return (
+    <TextAreaField
+      id={id}
+      label={label}
+      hint={hint}
+      error={fieldState.error?.message}
+      fieldClassName={fieldClassName}
+      maxLength={limits.maxLength}
+      {...rest}
+      name={field.name}
+      value={(field.value as string | null | undefined) ?? ''}
+      onChange={(event) => field.onChange(event.target.value)}
+      onBlur={field.onBlur}
+    />
+  );
+}
+
+export interface SelectInputProps extends Common, Native<SelectHTMLAttributes<HTMLSelectElement>> {
+  /** The choices; an empty choice (when the field may be left empty) is given as a child or `empty`. */
+  options?: readonly { value: string; label: string }[];
+  /** The label of the empty choice ('' in the form), e.g. "Not recorded" or "Choose…". */
+  empty?: string;
+  children?: ReactNode;
+}
+
+/** A choice bound to a schema form. Controlled, so a value whose option loads later still shows. */
+export function SelectInput({ name, label, hint, fieldClassName, options, empty, children, ...rest }: SelectInputProps) {
+  const { id } = useFieldSetup(name);
+  const { field, fieldState } = useController({ name });
+  return (
+    <SelectField
+      id={id}
+      label={label}
+      hint={hint}
+      error={fieldState.error?.message}
+      fieldClassName={fieldClassName}
+      {...rest}
+      name={field.name}
+      value={(field.value as string | null | undefined) ?? ''}
+      onChange={(event) => field.onChange(event.target.value)}
+      onBlur={field.onBlur}
+    >
+      {empty !== undefined ? <option value="">{empty}</option> : null}
+      {options?.map((o) => (
+        <option key={o.value} value={o.value}>
+          {o.label}
+        </option>
+      ))}
+      {children}
+    </SelectField>
+  );
+}
+
+/** The message of a field or of a list (a list's own problem is kept as its `root`), for custom controls. */
+export function useFieldError(name: string): string | undefined {
+  const { control } = useFormContext();
+  const { errors } = useFormState({ control, name });
+  const node = get(errors, name) as { message?: string; root?: { message?: string } } | undefined;
+  return node?.message ?? node?.root?.message;
+}
