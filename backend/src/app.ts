@@ -9,7 +9,7 @@ import { requestId, idOf } from './middleware/request-id';
 import { sameOriginWrites } from './middleware/same-origin';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { loadUser, sessionMiddleware } from './auth/session';
-import { mount, route, type RouteDef } from './http/route';
+import { mount, type RouteDef } from './http/route';
 import { openApiDocument } from './http/openapi';
 import { authRoutes } from './routes/auth/auth.routes';
 import { meRoutes } from './routes/me/me.routes';
@@ -28,7 +28,7 @@ import { measurementsRoutes } from './routes/measurements/measurements.routes';
 /** Every route the app serves, in one list: Express mounts it and OpenAPI describes it. */
 export function allRoutes(deps: AppDeps): RouteDef[] {
   const routes: RouteDef[] = [
-    ...systemRoutes(deps),
+    ...systemRoutes(deps, () => openApiDocument(routes, deps.version)),
     ...authRoutes(deps),
     ...meRoutes(deps),
     ...usersRoutes(),
@@ -42,17 +42,6 @@ export function allRoutes(deps: AppDeps): RouteDef[] {
     ...conditionRoutes(),
     ...measurementsRoutes(),
   ];
-  routes.push(
-    route({
-      method: 'get',
-      path: '/api/openapi.json',
-      summary: 'This document',
-      tags: ['system'],
-      access: 'public',
-      response: { description: 'OpenAPI 3.1 description of every route' },
-      handler: () => openApiDocument(routes, deps.version),
-    }),
-  );
   return routes;
 }
 

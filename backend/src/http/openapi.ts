@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { errorEnvelopeSchema } from '@toneledger/common/schemas/envelope';
+import type { Endpoint } from '@toneledger/common/api/endpoint';
 import type { RouteDef } from './route';
 
 type Json = Record<string, unknown>;
@@ -10,11 +11,13 @@ function schemaOf(s: z.ZodType, io: 'input' | 'output'): Json {
   return out;
 }
 
-function parametersOf(def: RouteDef): Json[] {
+function parametersOf(def: Endpoint): Json[] {
   const params: Json[] = [];
+  // Path parameters carry the types of the params schema (a uuid, a code), not a bare string.
+  const pathProps = def.params ? ((schemaOf(def.params, 'input').properties ?? {}) as Record<string, Json>) : {};
   for (const name of def.path.match(/:([A-Za-z0-9_]+)/g) ?? []) {
     const key = name.slice(1);
-    params.push({ name: key, in: 'path', required: true, schema: { type: 'string' } });
+    params.push({ name: key, in: 'path', required: true, schema: pathProps[key] ?? { type: 'string' } });
   }
   if (def.query) {
     const json = schemaOf(def.query, 'input');
@@ -31,12 +34,16 @@ function parametersOf(def: RouteDef): Json[] {
 export function openApiDocument(defs: RouteDef[], version: string): Json {
   const paths: Record<string, Json> = {};
   const error = { content: { 'application/json': { schema: { $ref: '#/components/schemas/ErrorEnvelope' } } } };
-  for (const def of defs) {
+  for (const { endpoint: def } of defs) {
     const path = def.path.replace(/:([A-Za-z0-9_]+)/g, '{$1}');
     const responses: Record<string, Json> = {
       [String(def.status ?? 200)]: {
-        description: def.response?.description ?? 'Success',
-        ...(def.response?.schema ? { content: { [def.response.contentType ?? 'application/json']: { schema: schemaOf(def.response.schema, 'output') } } } : {}),
+        description: def.response.description,
+        ...(def.response.schema
+          ? { content: { [def.response.contentType ?? 'application/json']: { schema: schemaOf(def.response.schema, 'output') } } }
+          : def.response.contentType
+            ? { content: { [def.response.contentType]: { schema: { type: 'string' } } } }
+            : {}),
       },
     };
     if (def.params || def.query || def.body) responses['400'] = { description: 'validation_failed', ...error };

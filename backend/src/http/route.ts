@@ -1,54 +1,50 @@
 import type { Request, RequestHandler, Response, Router } from 'express';
-import { z } from 'zod';
-import { can, type Permission } from '@toneledger/common/domain/roles';
+import type { z } from 'zod';
+import { can } from '@toneledger/common/domain/roles';
+import type {
+  Access, BodyOut, Contract, Endpoint, ParamsOut, QueryOut, ResponseIn,
+} from '@toneledger/common/api/endpoint';
 import { forbidden, unauthenticated, validationFailed, AppError } from '../errors';
 import type { CurrentUser } from '../auth/current-user';
+import { idOf } from '../middleware/request-id';
 
-/** Who may call a route: anyone, any signed-in user, or holders of one permission. */
-export type Access = 'public' | 'signed_in' | Permission;
+export type { Access };
 
-type AnyObject = z.ZodType<Record<string, unknown>>;
-
-export interface RouteResponse {
-  description: string;
-  schema?: z.ZodType;
-  contentType?: string;
-}
-
-export interface RouteInput<P, Q, B> {
-  params: P;
-  query: Q;
-  body: B;
-  user: CurrentUser | null;
+/** What a handler gets: parsed inputs, the signed-in user (never null unless the endpoint is public), the request id. */
+export interface HandlerInput<E extends Endpoint> {
+  params: ParamsOut<E>;
+  query: QueryOut<E>;
+  body: BodyOut<E>;
+  actor: E['access'] extends 'public' ? CurrentUser | null : CurrentUser;
+  requestId: string;
   req: Request;
   res: Response;
 }
 
-export interface RouteDef<P = any, Q = any, B = any> {
-  method: 'get' | 'post' | 'put' | 'patch' | 'delete';
-  path: string;
-  summary: string;
-  tags: string[];
-  access: Access;
-  params?: z.ZodType<P>;
-  query?: z.ZodType<Q>;
-  body?: z.ZodType<B>;
-  /** The success status and its body schema; other statuses are added from the access rule and inputs. */
-  status?: number;
-  response?: RouteResponse;
-  /** Express middleware run after the access check and before validation (e.g. multer for uploads). */
-  before?: RequestHandler[];
-  /** Request body types other than JSON, for the OpenAPI document. */
-  requestContentType?: string;
-  /** Returns the body to send as JSON with `status`; return undefined when the handler answered itself. */
-  handler: (input: RouteInput<P, Q, B>) => Promise<unknown> | unknown;
+/**
+ * Implements one endpoint. The return value is checked against the response schema at compile time;
+ * an endpoint without a schema (a file download, a redirect) answers through `res` and returns nothing.
+ */
+export type Handler<E extends Endpoint> = (input: HandlerInput<E>) => Promise<ResponseIn<E>> | ResponseIn<E>;
+
+export type Implementation<E extends Endpoint> =
+  | Handler<E>
+  | { /** Express middleware run after the access check and before validation (e.g. multer). */ before: RequestHandler[]; handler: Handler<E> };
+
+/** An endpoint with its implementation: what `mount()` serves and the OpenAPI document lists. */
+export interface RouteDef {
+  endpoint: Endpoint;
+  before: RequestHandler[];
+  handler: (input: HandlerInput<Endpoint>) => unknown;
 }
 
-/** Typed identity helper so each route file gets inference for its handler. */
-export function route<P = Record<string, never>, Q = Record<string, never>, B = undefined>(
-  def: RouteDef<P, Q, B>,
-): RouteDef<P, Q, B> {
-  return def;
+/** Implements every endpoint of a contract by name; a missing or extra name is a compile error. */
+export function implement<C extends Contract>(contract: C, handlers: { [K in keyof C]: Implementation<C[K]> }): RouteDef[] {
+  return Object.keys(contract).map((name) => {
+    const impl = handlers[name] as Implementation<Endpoint>;
+    const { before, handler } = typeof impl === 'function' ? { before: [], handler: impl } : impl;
+    return { endpoint: contract[name]!, before, handler: handler as RouteDef['handler'] };
+  });
 }
 
 function issues(error: z.ZodError, prefix: string) {
@@ -77,13 +73,12 @@ export interface MountOptions {
 }
 
 export function mount(router: Router, defs: RouteDef[], options: MountOptions): void {
-  for (const def of defs) {
+  for (const { endpoint: def, before, handler } of defs) {
     const access: RequestHandler = (req, _res, next) => {
       checkAccess(def.access, req.user ?? null);
       next();
     };
-    router[def.method](def.path, access, ...(def.before ?? []), async (req: Request, res: Response) => {
-      const user = req.user ?? null;
+    router[def.method](def.path, access, ...before, async (req: Request, res: Response) => {
       const parts = [
         ['params', def.params],
         ['query', def.query],
@@ -101,18 +96,20 @@ export function mount(router: Router, defs: RouteDef[], options: MountOptions): 
         const nf = found.find((i) => i.path.startsWith('params'));
         throw validationFailed(found, nf ? nf.message : 'The request has invalid fields.');
       }
-      const result = await def.handler({
+      const result = await handler({
         params: req.params as never,
         query: req.query as never,
         body: req.body as never,
-        user,
+        actor: (req.user ?? null) as never,
+        requestId: idOf(req),
         req,
         res,
       });
       if (res.headersSent || result === undefined) return;
-      if (options.checkResponses && def.response?.schema) {
+      if (options.checkResponses && def.response.schema) {
         const check = def.response.schema.safeParse(result);
         if (!check.success) {
+          req.log?.error({ endpoint: `${def.method.toUpperCase()} ${def.path}`, issues: check.error.issues }, 'response did not match its contract');
           throw new AppError('internal_error', 500, 'Response did not match its contract.', undefined);
         }
       }
@@ -120,5 +117,3 @@ export function mount(router: Router, defs: RouteDef[], options: MountOptions): 
     });
   }
 }
-
-export type { AnyObject };

@@ -20,3 +20,14 @@ export function singleUpload(field: string, maxBytes: number) {
     });
   };
 }
+
+/** The file `singleUpload` kept on the request, as UTF-8 text (400 when missing; 415 when it is not UTF-8 text). */
+export function uploadedText(req: Request, saveAsHint: string): { name: string; text: string } {
+  const file = req.file;
+  if (!file) throw validationFailed([{ path: 'file', message: 'Choose a CSV file', code: 'required' }]);
+  const text = new TextDecoder('utf-8', { fatal: false }).decode(file.buffer);
+  if (text.includes('\u0000') || text.includes('\uFFFD')) {
+    throw new AppError('unsupported_media_type', 415, `The file is not UTF-8 text. ${saveAsHint}`);
+  }
+  return { name: file.originalname.slice(0, 200), text };
+}

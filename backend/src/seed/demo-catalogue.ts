@@ -705,10 +705,10 @@ export async function seedDemoCatalogue(actor: SeedActor, log: (m: string) => vo
   const planned = planPrints(r, ids, options.prints ?? 300);
   let done = 0;
   await inPool(planned, options.concurrency ?? 4, async (p) => {
-    const created = await createPrint(p.input, actor, requestId);
+    const created = await createPrint(p.input, who, requestId);
     let version = created.version;
     if (p.steps.length) version = (await replaceSteps(created.id, { version, steps: p.steps }, who, requestId)).version;
-    if (p.move && ids.locations.get(p.move.to) !== created.locationId) {
+    if (p.move && ids.locations.get(p.move.to) !== created.location?.id) {
       await movePrint(created.id, { toLocationId: ids.locations.get(p.move.to)!, reason: p.move.reason, version }, who, requestId);
     }
     done += 1;

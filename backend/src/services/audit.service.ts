@@ -2,6 +2,7 @@ import type { Transaction } from 'sequelize';
 import { AuditEventModel } from '../models';
 import type { AuditListQuery } from '@toneledger/common/schemas/audit';
 import type { WhereOptions } from 'sequelize';
+import { presentAuditEvent } from '../presenters/audit.presenter';
 
 export interface AuditActor {
   id: string | null;
@@ -52,6 +53,6 @@ export async function listAudit(query: AuditListQuery) {
     limit: query.pageSize,
     offset: (query.page - 1) * query.pageSize,
   });
-  return { rows, total: count };
+  return { rows: rows.map(presentAuditEvent), total: count };
 }
 

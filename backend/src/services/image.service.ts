@@ -10,6 +10,7 @@ import { Op, QueryTypes } from 'sequelize';
 import type { ObjectStore } from '@toneledger/storage/object-store';
 import { can, type Role } from '@toneledger/common/domain/roles';
 import type { PrintImage, FixityResult } from '@toneledger/common/schemas/images';
+import { env } from '../config/env';
 import { db } from '../db';
 import { FixityCheck, Image, ImageAlignment, Print } from '../models';
 import { AppError, notFound, serviceUnavailable, validationFailed } from '../errors';
@@ -18,9 +19,6 @@ import { staleEdit } from './versioning';
 import { MAX_IMAGE_PIXELS, inspectImage, readExif, sha256Of, type ExifSummary, type ReceivedFile } from './image-ingest';
 import type { JobQueue } from '../jobs/queue';
 import { QUEUES } from '../jobs/queue';
-
-/** Days a withdrawn image's files are kept before the purge job removes them. */
-export const RETENTION_DAYS = Number(process.env.IMAGE_RETENTION_DAYS ?? 90);
 
 export const DERIVATIVES = { thumb: 320, screen: 1600 } as const;
 
@@ -214,13 +212,22 @@ export async function updateImage(id: string, body: { viewType?: string; capture
   });
 }
 
-/** Withdrawing keeps the files for the retention period; the purge job removes them later, and says so in the audit trail. */
-export async function withdrawImage(id: string, body: { reason: string; version: number }, actor: AuditActor & { role: Role }, requestId: string | null) {
+/**
+ * Withdrawing keeps the files for the retention period (`retentionDays`, env IMAGE_RETENTION_DAYS);
+ * the purge job removes them later, and says so in the audit trail.
+ */
+export async function withdrawImage(
+  id: string,
+  body: { reason: string; version: number },
+  actor: AuditActor & { role: Role },
+  requestId: string | null,
+  retentionDays: number = env().IMAGE_RETENTION_DAYS,
+) {
   return db().transaction(async (t) => {
     const row = await Image.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
     if (!row || row.withdrawnAt) throw notFound('The image');
     if (row.version !== body.version) throw await staleEdit('image', id, presentImage(row, actor.role, null), t);
-    const purgeAfter = new Date(Date.now() + RETENTION_DAYS * 86_400_000);
+    const purgeAfter = new Date(Date.now() + retentionDays * 86_400_000);
     await row.update({ withdrawnAt: new Date(), withdrawnByName: actor.name, withdrawnReason: body.reason, purgeAfter, version: row.version + 1 }, { transaction: t });
     await recordAudit({ actor, action: 'image.withdrawn', entityType: 'image', entityId: id, after: { printId: row.printId, reason: body.reason, purgeAfter: purgeAfter.toISOString(), sha256: row.sha256 }, requestId }, t);
     return presentImage(row, actor.role, null);
@@ -280,12 +287,13 @@ export async function fixityAlerts() {
   });
 }
 
-export async function purgeWithdrawn(store: ObjectStore): Promise<number> {
+/** Purges the files of images withdrawn longer ago than their retention; `retentionDays` is recorded in the audit trail. */
+export async function purgeWithdrawn(store: ObjectStore, retentionDays: number): Promise<number> {
   const due = await Image.findAll({ where: { purgedAt: null, purgeAfter: { [Op.lt]: new Date() } } });
   for (const image of due) {
     for (const key of [image.originalKey, image.thumbKey, image.screenKey]) if (key) await store.delete(key);
     await image.update({ purgedAt: new Date() });
-    await recordAudit({ actor: null, action: 'image.purged', entityType: 'image', entityId: image.id, before: { sha256: image.sha256, printId: image.printId }, after: { purgedAfterRetentionDays: RETENTION_DAYS }, requestId: 'purge' });
+    await recordAudit({ actor: null, action: 'image.purged', entityType: 'image', entityId: image.id, before: { sha256: image.sha256, printId: image.printId }, after: { purgedAfterRetentionDays: retentionDays }, requestId: 'purge' });
   }
   return due.length;
 }
@@ -306,4 +314,28 @@ export async function getAlignment(baseImageId: string, otherImageId: string) {
     id: row.id, baseImageId, otherImageId, offsetX: row.offsetX, offsetY: row.offsetY, scale: row.scale, rotationDeg: row.rotationDeg,
     savedBy: row.savedByName, savedAt: row.savedAt.toISOString(),
   };
+}
+
+/** A stored upload as the uploader sees it. */
+export async function uploadImage(...args: Parameters<typeof storeImage>): Promise<PrintImage> {
+  const actor = args[4] as AuditActor & { role: Role };
+  return presentImage(await storeImage(...args), actor.role, null);
+}
+
+/** One image as the given role may see it. */
+export async function imageFor(id: string, role: Role | null): Promise<PrintImage> {
+  return (await getImage(id, role)).dto;
+}
+
+/** Every fixity check of one image, newest first. */
+export async function fixityHistory(id: string, role: Role | null): Promise<FixityResult[]> {
+  await getImage(id, role);
+  const rows = await FixityCheck.findAll({ where: { imageId: id }, order: [['checkedAt', 'DESC'], ['id', 'DESC']] });
+  return rows.map(presentFixity);
+}
+
+/** Checks one image now. */
+export async function checkFixityNow(store: ObjectStore, id: string, role: Role | null): Promise<FixityResult> {
+  const { row } = await getImage(id, role);
+  return presentFixity(await checkFixity(store, row));
 }

@@ -9,7 +9,7 @@ import { conflict, notFound, validationFailed } from '../errors';
 import { getCatalogueSettings } from './settings.service';
 import { recordAudit, type AuditActor } from './audit.service';
 import { accessionSortKey, deriveDate, warningsOf } from './print-derive';
-import { paperLabel } from '../presenters/catalogue.presenter';
+import { paperLabel, presentImport } from '../presenters/catalogue.presenter';
 
 /**
  * CSV import of prints, in two steps: validate every row and show the errors (nothing written),
@@ -278,13 +278,17 @@ export async function settleImports(): Promise<void> {
 export async function startImport(fileName: string, source: string, actor: AuditActor) {
   const job = await ImportJobModel.create({ fileName, source, status: 'validating', createdBy: actor.id, message: null, finishedAt: null });
   background(validateJob(job.id));
+  return presentImport(job);
+}
+
+async function findImport(id: string) {
+  const job = await ImportJobModel.findByPk(id, { attributes: { exclude: ['source'] } });
+  if (!job) throw notFound('The import');
   return job;
 }
 
 export async function getImport(id: string) {
-  const job = await ImportJobModel.findByPk(id, { attributes: { exclude: ['source'] } });
-  if (!job) throw notFound('The import');
-  return job;
+  return presentImport(await findImport(id));
 }
 
 export async function commitImport(id: string, actor: AuditActor, requestId: string | null) {

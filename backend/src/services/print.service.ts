@@ -1,10 +1,7 @@
 import { QueryTypes, type Transaction } from 'sequelize';
 import { checkAccession } from '@toneledger/common/domain/accession';
 import type { Role } from '@toneledger/common/domain/roles';
-import { can } from '@toneledger/common/domain/roles';
-import type {
-  PrintInput, PrintUpdate, PrintListQuery, PrintListItem, ProcessStepInput, HistoryEvent,
-} from '@toneledger/common/schemas/catalogue';
+import type { PrintInput, PrintUpdate, ProcessStepInput, HistoryEvent } from '@toneledger/common/schemas/catalogue';
 import { db } from '../db';
 import { AuditEventModel, BathRecipe, EnclosureType, Location, Maker, Movement, Paper, Print, ProcessStep } from '../models';
 import { conflict, notFound, validationFailed } from '../errors';
@@ -13,6 +10,14 @@ import { getCatalogueSettings } from './settings.service';
 import { changedFields, rethrowUnique, staleEdit } from './versioning';
 import { accessionSortKey, deriveDate, tonerClassesOf, warningsOf } from './print-derive';
 import { paperLabel, presentMovement, presentPrint, type LoadedPrint } from '../presenters/catalogue.presenter';
+
+/** Who acts, as every write service takes it: for the audit trail, and the role that decides what the answer shows. */
+export type Actor = AuditActor & { role: Role };
+
+/** One print as the given role may see it. */
+export async function getPrint(id: string, role: Role | null) {
+  return presentPrint(await loadPrint(id), role);
+}
 
 const INCLUDE = [
   { model: Maker, as: 'maker' },
@@ -77,7 +82,7 @@ async function storeWarnings(p: LoadedPrint, t: Transaction) {
   await Print.update({ warningCodes: codes, tonerClasses: toners }, { where: { id: p.id }, transaction: t, silent: true });
 }
 
-export async function createPrint(input: PrintInput, actor: AuditActor, requestId: string | null) {
+export async function createPrint(input: PrintInput, actor: Actor, requestId: string | null) {
   const accessionNumber = await checkAccessionNumber(input.accessionNumber);
   return db().transaction(async (t) => {
     await checkReferences(input, t);
@@ -95,7 +100,7 @@ export async function createPrint(input: PrintInput, actor: AuditActor, requestI
     const loaded = await loadPrint(print.id, t);
     await storeWarnings(loaded, t);
     await recordAudit({ actor, action: 'print.created', entityType: 'print', entityId: print.id, after: snapshot(loaded), requestId }, t);
-    return loadPrint(print.id, t);
+    return presentPrint(await loadPrint(print.id, t), actor.role);
   });
 }
 
@@ -107,7 +112,7 @@ async function lockForEdit(id: string, version: number, t: Transaction, role: Ro
   return loaded;
 }
 
-export async function updatePrint(id: string, update: PrintUpdate, actor: AuditActor & { role: Role }, requestId: string | null) {
+export async function updatePrint(id: string, update: PrintUpdate, actor: Actor, requestId: string | null) {
   const { version, ...changes } = update;
   const accessionNumber = changes.accessionNumber !== undefined ? await checkAccessionNumber(changes.accessionNumber) : undefined;
   return db().transaction(async (t) => {
@@ -124,11 +129,11 @@ export async function updatePrint(id: string, update: PrintUpdate, actor: AuditA
     const b = snapshot(before);
     const a = snapshot(after);
     if (changedFields(b, a).length) await recordAudit({ actor, action: 'print.updated', entityType: 'print', entityId: id, before: b, after: a, requestId }, t);
-    return loadPrint(id, t);
+    return presentPrint(await loadPrint(id, t), actor.role);
   });
 }
 
-export async function deletePrint(id: string, version: number, actor: AuditActor & { role: Role }, requestId: string | null) {
+export async function deletePrint(id: string, version: number, actor: Actor, requestId: string | null) {
   await db().transaction(async (t) => {
     const before = await lockForEdit(id, version, t, actor.role);
     const [kept] = await db().query<{ n: number }>(
@@ -162,7 +167,7 @@ function stepRow(printId: string, position: number, s: ProcessStepInput) {
   };
 }
 
-export async function replaceSteps(id: string, body: { version: number; steps: ProcessStepInput[] }, actor: AuditActor & { role: Role }, requestId: string | null) {
+export async function replaceSteps(id: string, body: { version: number; steps: ProcessStepInput[] }, actor: Actor, requestId: string | null) {
   return db().transaction(async (t) => {
     const before = await lockForEdit(id, body.version, t, actor.role);
     const recipeIds = [...new Set(body.steps.map((s) => s.recipeId).filter(Boolean))] as string[];
@@ -180,14 +185,14 @@ export async function replaceSteps(id: string, body: { version: number; steps: P
       { actor, action: 'print.steps_replaced', entityType: 'print', entityId: id, before: { steps: presentPrint(before, 'admin').steps }, after: { steps: presentPrint(after, 'admin').steps }, requestId },
       t,
     );
-    return loadPrint(id, t);
+    return presentPrint(await loadPrint(id, t), actor.role);
   });
 }
 
 export async function movePrint(
   id: string,
   body: { toLocationId: string; reason: string; movedAt?: string; version: number },
-  actor: AuditActor & { role: Role },
+  actor: Actor,
   requestId: string | null,
 ) {
   return db().transaction(async (t) => {
@@ -203,7 +208,7 @@ export async function movePrint(
       { actor, action: 'print.moved', entityType: 'print', entityId: id, before: { location: before.location?.pathLabel ?? null }, after: { location: to.pathLabel, reason: body.reason }, requestId },
       t,
     );
-    return loadPrint(id, t);
+    return presentPrint(await loadPrint(id, t), actor.role);
   });
 }
 
@@ -237,128 +242,9 @@ export async function printHistory(id: string): Promise<HistoryEvent[]> {
   });
 }
 
-// ── The list: one SQL statement, built here and run as is (the benchmark runs the same text) ──
+// ── The list: one SQL statement, built in print-list.service.ts (the benchmark runs the same text) ──
 
-const SORT_SQL: Record<string, string> = {
-  accessionNumber: 'p.accession_sort ASC',
-  '-accessionNumber': 'p.accession_sort DESC',
-  title: 'lower(p.title) ASC, p.accession_sort ASC',
-  '-title': 'lower(p.title) DESC, p.accession_sort DESC',
-  // Unknown makers and dates go last in both directions (each direction has its own index).
-  maker: 'p.maker_name ASC NULLS LAST, p.accession_sort ASC',
-  '-maker': 'p.maker_name DESC NULLS LAST, p.accession_sort DESC',
-  dateMade: 'p.date_earliest ASC NULLS LAST, p.accession_sort ASC',
-  '-dateMade': 'p.date_earliest DESC NULLS LAST, p.accession_sort DESC',
-  status: 'p.status ASC, p.accession_sort ASC',
-  '-status': 'p.status DESC, p.accession_sort DESC',
-  updatedAt: 'p.updated_at ASC, p.id ASC',
-  '-updatedAt': 'p.updated_at DESC, p.id DESC',
-};
-
-/** Words to a prefix tsquery: "iron blu" → iron & blu:* (only letters and digits survive). */
-export function toPrefixQuery(q: string): string | null {
-  const words = q.toLowerCase().match(/[\p{L}\p{N}]+/gu) ?? [];
-  if (!words.length) return null;
-  return words.map((w, i) => (i === words.length - 1 ? `${w}:*` : w)).join(' & ');
-}
-
-export interface ListSql {
-  where: string;
-  params: unknown[];
-  select: string;
-  count: string;
-  estimate: string;
-}
-
-/** Results up to this size are counted exactly; larger ones get the planner's estimate. */
-export const EXACT_COUNT_CAP = 10_000;
-
-export function buildListSql(query: PrintListQuery, role: Role | null): ListSql {
-  const params: unknown[] = [];
-  const p = (v: unknown) => {
-    params.push(v);
-    return `$${params.length}`;
-  };
-  const where: string[] = [];
-  for (const [key, col] of [
-    ['process', 'process'], ['support', 'support'], ['status', 'status'], ['lightResponsivity', 'light_responsivity'],
-    ['makerId', 'maker_id'], ['paperId', 'paper_id'], ['enclosureId', 'enclosure_id'],
-  ] as const) {
-    const v = query[key];
-    if (v) where.push(`p.${col} = ${p(v)}`);
-  }
-  if (query.tonerClass) where.push(`p.toner_classes @> ARRAY[${p(query.tonerClass)}]::text[]`);
-  if (query.hasWarnings === 'true') where.push(`p.warning_codes <> '{}'`);
-  if (query.hasWarnings === 'false') where.push(`p.warning_codes = '{}'`);
-  if (query.madeFrom) where.push(`p.date_latest >= make_date(${p(query.madeFrom)}, 1, 1)`);
-  if (query.madeTo) where.push(`p.date_earliest <= make_date(${p(query.madeTo)}, 12, 31)`);
-  const restricted = can(role, 'catalogue.read_restricted');
-  if (query.locationId && restricted) {
-    where.push(`p.location_id IN (WITH RECURSIVE sub AS (SELECT id FROM locations WHERE id = ${p(query.locationId)} UNION ALL SELECT l.id FROM locations l JOIN sub ON l.parent_id = sub.id) SELECT id FROM sub)`);
-  }
-  if (query.q) {
-    const tsq = toPrefixQuery(query.q);
-    const prefix = `${query.q.trim().toLowerCase().replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-    const parts = [`lower(p.accession_number) LIKE ${p(prefix)}`];
-    if (tsq) {
-      const ref = p(tsq);
-      parts.push(`p.search @@ to_tsquery('simple', ${ref})`);
-      if (restricted) parts.push(`p.search_notes @@ to_tsquery('simple', ${ref})`);
-    }
-    where.push(`(${parts.join(' OR ')})`);
-  }
-  const whereSql = where.length ? `WHERE ${where.join(' AND ')}` : '';
-  const order = SORT_SQL[query.sort] ?? SORT_SQL.accessionNumber;
-  const limit = p(query.pageSize);
-  const offset = p((query.page - 1) * query.pageSize);
-  // The page's ids first (an index-only walk to any depth), then only those rows are read and joined.
-  const select = `SELECT p.id, p.accession_number, p.title, p.maker_name, p.date_made, p.date_display, p.process, p.support, p.status,
-      p.toner_classes, p.paper_label, e.name AS enclosure_name, p.warning_codes, p.updated_at${restricted ? ', l.path_label AS location_label' : ''}
-    FROM (SELECT p.id FROM prints p ${whereSql} ORDER BY ${order} LIMIT ${limit} OFFSET ${offset}) page
-    JOIN prints p ON p.id = page.id
-    LEFT JOIN enclosure_types e ON e.id = p.enclosure_id
-    ${restricted ? 'LEFT JOIN locations l ON l.id = p.location_id' : ''}
-    ORDER BY ${order}`;
-  // Counting is exact up to a cap; past it the planner's estimate is used (and said to be one).
-  const count = `SELECT count(*)::int AS total FROM (SELECT 1 FROM prints p ${whereSql} LIMIT ${EXACT_COUNT_CAP + 1}) capped`;
-  const estimate = `EXPLAIN (FORMAT JSON) SELECT 1 FROM prints p ${whereSql}`;
-  return { where: whereSql, params, select, count, estimate };
-}
-
-interface ListRow {
-  id: string; accession_number: string; title: string; maker_name: string | null; date_made: string | null; date_display: string | null;
-  process: string; support: string | null; status: string; toner_classes: string[]; paper_label: string | null; enclosure_name: string | null;
-  warning_codes: string[]; updated_at: Date; location_label?: string | null;
-}
-
-export function presentListRow(r: ListRow, restricted: boolean): PrintListItem {
-  const item: PrintListItem = {
-    id: r.id, accessionNumber: r.accession_number, title: r.title, makerName: r.maker_name, dateMade: r.date_made, dateDisplay: r.date_display,
-    process: r.process as PrintListItem['process'], support: r.support as PrintListItem['support'], status: r.status as PrintListItem['status'],
-    tonerClasses: r.toner_classes as PrintListItem['tonerClasses'], paperLabel: r.paper_label, enclosureName: r.enclosure_name,
-    warningCodes: r.warning_codes, updatedAt: new Date(r.updated_at).toISOString(),
-  };
-  if (restricted) item.locationLabel = r.location_label ?? null;
-  return item;
-}
-
-export async function listPrints(query: PrintListQuery, role: Role | null) {
-  const sql = buildListSql(query, role);
-  const countParams = sql.params.slice(0, sql.params.length - 2);
-  const [rows, count] = await Promise.all([
-    db().query<ListRow>(sql.select, { bind: sql.params, type: QueryTypes.SELECT }),
-    db().query<{ total: number }>(sql.count, { bind: countParams, type: QueryTypes.SELECT }),
-  ]);
-  const restricted = can(role, 'catalogue.read_restricted');
-  let total = count[0].total;
-  let estimated = false;
-  if (total > EXACT_COUNT_CAP) {
-    const [plan] = await db().query<{ 'QUERY PLAN': [{ Plan: { 'Plan Rows': number } }] }>(sql.estimate, { bind: countParams, type: QueryTypes.SELECT });
-    total = Math.max(EXACT_COUNT_CAP + 1, Math.round(plan['QUERY PLAN'][0].Plan['Plan Rows']));
-    estimated = true;
-  }
-  return { rows: rows.map((r) => presentListRow(r, restricted)), total, estimated };
-}
+export { EXACT_COUNT_CAP, buildListSql, listPrints, presentListRow, toPrefixQuery, type ListSql } from './print-list.service';
 
 /** Recomputes stored warnings for the prints matching a column value (after an enclosure type changes). */
 export async function recomputeWarningsFor(column: 'enclosure_id', value: string, t: Transaction) {

@@ -1,6 +1,6 @@
 import { Op, type Transaction } from 'sequelize';
 import type { Role } from '@toneledger/common/domain/roles';
-import type { UserListQuery } from '@toneledger/common/schemas/users';
+import type { User as UserDto, UserListQuery } from '@toneledger/common/schemas/users';
 import { db } from '../db';
 import { User } from '../models';
 import { conflict, notFound } from '../errors';
@@ -98,7 +98,7 @@ export async function listUsers(query: UserListQuery) {
     limit: query.pageSize,
     offset: (query.page - 1) * query.pageSize,
   });
-  return { rows, total: count };
+  return { rows: rows.map(presentUser), total: count };
 }
 
 /** Role changes take this transaction-scoped lock, so they run one at a time. */
@@ -114,12 +114,12 @@ export async function changeRole(
   reason: string | undefined,
   actor: AuditActor,
   requestId: string | null,
-): Promise<User> {
+): Promise<UserDto> {
   return db().transaction(async (t: Transaction) => {
     await db().query('SELECT pg_advisory_xact_lock(:key)', { replacements: { key: ROLE_CHANGE_LOCK }, transaction: t });
     const user = await User.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
     if (!user) throw notFound('The user');
-    if (user.role === role) return user;
+    if (user.role === role) return presentUser(user);
     if (user.role === 'admin') {
       const admins = await User.count({ where: { role: 'admin' }, transaction: t });
       if (admins <= 1) {
@@ -132,6 +132,6 @@ export async function changeRole(
       { actor, action: 'user.role_changed', entityType: 'user', entityId: user.id, before: { role: before.role }, after: { role, ...(reason ? { reason } : {}) }, requestId },
       t,
     );
-    return user;
+    return presentUser(user);
   });
 }

@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import { id, idParamsSchema } from './primitives';
+export { idParamsSchema };
 import { parseDuration } from '../domain/duration';
 import { pageQuerySchema } from './envelope';
 import {
@@ -9,14 +11,12 @@ import {
 const text = (max: number) => z.string().trim().max(max, `At most ${max} characters`);
 const optionalText = (max: number) =>
   z.preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), text(max).nullable()).optional();
-const id = z.string().uuid({ message: 'Not a record id' });
 const optionalId = z.preprocess((v) => (v === '' ? null : v), id.nullable()).optional();
 const mm = z.preprocess(
   (v) => (v === '' ? null : v),
   z.coerce.number({ message: 'Enter a number of millimetres' }).positive('Must be more than 0 mm').max(5000, 'At most 5000 mm').nullable(),
 ).optional();
 const version = z.number({ message: 'The record version is required' }).int().min(1);
-export const idParamsSchema = z.object({ id });
 
 export const processSchema = z.enum(PROCESS.codes);
 export const supportSchema = z.enum(SUPPORT.codes);

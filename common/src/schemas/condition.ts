@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { id, isoDate } from './primitives';
 
 /** Contexts in which a print's condition is checked. */
 export const CONDITION_CONTEXTS = ['routine', 'incoming', 'outgoing_loan', 'returning_loan', 'before_display', 'after_display', 'after_treatment', 'survey'] as const;
@@ -23,8 +24,6 @@ export const ZONE_AREAS = ['image', 'margin', 'edge', 'corner', 'overall'] as co
 export const EXTENTS = ['localised', 'scattered', 'overall', 'percentage'] as const;
 export const SEVERITIES = ['slight', 'moderate', 'severe'] as const;
 
-const id = z.string().uuid({ message: 'Not a record id' });
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'A date as YYYY-MM-DD');
 const optionalText = (max: number) => z.preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), z.string().trim().max(max).nullable()).optional();
 
 export const conditionTermSchema = z.object({
@@ -100,3 +99,6 @@ export const reportSchema = z.object({
   version: z.number().int(), createdAt: z.string().datetime(), updatedAt: z.string().datetime(),
 });
 export type ConditionReport = z.infer<typeof reportSchema>;
+
+/** The condition settings: the written definition of each overall grade. */
+export const conditionSettingsSchema = z.object({ grades: gradeDefinitionsSchema });

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { id, isoDate } from './primitives';
 
 export const VIEW_TYPES = ['recto', 'verso', 'raking_light', 'uv_fluorescence', 'transmitted_light', 'detail', 'before_treatment', 'after_treatment'] as const;
 export const VIEW_TYPE_LABELS: Record<(typeof VIEW_TYPES)[number], string> = {
@@ -7,8 +8,6 @@ export const VIEW_TYPE_LABELS: Record<(typeof VIEW_TYPES)[number], string> = {
 };
 export const ACCEPTED_IMAGE_TYPES = ['image/jpeg', 'image/png', 'image/tiff', 'image/webp'] as const;
 
-const id = z.string().uuid({ message: 'Not a record id' });
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'A date as YYYY-MM-DD');
 
 export const imageUploadFieldsSchema = z.object({
   viewType: z.enum(VIEW_TYPES),

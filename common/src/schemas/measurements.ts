@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { id, isoDate } from './primitives';
 
 /** Colour and density measurements at registered spots of a print, over the years. */
 export const SPOT_PURPOSES = ['dmax', 'mid_tone', 'highlight', 'paper_base'] as const;
@@ -11,8 +12,6 @@ export const GEOMETRIES = ['45/0', '0/45', 'd/8'] as const;
 export const MEASUREMENT_CONDITIONS = ['M0', 'M1', 'M2', 'M3'] as const;
 export const DENSITY_TYPES = ['visual', 'status_a'] as const;
 
-const id = z.string().uuid({ message: 'Not a record id' });
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'A date as YYYY-MM-DD');
 const optionalText = (max: number) => z.preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), z.string().trim().max(max).nullable()).optional();
 const n = (message: string) => z.number({ message });
 /**
@@ -147,4 +146,21 @@ export const csvPreviewSchema = z.object({
   /** With a mapping: the readings grouped by spot, ready to send as a session, and every problem by row and column. */
   readings: z.array(spotReadingInputSchema).nullable(),
   errors: z.array(z.object({ row: z.number().int(), column: z.string(), value: z.string().nullable(), message: z.string() })),
+});
+
+/** The multipart text field `mapping` of a CSV preview: JSON per csvMappingSchema, problems named by their path inside it. */
+export const csvPreviewFieldsSchema = z.object({
+  mapping: z
+    .string()
+    .optional()
+    .transform((s, ctx) => {
+      if (s === undefined || s.trim() === '') return undefined;
+      try {
+        return JSON.parse(s) as unknown;
+      } catch {
+        ctx.addIssue({ code: 'custom', message: 'The mapping is not valid JSON' });
+        return z.NEVER;
+      }
+    })
+    .pipe(csvMappingSchema.optional()),
 });

@@ -1,5 +1,8 @@
 import { z } from 'zod';
 import {
+  pathOf, type BodyIn, type DataOf, type Endpoint, type ParamsIn, type QueryIn, type ResponseOf,
+} from '@toneledger/common/api/endpoint';
+import {
   ERROR_CODES,
   errorEnvelopeSchema,
   fieldIssueSchema,
@@ -169,3 +172,100 @@ export async function requestPage<T>(path: string, options?: RequestOptions): Pr
 }
 
 export { ERROR_CODES };
+
+/** What a call sends: the endpoint's own params, query and body types (params and body required when it has them). */
+export type CallInput<E extends Endpoint> = (ParamsIn<E> extends undefined ? { params?: undefined } : { params: ParamsIn<E> }) &
+  (QueryIn<E> extends undefined ? { query?: undefined } : { query?: QueryIn<E> }) &
+  (BodyIn<E> extends undefined ? { body?: undefined } : { body: BodyIn<E> }) & { signal?: AbortSignal };
+
+type OptionalIfEmpty<E extends Endpoint> = ParamsIn<E> extends undefined ? (BodyIn<E> extends undefined ? [input?: CallInput<E>] : [input: CallInput<E>]) : [input: CallInput<E>];
+
+/** The URL of an endpoint with its params and query (for links and downloads: CSV, JSON files, image bytes). */
+export function urlOf<E extends Endpoint>(e: E, input: { params?: ParamsIn<E>; query?: QueryIn<E> } = {}): string {
+  return `${pathOf(e, input.params as Record<string, unknown> | undefined)}${toQueryString(input.query as Record<string, QueryValue> | undefined)}`;
+}
+
+const METHODS = { get: 'GET', post: 'POST', put: 'PUT', patch: 'PATCH', delete: 'DELETE' } as const;
+
+/** The success answer checked against the endpoint's response schema: a drifted answer is an error, never a wrong screen. */
+function parseAnswer<E extends Endpoint>(e: E, json: unknown): ResponseOf<E> {
+  const schema = e.response.schema;
+  if (!schema) return json as ResponseOf<E>;
+  const parsed = schema.safeParse(json);
+  if (!parsed.success) {
+    throw new ApiError({ code: 'internal_error', status: 200, message: 'The server sent an answer this page cannot read.' });
+  }
+  return parsed.data as ResponseOf<E>;
+}
+
+/**
+ * Calls an endpoint of the contract by name: builds the URL from its path and params, sends the
+ * query and body, and returns the envelope parsed with its response schema. Errors are ApiErrors.
+ */
+export async function call<E extends Endpoint>(e: E, ...[input]: OptionalIfEmpty<E>): Promise<ResponseOf<E>> {
+  const { params, query, body, signal } = (input ?? {}) as { params?: Record<string, unknown>; query?: Record<string, QueryValue>; body?: unknown; signal?: AbortSignal };
+  const json = await apiRequest<unknown>(pathOf(e, params), { method: METHODS[e.method], query, body, signal });
+  return parseAnswer(e, json);
+}
+
+/** `call`, returning the `data` of the envelope. */
+export async function callData<E extends Endpoint>(e: E, ...args: OptionalIfEmpty<E>): Promise<DataOf<E>> {
+  const envelope = (await call(e, ...args)) as { data: DataOf<E> };
+  return envelope.data;
+}
+
+/**
+ * A multipart upload with progress (XMLHttpRequest: fetch does not report upload progress). Resolves
+ * with the `data` of the answer; rejects with an ApiError from the error envelope or the HTTP status.
+ */
+export function uploadWithProgress<E extends Endpoint & { requestContentType: 'multipart/form-data' }>(
+  e: E,
+  input: { params: ParamsIn<E>; body: FormData; signal?: AbortSignal },
+  onProgress?: (fraction: number) => void,
+): Promise<DataOf<E>> {
+  return new Promise((resolve, reject) => {
+    const xhr = new XMLHttpRequest();
+    xhr.open(METHODS[e.method], pathOf(e, input.params as Record<string, unknown>));
+    xhr.setRequestHeader('accept', 'application/json');
+    xhr.upload.onprogress = (event) => {
+      if (event.lengthComputable && event.total > 0) onProgress?.(event.loaded / event.total);
+    };
+    xhr.onload = () => {
+      let json: unknown;
+      try {
+        json = xhr.responseText ? JSON.parse(xhr.responseText) : undefined;
+      } catch {
+        json = undefined;
+      }
+      if (xhr.status >= 200 && xhr.status < 300) {
+        try {
+          const data = (parseAnswer(e, json) as { data: DataOf<E> }).data;
+          onProgress?.(1);
+          resolve(data);
+        } catch (err) {
+          reject(err);
+        }
+        return;
+      }
+      const envelope = errorEnvelopeSchema.safeParse(json);
+      if (envelope.success) {
+        const { code, status, message, requestId, details } = envelope.data.error;
+        reject(new ApiError({ code, status, message, requestId, details }));
+      } else {
+        reject(
+          new ApiError({
+            code: codeForStatus(xhr.status),
+            status: xhr.status,
+            message: `The server answered ${xhr.status}.`,
+            requestId: xhr.getResponseHeader('x-request-id'),
+          }),
+        );
+      }
+    };
+    xhr.onerror = () =>
+      reject(new ApiError({ code: 'service_unavailable', status: 0, message: 'Could not reach the server. Check the connection and try again.' }));
+    xhr.onabort = () => reject(new DOMException('The upload was cancelled.', 'AbortError'));
+    input.signal?.addEventListener('abort', () => xhr.abort(), { once: true });
+    xhr.send(input.body);
+  });
+}

@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { Enclosure, Location, Maker, Paper, Recipe } from '@toneledger/common/schemas/catalogue';
-import { requestPage } from '@/lib/api-client';
+import { enclosuresApi, locationsApi, makersApi, papersApi, recipesApi } from '@toneledger/common/api/reference';
+import type { ResponseOf } from '@toneledger/common/api/endpoint';
+import { call } from '@/lib/api-client';
 
 /**
  * Query keys and list queries for the catalogue's reference records (makers, papers, bath recipes,
@@ -30,19 +31,23 @@ export const recipeKeys = keysFor('recipes');
 export const locationKeys = keysFor('locations');
 export const enclosureKeys = keysFor('enclosures');
 
-function listOptions<T>(keys: ReturnType<typeof keysFor>, path: string, query: ReferenceListQuery) {
+type ReferenceContract = typeof makersApi | typeof papersApi | typeof recipesApi | typeof locationsApi | typeof enclosuresApi;
+
+function listOptions<C extends ReferenceContract>(keys: ReturnType<typeof keysFor>, contract: C, query: ReferenceListQuery) {
   return queryOptions({
     queryKey: keys.list(query),
-    queryFn: ({ signal }) => requestPage<T>(path, { query: { pageSize: 1000, ...query }, signal }),
+    // The five lists share one shape (a page of their own item): typed per contract at each call site.
+    queryFn: ({ signal }) =>
+      call(contract.list as typeof makersApi.list, { query: { pageSize: 1000, ...query }, signal }) as Promise<ResponseOf<C['list']>>,
     staleTime: 30_000,
   });
 }
 
-export const makersQueryOptions = (query: ReferenceListQuery = {}) => listOptions<Maker>(makerKeys, '/api/makers', query);
-export const papersQueryOptions = (query: ReferenceListQuery = {}) => listOptions<Paper>(paperKeys, '/api/papers', query);
-export const recipesQueryOptions = (query: ReferenceListQuery = {}) => listOptions<Recipe>(recipeKeys, '/api/recipes', query);
-export const locationsQueryOptions = (query: ReferenceListQuery = {}) => listOptions<Location>(locationKeys, '/api/locations', query);
-export const enclosuresQueryOptions = (query: ReferenceListQuery = {}) => listOptions<Enclosure>(enclosureKeys, '/api/enclosures', query);
+export const makersQueryOptions = (query: ReferenceListQuery = {}) => listOptions(makerKeys, makersApi, query);
+export const papersQueryOptions = (query: ReferenceListQuery = {}) => listOptions(paperKeys, papersApi, query);
+export const recipesQueryOptions = (query: ReferenceListQuery = {}) => listOptions(recipeKeys, recipesApi, query);
+export const locationsQueryOptions = (query: ReferenceListQuery = {}) => listOptions(locationKeys, locationsApi, query);
+export const enclosuresQueryOptions = (query: ReferenceListQuery = {}) => listOptions(enclosureKeys, enclosuresApi, query);
 
 export const useMakers = (query?: ReferenceListQuery) => useQuery(makersQueryOptions(query));
 export const usePapers = (query?: ReferenceListQuery) => useQuery(papersQueryOptions(query));

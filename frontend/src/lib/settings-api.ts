@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { CatalogueSettings } from '@toneledger/common/schemas/catalogue';
-import { requestData } from '@/lib/api-client';
+import { catalogueSettingsApi } from '@toneledger/common/api/reference';
+import { callData } from '@/lib/api-client';
 
 /**
  * The catalogue settings (institution name, accession-number pattern), read by several features:
@@ -9,14 +9,10 @@ import { requestData } from '@/lib/api-client';
  */
 export const catalogueSettingsKey = ['settings', 'catalogue'] as const;
 
-export function getCatalogueSettings(signal?: AbortSignal): Promise<CatalogueSettings> {
-  return requestData<CatalogueSettings>('/api/settings/catalogue', { signal });
-}
-
 export function catalogueSettingsQueryOptions() {
   return queryOptions({
     queryKey: catalogueSettingsKey,
-    queryFn: ({ signal }) => getCatalogueSettings(signal),
+    queryFn: ({ signal }) => callData(catalogueSettingsApi.get, { signal }),
     staleTime: 5 * 60_000,
   });
 }

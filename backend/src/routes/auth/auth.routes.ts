@@ -1,19 +1,12 @@
-import { z } from 'zod';
 import type { Request } from 'express';
-import { dataEnvelope } from '@toneledger/common/schemas/envelope';
-import { route, type RouteDef } from '../../http/route';
+import { authApi, returnToSchema } from '@toneledger/common/api/auth';
+import { implement, type RouteDef } from '../../http/route';
 import { upsertOnSignIn } from '../../services/user.service';
 import { recordAudit } from '../../services/audit.service';
-import { idOf } from '../../middleware/request-id';
 import { SESSION_COOKIE } from '../../auth/session';
 import type { AppDeps } from '../../deps';
 
-/** Only paths inside this app: "/x", never "//host" or "/\host". */
-export const returnToSchema = z
-  .string()
-  .max(2000)
-  .regex(/^\/(?![/\\])[^\s]*$/, 'returnTo must be a path inside this application')
-  .default('/');
+export { returnToSchema };
 
 const PENDING_TTL_MS = 10 * 60_000;
 
@@ -27,34 +20,19 @@ function regenerate(req: Request) {
 
 export function authRoutes(deps: AppDeps): RouteDef[] {
   const { env, oidc } = deps;
-  return [
-    route({
-      method: 'get',
-      path: '/auth/login',
-      summary: "Starts sign-in: redirects to the identity provider (authorization code flow with PKCE and state)",
-      tags: ['session'],
-      access: 'public',
-      query: z.object({ returnTo: returnToSchema }),
-      response: { description: '302 to the identity provider' },
-      handler: async ({ query, req, res }) => {
+  return implement(authApi, {
+    login: async ({ query, req, res }) => {
         const start = await oidc.startSignIn();
         req.session.pendingSignIn = { state: start.state, codeVerifier: start.codeVerifier, returnTo: query.returnTo, at: Date.now() };
         await save(req);
         res.redirect(302, start.url);
       },
-    }),
-    route({
-      method: 'get',
-      path: '/auth/callback',
-      summary: 'Where the identity provider returns; opens the session and redirects to returnTo',
-      tags: ['session'],
-      access: 'public',
-      response: { description: '302 into the application' },
-      handler: async ({ req, res }) => {
+    callback: async ({ req, res, requestId }) => {
         const pending = req.session.pendingSignIn;
         if (!pending || Date.now() - pending.at > PENDING_TTL_MS) {
           req.log.warn('sign-in callback without a pending sign-in');
-          return res.redirect(302, '/signed-out?error=expired');
+          res.redirect(302, '/signed-out?error=expired');
+          return;
         }
         let identity;
         try {
@@ -63,9 +41,10 @@ export function authRoutes(deps: AppDeps): RouteDef[] {
           req.log.warn({ err }, 'sign-in callback refused');
           delete req.session.pendingSignIn;
           await save(req);
-          return res.redirect(302, '/signed-out?error=sign_in_failed');
+          res.redirect(302, '/signed-out?error=sign_in_failed');
+          return;
         }
-        const user = await upsertOnSignIn(identity, { adminEmails: env.ADMIN_EMAILS, defaultRole: env.DEFAULT_ROLE }, idOf(req));
+        const user = await upsertOnSignIn(identity, { adminEmails: env.ADMIN_EMAILS, defaultRole: env.DEFAULT_ROLE }, requestId);
         // A new session id at sign-in: a session fixed before sign-in is worth nothing after it.
         await regenerate(req);
         req.session.userId = user.id;
@@ -74,18 +53,10 @@ export function authRoutes(deps: AppDeps): RouteDef[] {
         await save(req);
         res.redirect(302, pending.returnTo);
       },
-    }),
-    route({
-      method: 'post',
-      path: '/auth/logout',
-      summary: "Ends the session here and returns the provider's end-session URL so its session ends too",
-      tags: ['session'],
-      access: 'public',
-      response: { description: 'Where to send the browser next', schema: dataEnvelope(z.object({ redirectTo: z.string() })) },
-      handler: async ({ user, req, res }) => {
+    logout: async ({ actor: user, req, res, requestId }) => {
         const idToken = req.session?.idToken ?? null;
         if (user) {
-          await recordAudit({ actor: { id: user.id, name: user.name }, action: 'session.signed_out', entityType: 'user', entityId: user.id, requestId: idOf(req) });
+          await recordAudit({ actor: { id: user.id, name: user.name }, action: 'session.signed_out', entityType: 'user', entityId: user.id, requestId });
         }
         await new Promise<void>((resolve) => (req.session ? req.session.destroy(() => resolve()) : resolve()));
         res.clearCookie(SESSION_COOKIE, { path: '/' });
@@ -97,6 +68,5 @@ export function authRoutes(deps: AppDeps): RouteDef[] {
         }
         return { data: { redirectTo } };
       },
-    }),
-  ];
+  });
 }

@@ -52,12 +52,17 @@ describe('GET /api/openapi.json', () => {
     expect(res.status).toBe(200);
     expect(res.body.openapi).toBe('3.1.0');
     const { allRoutes } = await import('../../app');
-    for (const r of allRoutes(t.deps)) {
+    for (const { endpoint: r } of allRoutes(t.deps)) {
       const p = r.path.replace(/:([A-Za-z0-9_]+)/g, '{$1}');
       expect(res.body.paths[p]?.[r.method], `${r.method} ${p}`).toBeDefined();
       expect(res.body.paths[p][r.method]['x-access']).toBe(r.access);
     }
     expect(res.body.paths['/api/users/{id}/role'].patch.responses['403']).toBeDefined();
+    // Path parameters carry their real types from the contract's params schema.
+    const idParam = res.body.paths['/api/prints/{id}'].get.parameters.find((x: { name: string }) => x.name === 'id');
+    expect(idParam).toMatchObject({ in: 'path', required: true, schema: { type: 'string', format: 'uuid' } });
+    const variant = res.body.paths['/api/images/{id}/file/{variant}'].get.parameters.find((x: { name: string }) => x.name === 'variant');
+    expect(variant.schema.enum).toEqual(['thumb', 'screen', 'original']);
     expect(res.body.paths['/api/users'].get.parameters.map((x: { name: string }) => x.name)).toContain('sort');
   });
 });
@@ -97,5 +102,18 @@ describe('errors and headers', () => {
       .send(JSON.stringify({ pad: 'x'.repeat(1_100_000) }));
     expect(res.status).toBe(413);
     expect(res.body.error.code).toBe('payload_too_large');
+  });
+});
+
+describe('the contract', () => {
+  it('every endpoint described in common/src/api is served exactly once, and nothing else is', async () => {
+    const { allRoutes } = await import('../../app');
+    const { allContracts } = await import('@toneledger/common/api/all');
+    const served = allRoutes(t.deps).map((r) => r.endpoint);
+    const described = Object.values(allContracts).flatMap((c) => Object.values(c));
+    expect(served.length).toBe(described.length);
+    for (const e of described) expect(served.filter((s) => s === e), `${e.method} ${e.path}`).toHaveLength(1);
+    const keys = served.map((e) => `${e.method} ${e.path}`);
+    expect(new Set(keys).size).toBe(keys.length);
   });
 });

@@ -1,0 +1,18 @@
+import type { Contract } from './endpoint';
+import { authApi } from './auth';
+import { conditionSettingsApi, conditionTermsApi, reportsApi } from './condition';
+import { devMailApi } from './dev-mail';
+import { fixityApi, imagesApi } from './images';
+import { importsApi } from './imports';
+import { measurementSettingsApi, measurementsApi } from './measurements';
+import { printsApi } from './prints';
+import { catalogueSettingsApi, enclosuresApi, locationsApi, makersApi, papersApi, recipesApi } from './reference';
+import { systemApi } from './system';
+import { auditApi, meApi, usersApi } from './users';
+
+/** Every contract, by resource: the server must implement each endpoint here exactly once (a test checks it). */
+export const allContracts: Record<string, Contract> = {
+  systemApi, authApi, meApi, usersApi, auditApi, devMailApi, printsApi, importsApi, makersApi, papersApi, recipesApi, enclosuresApi,
+  locationsApi, catalogueSettingsApi, imagesApi, fixityApi, conditionSettingsApi, conditionTermsApi, reportsApi, measurementSettingsApi,
+  measurementsApi,
+};

@@ -1,0 +1,30 @@
+import { dataEnvelope, pageEnvelope } from '../schemas/envelope';
+import { meSchema, roleChangeSchema, userIdParamsSchema, userListQuerySchema, userSchema } from '../schemas/users';
+import { auditEventSchema, auditListQuerySchema } from '../schemas/audit';
+import { endpoint } from './endpoint';
+
+export const meApi = {
+  get: endpoint({
+    method: 'get', path: '/api/me', summary: 'The signed-in user, their role and permissions', tags: ['session'],
+    access: 'signed_in', response: { description: 'The signed-in user', schema: dataEnvelope(meSchema) },
+  }),
+};
+
+export const usersApi = {
+  list: endpoint({
+    method: 'get', path: '/api/users', summary: 'Everyone who has signed in or been provisioned, with their role', tags: ['users'],
+    access: 'users.manage', query: userListQuerySchema, response: { description: 'A page of users', schema: pageEnvelope(userSchema) },
+  }),
+  changeRole: endpoint({
+    method: 'patch', path: '/api/users/:id/role', summary: "Changes a user's role (409 if it would leave no administrator)", tags: ['users'],
+    access: 'users.manage', params: userIdParamsSchema, body: roleChangeSchema,
+    response: { description: 'The changed user', schema: dataEnvelope(userSchema) },
+  }),
+};
+
+export const auditApi = {
+  list: endpoint({
+    method: 'get', path: '/api/audit', summary: 'The audit trail, newest first: who, when, what, before and after', tags: ['audit'],
+    access: 'audit.read', query: auditListQuerySchema, response: { description: 'A page of audit events', schema: pageEnvelope(auditEventSchema) },
+  }),
+};
