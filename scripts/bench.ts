@@ -111,7 +111,7 @@ try {
     const { seedDemoIfEmpty } = await import('../backend/src/seed/demo');
     const { startServer } = await import('../backend/src/server');
     const { signIn } = await import('../backend/test/app');
-    const { buildListSql, EXACT_COUNT_CAP } = await import('../backend/src/services/print.service');
+    const { buildListSql, EXACT_COUNT_CAP } = await import('../backend/src/services/print-list.service');
 
     await seedDemoIfEmpty(db(), { catalogue: false });
     // Each run has a new identity provider (a new issuer): let the registrar's row be claimed again.
@@ -136,7 +136,7 @@ try {
       const query: PrintListQuery = printListQuerySchema.parse(s.query);
       const url = `${base}/api/prints?${new URLSearchParams(s.query)}`;
       const sql = buildListSql(query, ROLE);
-      const countParams = sql.params.slice(0, sql.params.length - 2);
+      const countParams = sql.countParams;
       const callApi = async () => {
         const t0 = performance.now();
         const res = await fetch(url, { headers: { cookie } });
