@@ -45,6 +45,8 @@ const envSchema = z
 
     IMAGE_MAX_MB: z.coerce.number().positive().default(300),
     IMAGE_RETENTION_DAYS: z.coerce.number().int().min(1).default(90),
+    /** When the nightly fixity sweep runs (cron, five fields, UTC). */
+    TONELEDGER_FIXITY_CRON: z.string().trim().regex(/^\S+(\s+\S+){4}$/, 'a cron expression of five fields, e.g. "30 2 * * *"').default('30 2 * * *'),
 
     ADMIN_EMAILS: list,
     DEFAULT_ROLE: z.enum(['viewer', 'researcher']).default('viewer'),

@@ -3,8 +3,15 @@ import type { ObjectStore } from '@toneledger/storage/object-store';
 import { QUEUES, type JobQueue } from './queue';
 import { fixitySweep, makeDerivatives, purgeWithdrawn } from '../services/image.service';
 
+export interface WorkerSettings {
+  /** When the fixity sweep runs (cron, UTC): env TONELEDGER_FIXITY_CRON. */
+  fixityCron: string;
+  /** Days a withdrawn image is kept before the purge: env IMAGE_RETENTION_DAYS. */
+  retentionDays: number;
+}
+
 /** The server's workers: derivatives on upload, a nightly fixity sweep, and the purge of withdrawn images past retention. */
-export async function startWorkers(queue: JobQueue, store: ObjectStore, logger: Logger): Promise<void> {
+export async function startWorkers(queue: JobQueue, store: ObjectStore, logger: Logger, settings: WorkerSettings): Promise<void> {
   const { boss } = queue;
   await boss.work<{ imageId: string }>(QUEUES.derivatives, { batchSize: 1, pollingIntervalSeconds: 1 }, async ([job]) => {
     await makeDerivatives(store, job.data.imageId);
@@ -14,9 +21,9 @@ export async function startWorkers(queue: JobQueue, store: ObjectStore, logger: 
     logger.info(result, 'fixity sweep finished');
   });
   await boss.work(QUEUES.purge, { batchSize: 1, pollingIntervalSeconds: 30 }, async () => {
-    const purged = await purgeWithdrawn(store);
+    const purged = await purgeWithdrawn(store, settings.retentionDays);
     if (purged) logger.info({ purged }, 'withdrawn images purged after retention');
   });
-  await boss.schedule(QUEUES.fixity, process.env.TONELEDGER_FIXITY_CRON ?? '30 2 * * *', {}, { tz: 'UTC' });
+  await boss.schedule(QUEUES.fixity, settings.fixityCron, {}, { tz: 'UTC' });
   await boss.schedule(QUEUES.purge, '15 3 * * *', {}, { tz: 'UTC' });
 }
