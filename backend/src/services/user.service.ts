@@ -1,11 +1,11 @@
 import { Op, type Transaction } from 'sequelize';
 import type { Role } from '@toneledger/common/domain/roles';
-import type { User as UserDto, UserListQuery } from '@toneledger/common/schemas/users';
+import type { Me, User as UserDto, UserListQuery } from '@toneledger/common/schemas/users';
 import { db } from '../db';
 import { User } from '../models';
-import { conflict, notFound } from '../errors';
+import { conflict, notFound, unauthenticated } from '../errors';
 import { recordAudit, type AuditActor } from './audit.service';
-import { presentUser } from '../presenters/user.presenter';
+import { presentMe, presentUser } from '../presenters/user.presenter';
 
 export interface SignInClaims {
   issuer: string;
@@ -71,6 +71,13 @@ export async function upsertOnSignIn(claims: SignInClaims, policy: SignInPolicy,
 
 export async function findUser(id: string): Promise<User | null> {
   return User.findByPk(id);
+}
+
+/** The signed-in user as they see themselves: role, permissions, when the session ends (401 if the row is gone). */
+export async function getMe(id: string, sessionExpiresAt: Date, environment: Me['environment']): Promise<Me> {
+  const found = await findUser(id);
+  if (!found) throw unauthenticated();
+  return presentMe(found, sessionExpiresAt, environment);
 }
 
 const SORTS: Record<string, [string, 'ASC' | 'DESC']> = {
