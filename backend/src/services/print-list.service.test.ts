@@ -14,6 +14,7 @@ const oneTo = (n: number) => new Set(Array.from({ length: n }, (_, i) => i + 1))
 
 let makerId: string;
 beforeAll(async () => {
+  db(); // connects and sets up the models
   const user = await createUser({ role: 'registrar' });
   const actor = { id: user.id, name: user.name, role: 'registrar' as Role };
   makerId = (await createMaker()).id;
