@@ -3,11 +3,11 @@ import type {
   MeasurementSession as SessionDto, Spot as SpotDto, SpotAnalysis as SpotAnalysisDto, projectionSchema,
 } from '@toneledger/common/schemas/measurements';
 import type { FadingRateResult, ThresholdProjection } from '@toneledger/common/domain/fading';
+import type { SpotChange } from '@toneledger/common/domain/spot-analysis';
 import type { MeasurementSession, MeasurementSpot, SpotReading } from '../models';
 
 type ProjectionDto = z.infer<typeof projectionSchema>;
 type RateDto = NonNullable<SpotAnalysisDto['rate']>;
-type PointDto = SpotAnalysisDto['points'][number];
 
 const iso = (d: Date) => d.toISOString();
 
@@ -75,15 +75,8 @@ export function presentProjection(p: ThresholdProjection | null): ProjectionDto 
   };
 }
 
-/** One spot's analysis as computed by the service (dates still as Date objects inside rate and projection). */
-export interface SpotAnalysisResult {
-  spot: MeasurementSpot;
-  baseline: { sessionId: string; measuredOn: string; lab: { L: number; a: number; b: number }; density: number | null; chosen: boolean } | null;
-  points: PointDto[];
-  rate: FadingRateResult | null;
-  densityRate: FadingRateResult | null;
-  projection: ThresholdProjection | null;
-}
+/** One spot with its analysis (common/src/domain/spot-analysis.ts; dates still as Date objects inside rate and projection). */
+export type SpotAnalysisResult = SpotChange & { spot: MeasurementSpot };
 
 export function presentAnalysis(a: SpotAnalysisResult): SpotAnalysisDto {
   return {

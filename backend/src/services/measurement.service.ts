@@ -1,14 +1,12 @@
-import { parse } from 'csv-parse/sync';
 import { Op, type Transaction } from 'sequelize';
 import type { z } from 'zod';
-import {
-  averageReadings, classifyChange, comparable, densityChange, densityFromReflectance, type Lab, type MeasurementConditions,
-} from '@toneledger/common/domain/colour';
-import { DEFAULT_NOTICEABLE_DELTA_E, NOTICEABLE_DELTA_E_GUIDANCE, fadingRate, projectThreshold } from '@toneledger/common/domain/fading';
+import { averageReadings, densityFromReflectance, type MeasurementConditions } from '@toneledger/common/domain/colour';
+import { DEFAULT_NOTICEABLE_DELTA_E, NOTICEABLE_DELTA_E_GUIDANCE } from '@toneledger/common/domain/fading';
+import { analyseSpotHistory, compareRankedSpots, latestDeltaE00, type SpotObservation } from '@toneledger/common/domain/spot-analysis';
 import type { FieldIssue } from '@toneledger/common/schemas/envelope';
 import type {
-  SessionInput, baselineChoiceSchema, csvMappingSchema, csvPreviewSchema, leaderSchema, leadersQuerySchema, measurementSettingsSchema,
-  spotInputSchema, spotReadingInputSchema, spotUpdateSchema, PrintMeasurements,
+  SessionInput, baselineChoiceSchema, leaderSchema, leadersQuerySchema, measurementSettingsSchema,
+  spotInputSchema, spotUpdateSchema, PrintMeasurements,
 } from '@toneledger/common/schemas/measurements';
 import { db } from '../db';
 import { Image, MeasurementSession, MeasurementSpot, Print, Setting, SpotReading, type StoredPoint } from '../models';
@@ -29,9 +27,6 @@ type SpotInput = z.infer<typeof spotInputSchema>;
 type SpotUpdate = z.infer<typeof spotUpdateSchema>;
 type BaselineChoice = z.infer<typeof baselineChoiceSchema>;
 type MeasurementSettings = z.infer<typeof measurementSettingsSchema>;
-type CsvMapping = z.infer<typeof csvMappingSchema>;
-type CsvPreview = z.infer<typeof csvPreviewSchema>;
-type SpotReadingInput = z.infer<typeof spotReadingInputSchema>;
 type LeadersQuery = z.infer<typeof leadersQuerySchema>;
 type Leader = z.infer<typeof leaderSchema>;
 
@@ -245,80 +240,29 @@ export async function recordSession(printId: string, input: SessionInput, actor:
   });
 }
 
-// ── Analysis ──
+// ── Analysis (the computation is common/src/domain/spot-analysis.ts) ──
 
 interface History {
   session: MeasurementSession;
   reading: SpotReading;
 }
 
-function conditionsOf(s: MeasurementSession): MeasurementConditions {
-  return { illuminant: s.illuminant, observer: s.observer as MeasurementConditions['observer'], geometry: s.geometry, condition: s.condition as MeasurementConditions['condition'] };
-}
-
-const meanOf = (r: SpotReading): Lab => ({ L: r.meanL, a: r.meanA, b: r.meanB });
-
-/** The density recorded, or the one its reflectance gives (D = −log10 R). */
-function densityOf(r: SpotReading): number | null {
-  if (r.density !== null) return r.density;
-  return r.reflectance !== null ? densityFromReflectance(r.reflectance) : null;
-}
-
-const chronological = (x: History, y: History) =>
-  x.session.measuredOn.localeCompare(y.session.measuredOn) || x.session.createdAt.getTime() - y.session.createdAt.getTime();
-
-/**
- * One spot's change, session by session, against its baseline: the chosen session, or else the
- * first session (by date) that measured the spot.
- *
- * - Each point is judged with `comparable()` on the conditions of its session and the baseline
- *   session. A point that is not comparable keeps its reading and density but gets no differences,
- *   carries the reason, and is left out of the rates.
- * - ΔD and % loss need a density at both; they are also left empty when both say what kind of
- *   density they are (visual, status A) and the kinds differ.
- * - The rates fit the comparable points from the baseline date on: a baseline chosen after a
- *   treatment restarts the clock, and earlier points are shown but not fitted.
- * - The projection is that of the ΔE00 rate, with the observed points deciding whether the
- *   threshold has already been reached.
- */
-export function analyseSpot(spot: MeasurementSpot, history: History[], threshold: number): SpotAnalysisResult {
-  const ordered = [...history].sort(chronological);
-  const chosen = spot.baselineSessionId ? ordered.find((h) => h.session.id === spot.baselineSessionId) : undefined;
-  const base = chosen ?? ordered[0];
-  if (!base) return { spot, baseline: null, points: [], rate: null, densityRate: null, projection: null };
-
-  const baseLab = meanOf(base.reading);
-  const baseDensity = densityOf(base.reading);
-  const baseConditions = conditionsOf(base.session);
-  const points = ordered.map((h) => {
-    const lab = meanOf(h.reading);
-    const density = densityOf(h.reading);
-    const common = { sessionId: h.session.id, measuredOn: h.session.measuredOn, lab, density };
-    const verdict = comparable(baseConditions, conditionsOf(h.session));
-    if (!verdict.ok) {
-      return { ...common, comparable: false, reason: verdict.reason, dE00: null, dE76: null, dL: null, dC: null, dH: null, dominant: null, dD: null, densityLossPercent: null };
-    }
-    const change = classifyChange(baseLab, lab);
-    const d = change.difference;
-    const kindsDiffer = base.reading.densityType !== null && h.reading.densityType !== null && base.reading.densityType !== h.reading.densityType;
-    const dc = baseDensity !== null && density !== null && !kindsDiffer ? densityChange(baseDensity, density) : null;
-    return {
-      ...common, comparable: true, reason: null, dE00: d.dE00, dE76: d.dE76, dL: d.dL, dC: d.dC, dH: d.dH, dominant: change.dominant,
-      dD: dc ? dc.deltaD : null, densityLossPercent: dc ? dc.percentLoss : null,
-    };
-  });
-
-  const fitted = points.filter((p) => p.comparable && p.measuredOn >= base.session.measuredOn);
-  const colourSeries = fitted.map((p) => ({ t: p.measuredOn, value: p.dE00 as number }));
-  const rate = fadingRate(colourSeries);
-  const densitySeries = fitted.flatMap((p) => (p.densityLossPercent !== null ? [{ t: p.measuredOn, value: p.densityLossPercent }] : []));
-  const densityRate = baseDensity !== null && densitySeries.length > 0 ? fadingRate(densitySeries) : null;
-  const projection = rate.ok ? projectThreshold(rate, { t: base.session.measuredOn }, threshold, colourSeries) : null;
+/** A stored session and reading as the analysis reads them. */
+function observationOf({ session, reading }: History): SpotObservation {
   return {
-    spot,
-    baseline: { sessionId: base.session.id, measuredOn: base.session.measuredOn, lab: baseLab, density: baseDensity, chosen: chosen !== undefined },
-    points, rate, densityRate, projection,
+    sessionId: session.id, measuredOn: session.measuredOn, recordedAt: session.createdAt,
+    conditions: {
+      illuminant: session.illuminant, observer: session.observer as MeasurementConditions['observer'], geometry: session.geometry,
+      condition: session.condition as MeasurementConditions['condition'],
+    },
+    lab: { L: reading.meanL, a: reading.meanA, b: reading.meanB },
+    density: reading.density, densityType: reading.densityType, reflectance: reading.reflectance,
   };
+}
+
+/** One spot's change against its baseline, session by session, with rates and projection (see `analyseSpotHistory`). */
+export function analyseSpot(spot: MeasurementSpot, history: History[], threshold: number): SpotAnalysisResult {
+  return { spot, ...analyseSpotHistory(history.map(observationOf), { baselineSessionId: spot.baselineSessionId, threshold }) };
 }
 
 function historiesBySpot(sessions: (MeasurementSession & { readings?: SpotReading[] })[]): Map<string, History[]> {
@@ -351,135 +295,9 @@ export async function printMeasurements(printId: string): Promise<PrintMeasureme
   };
 }
 
-// ── CSV from an instrument: preview only ──
+// ── CSV from an instrument: preview only (measurement-csv.service.ts) ──
 
-export const MAX_CSV_BYTES = 5 * 1024 * 1024;
-const SAMPLE_ROWS = 10;
-const MAX_READINGS_PER_SPOT = 20;
-const MAX_SPOTS_PER_SESSION = 50;
-const MAX_REPORTED_ERRORS = 500;
-
-/** The delimiter the header line uses most: instruments write commas, semicolons or tabs. */
-function delimiterOf(text: string): string {
-  const firstLine = text.slice(0, text.search(/\r?\n|$/));
-  const counts = [',', ';', '\t'].map((d) => [d, firstLine.split(d).length - 1] as const);
-  return counts.reduce((best, c) => (c[1] > best[1] ? c : best))[0];
-}
-
-/**
- * Reads an instrument's CSV and, with a mapping, turns it into the readings of one session:
- * rows naming the same spot are several readings of that spot (the server averages them when
- * the session is recorded; densities and reflectances given on those rows are averaged here).
- * Spot names are matched to the print's spots ignoring case and surrounding spaces. Row numbers
- * count the header as row 1. Rows with a problem are reported and left out of `readings`; the
- * client shows the problems and sends the session only when there are none. Nothing is written.
- */
-export async function previewCsv(printId: string, text: string, mapping: CsvMapping | null): Promise<CsvPreview> {
-  await requirePrint(printId);
-  const delimiter = delimiterOf(text);
-  let records: string[][];
-  try {
-    records = parse(text, { bom: true, delimiter, relax_column_count: true, skip_empty_lines: false, trim: false }) as string[][];
-  } catch (err) {
-    throw validationFailed([{ path: 'file', message: `The file is not readable as CSV: ${(err as Error).message}`, code: 'csv' }]);
-  }
-  if (!records.length) throw validationFailed([{ path: 'file', message: 'The file is empty', code: 'empty' }]);
-
-  // Column names as the header gives them; blank ones get a name, repeated ones a number.
-  const columns: string[] = [];
-  records[0].forEach((raw, i) => {
-    let name = raw.trim() || `column ${i + 1}`;
-    for (let k = 2; columns.includes(name); k++) name = `${raw.trim() || `column ${i + 1}`} (${k})`;
-    columns.push(name);
-  });
-  const rows = records
-    .map((r, i) => ({ row: i + 1, cells: Object.fromEntries(columns.map((c, j) => [c, r[j] ?? ''])) as Record<string, string> }))
-    .slice(1)
-    .filter((r) => Object.values(r.cells).some((v) => v.trim() !== ''));
-  const base = { columns, rowCount: rows.length, sample: rows.slice(0, SAMPLE_ROWS).map((r) => r.cells) };
-  if (!mapping) return { ...base, readings: null, errors: [] };
-
-  // Every mapped column must exist in the file (matched ignoring case when not exact).
-  const resolve = (name: string) => columns.find((c) => c === name.trim()) ?? columns.find((c) => c.toLowerCase() === name.trim().toLowerCase());
-  const mappingIssues: FieldIssue[] = [];
-  const col = {} as Record<'spot' | 'L' | 'a' | 'b' | 'density' | 'reflectance', string | undefined>;
-  for (const key of ['spot', 'L', 'a', 'b', 'density', 'reflectance'] as const) {
-    const wanted = mapping[key];
-    if (wanted === undefined || wanted === '') continue;
-    col[key] = resolve(wanted);
-    if (!col[key]) mappingIssues.push({ path: `mapping.${key}`, message: `The file has no column "${wanted}"`, code: 'no_column' });
-  }
-  if (mappingIssues.length) throw validationFailed(mappingIssues, 'The mapping names columns the file does not have.');
-
-  const spots = await printSpots(printId);
-  const byName = new Map(spots.map((s) => [s.name.trim().toLowerCase(), s]));
-  // Numbers as instruments write them; a decimal comma is read when the file is not comma-separated.
-  const number = (raw: string) => {
-    const v = raw.trim();
-    const normal = delimiter !== ',' && /^[+-]?\d+,\d+$/.test(v) ? v.replace(',', '.') : v;
-    return /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(normal) ? Number(normal) : NaN;
-  };
-
-  const errors: CsvPreview['errors'] = [];
-  const groups = new Map<string, { spotId: string; readings: Lab[]; densities: number[]; reflectances: number[]; firstRow: number }>();
-  for (const { row, cells } of rows) {
-    const rowErrors: CsvPreview['errors'] = [];
-    const problem = (column: string, message: string) => rowErrors.push({ row, column, value: cells[column] ?? null, message });
-    const required = (key: 'spot' | 'L' | 'a' | 'b', label: string) => {
-      const c = col[key]!;
-      if ((cells[c] ?? '').trim() === '') problem(c, `${label} is empty`);
-      return (cells[c] ?? '').trim();
-    };
-    const spotName = required('spot', 'The spot name');
-    const spot = spotName ? byName.get(spotName.toLowerCase()) : undefined;
-    if (spotName && !spot) problem(col.spot!, `"${spotName}" is not a measurement spot of this print (spots: ${spots.map((s) => s.name).join(', ') || 'none yet'})`);
-    const lab = {} as Lab;
-    for (const [key, label, min, max] of [['L', 'L*', 0, 100], ['a', 'a*', -200, 200], ['b', 'b*', -200, 200]] as const) {
-      const raw = required(key, label);
-      if (!raw) continue;
-      const v = number(raw);
-      if (Number.isNaN(v)) problem(col[key]!, `${label} must be a number`);
-      else if (v < min || v > max) problem(col[key]!, `${label} is between ${min} and ${max}`);
-      else lab[key] = v;
-    }
-    let density: number | null = null;
-    if (col.density && (cells[col.density] ?? '').trim() !== '') {
-      const v = number(cells[col.density]);
-      if (Number.isNaN(v)) problem(col.density, 'Density must be a number');
-      else if (v < 0 || v > 5) problem(col.density, 'Density is between 0 and 5');
-      else density = v;
-    }
-    let reflectance: number | null = null;
-    if (col.reflectance && (cells[col.reflectance] ?? '').trim() !== '') {
-      const v = number(cells[col.reflectance]);
-      const top = mapping.reflectanceIsPercent ? 100 : 1;
-      if (Number.isNaN(v)) problem(col.reflectance, 'Reflectance must be a number');
-      else if (!(v > 0) || v > top) problem(col.reflectance, mapping.reflectanceIsPercent ? 'Reflectance is a percentage above 0 and up to 100' : 'Reflectance is a fraction above 0 and up to 1');
-      else reflectance = mapping.reflectanceIsPercent ? v / 100 : v;
-    }
-    if (!rowErrors.length && spot) {
-      const g = groups.get(spot.id) ?? { spotId: spot.id, readings: [], densities: [], reflectances: [], firstRow: row };
-      if (g.readings.length >= MAX_READINGS_PER_SPOT) {
-        problem(col.spot!, `At most ${MAX_READINGS_PER_SPOT} readings of one spot per session (from row ${g.firstRow})`);
-      } else {
-        g.readings.push(lab);
-        if (density !== null) g.densities.push(density);
-        if (reflectance !== null) g.reflectances.push(reflectance);
-        groups.set(spot.id, g);
-      }
-    }
-    errors.push(...rowErrors);
-    if (errors.length >= MAX_REPORTED_ERRORS) break;
-  }
-  if (groups.size > MAX_SPOTS_PER_SESSION) {
-    errors.push({ row: 1, column: col.spot!, value: null, message: `At most ${MAX_SPOTS_PER_SESSION} spots per session; the file names ${groups.size}` });
-  }
-  const mean = (xs: number[]) => (xs.length ? xs.reduce((s, x) => s + x, 0) / xs.length : null);
-  const readings: SpotReadingInput[] = [...groups.values()].map((g) => ({
-    spotId: g.spotId, readings: g.readings, density: mean(g.densities), densityType: null, reflectance: mean(g.reflectances),
-  }));
-  return { ...base, readings, errors: errors.slice(0, MAX_REPORTED_ERRORS) };
-}
+export { MAX_CSV_BYTES, previewCsv } from './measurement-csv.service';
 
 // ── Leaders: the spots changing fastest across the collection ──
 
@@ -519,31 +337,23 @@ export async function listLeaders(query: LeadersQuery): Promise<{ rows: Leader[]
     const history = histories.get(spot.id) ?? [];
     if (!history.length) return [];
     const a = analyseSpot(spot, history, settings.noticeableDeltaE);
-    const fitted = a.points.filter((p) => p.comparable && a.baseline && p.measuredOn >= a.baseline.measuredOn);
-    const latest = fitted.at(-1);
     const last = a.points.at(-1)!;
     const leader: Leader = {
       printId: spot.print.id, accessionNumber: spot.print.accessionNumber, title: spot.print.title, process: spot.print.process,
       tonerClasses: spot.print.tonerClasses, spotId: spot.id, spotName: spot.name,
-      latestDeltaE00: latest ? latest.dE00 : null,
+      latestDeltaE00: latestDeltaE00(a),
       ratePerYear: a.rate?.ok ? a.rate.slopePerYear : null,
       rateCi95: a.rate?.ok ? a.rate.ci95 : null,
       sessions: history.length,
       projectedDate: projectedDateOf(presentProjection(a.projection)),
       lastMeasuredOn: last.measuredOn,
     };
-    return [{ leader, accessionSort: spot.print.accessionSort }];
+    const rank = { ratePerYear: leader.ratePerYear, latestDeltaE00: leader.latestDeltaE00, accessionSort: spot.print.accessionSort, spotName: spot.name };
+    return [{ leader, rank }];
   });
 
-  // Larger first, unknowns last; ties by accession number, then spot name.
-  const desc = (x: number | null, y: number | null) => (x === null ? (y === null ? 0 : 1) : y === null ? -1 : y - x);
-  ranked.sort((x, y) => {
-    const [first, second] = query.sort === 'rate' ? (['ratePerYear', 'latestDeltaE00'] as const) : (['latestDeltaE00', 'ratePerYear'] as const);
-    return (
-      desc(x.leader[first], y.leader[first]) || desc(x.leader[second], y.leader[second]) ||
-      x.accessionSort.localeCompare(y.accessionSort) || x.leader.spotName.localeCompare(y.leader.spotName)
-    );
-  });
+  const order = compareRankedSpots(query.sort);
+  ranked.sort((x, y) => order(x.rank, y.rank));
   const start = (query.page - 1) * query.pageSize;
   return { rows: ranked.slice(start, start + query.pageSize).map((r) => r.leader), total: ranked.length };
 }
