@@ -10,6 +10,8 @@ interface Common {
   label: string;
   hint?: string;
   fieldClassName?: string;
+  /** A problem found as the person types (before any submit); a problem from the schema or the server comes first. */
+  liveError?: string;
 }
 
 type Native<T> = Omit<T, 'name' | 'value' | 'defaultValue' | 'onChange' | 'onBlur' | 'id' | 'form'>;
@@ -20,7 +22,7 @@ export interface TextInputProps extends Common, Native<InputHTMLAttributes<HTMLI
 }
 
 /** A text box bound to a schema form: label, hint or error below, and the contract's length limit. */
-export function TextInput({ name, label, hint, fieldClassName, transform, ...rest }: TextInputProps) {
+export function TextInput({ name, label, hint, fieldClassName, liveError, transform, ...rest }: TextInputProps) {
   const { id, limits } = useFieldSetup(name);
   const { field, fieldState } = useController({ name });
   return (
@@ -28,7 +30,7 @@ export function TextInput({ name, label, hint, fieldClassName, transform, ...res
       id={id}
       label={label}
       hint={hint}
-      error={fieldState.error?.message}
+      error={fieldState.error?.message ?? liveError}
       fieldClassName={fieldClassName}
       maxLength={limits.maxLength}
       {...rest}
@@ -53,7 +55,7 @@ export function DateInput(props: TextInputProps) {
 export interface TextAreaInputProps extends Common, Native<TextareaHTMLAttributes<HTMLTextAreaElement>> {}
 
 /** Multi-line text bound to a schema form, with the contract's length limit. */
-export function TextAreaInput({ name, label, hint, fieldClassName, ...rest }: TextAreaInputProps) {
+export function TextAreaInput({ name, label, hint, fieldClassName, liveError, ...rest }: TextAreaInputProps) {
   const { id, limits } = useFieldSetup(name);
   const { field, fieldState } = useController({ name });
   return (
@@ -61,7 +63,7 @@ export function TextAreaInput({ name, label, hint, fieldClassName, ...rest }: Te
       id={id}
       label={label}
       hint={hint}
-      error={fieldState.error?.message}
+      error={fieldState.error?.message ?? liveError}
       fieldClassName={fieldClassName}
       maxLength={limits.maxLength}
       {...rest}
@@ -82,7 +84,7 @@ export interface SelectInputProps extends Common, Native<SelectHTMLAttributes<HT
 }
 
 /** A choice bound to a schema form. Controlled, so a value whose option loads later still shows. */
-export function SelectInput({ name, label, hint, fieldClassName, options, empty, children, ...rest }: SelectInputProps) {
+export function SelectInput({ name, label, hint, fieldClassName, liveError, options, empty, children, ...rest }: SelectInputProps) {
   const { id } = useFieldSetup(name);
   const { field, fieldState } = useController({ name });
   return (
@@ -90,7 +92,7 @@ export function SelectInput({ name, label, hint, fieldClassName, options, empty,
       id={id}
       label={label}
       hint={hint}
-      error={fieldState.error?.message}
+      error={fieldState.error?.message ?? liveError}
       fieldClassName={fieldClassName}
       {...rest}
       name={field.name}

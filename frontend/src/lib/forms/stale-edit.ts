@@ -78,3 +78,8 @@ export function changesOnly(body: object, keys: readonly string[], version: numb
   for (const key of keys) update[key] = (body as Record<string, unknown>)[key] ?? null;
   return update;
 }
+
+/** The fields of a form from its labels, in the order written (form order). */
+export function fieldList<K extends string>(labels: Record<K, string>): StaleField[] {
+  return (Object.entries(labels) as [K, string][]).map(([key, label]) => ({ key, label }));
+}

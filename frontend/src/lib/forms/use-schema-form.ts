@@ -54,11 +54,12 @@ export function useSchemaForm<S extends z.ZodType, V extends FieldValues>(option
   const [failure, setFailure] = useState<unknown>(null);
   const [focusRequest, setFocusRequest] = useState(0);
 
-  const zod = zodResolver(schema as never) as unknown as Resolver<FieldValues, unknown, z.output<S>>;
+  const zod = zodResolver(schema as never, undefined, { mode: 'sync' }) as unknown as Resolver<FieldValues, unknown, z.output<S>>;
   const resolver: Resolver<V, unknown, z.output<S>> = async (values, context, resolverOptions) => {
-    const body = (toBody ? toBody(values) : values) as FieldValues;
-    const result = await zod(body, context, resolverOptions as never);
+    // Everything is read from the values as they are now: a later keystroke must not change this check.
+    const body = (toBody ? toBody(values) : structuredClone(values)) as FieldValues;
     const extra = check?.(values) ?? {};
+    const result = await zod(body, context, resolverOptions as never);
     if (!fieldFor && Object.keys(extra).length === 0) return result as never;
     const found: FieldErrors = {};
     for (const [path, message] of Object.entries(flattenFormErrors(result.errors))) {

@@ -1,12 +1,15 @@
-import { useState, type FormEvent } from 'react';
+import { useState } from 'react';
+import { useWatch } from 'react-hook-form';
 import { accessionRule, checkAccession } from '@toneledger/common/domain/accession';
 import { catalogueSettingsSchema, type CatalogueSettings } from '@toneledger/common/schemas/catalogue';
-import { isApiError } from '@/lib/api-client';
+import { TextInput } from '@/components/form/fields';
+import { SchemaForm } from '@/components/form/schema-form';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
+import type { FieldErrors } from '@/lib/forms/field-errors';
+import { useSchemaForm } from '@/lib/forms/use-schema-form';
 import { useUpdateCatalogueSettings } from '@/features/reference/api/update-catalogue-settings';
-import { errorsFromIssues, type FieldErrors } from '@/features/reference/components/use-record-form';
 
 /** What a pattern means, or why it is not a pattern. */
 export function describePattern(pattern: string): { ok: true; describe: string; example: string } | { ok: false; error: string } {
@@ -18,72 +21,29 @@ export function describePattern(pattern: string): { ok: true; describe: string; 
   }
 }
 
-export function CatalogueSettingsForm({ settings, canManage }: { settings: CatalogueSettings; canManage: boolean }) {
-  const update = useUpdateCatalogueSettings();
-  const [pattern, setPattern] = useState(settings.accessionPattern);
-  const [institutionName, setInstitutionName] = useState(settings.institutionName);
+/** A pattern the catalogue cannot read is refused before it is sent. */
+function check(values: CatalogueSettings): FieldErrors {
+  const reading = describePattern(values.accessionPattern);
+  return reading.ok || values.accessionPattern.trim() === '' ? {} : { accessionPattern: reading.error };
+}
+
+function PatternFields({ canManage }: { canManage: boolean }) {
+  const pattern = useWatch<CatalogueSettings, 'accessionPattern'>({ name: 'accessionPattern' }) ?? '';
   const [tryValue, setTryValue] = useState('');
-  const [errors, setErrors] = useState<FieldErrors>({});
-  const [saved, setSaved] = useState(false);
-
   const reading = describePattern(pattern);
-  const patternError = errors.accessionPattern ?? (reading.ok ? undefined : reading.error);
-  const patternHint = reading.ok ? `Reads as: ${reading.describe}${reading.example ? `. For example ${reading.example}` : ''}` : undefined;
-  const check = tryValue.trim() ? checkAccession(pattern.trim(), tryValue) : null;
-
-  function submit(event: FormEvent) {
-    event.preventDefault();
-    setSaved(false);
-    const parsed = catalogueSettingsSchema.safeParse({ accessionPattern: pattern, institutionName });
-    const next: FieldErrors = parsed.success
-      ? {}
-      : errorsFromIssues(parsed.error.issues.map((issue) => ({ path: issue.path.map(String).join('.'), message: issue.message })));
-    if (!reading.ok && !next.accessionPattern) next.accessionPattern = reading.error;
-    setErrors(next);
-    if (!parsed.success || Object.keys(next).length > 0) return;
-    update.mutate(parsed.data, {
-      onSuccess: (value) => {
-        setPattern(value.accessionPattern);
-        setInstitutionName(value.institutionName);
-        setSaved(true);
-      },
-      onError: (error) => {
-        if (isApiError(error) && error.fieldIssues.length > 0) setErrors(errorsFromIssues(error.fieldIssues));
-      },
-    });
-  }
-
-  const otherError = update.isError && !(isApiError(update.error) && update.error.fieldIssues.length > 0) ? update.error.message : null;
-
+  const hint = reading.ok ? `Reads as: ${reading.describe}${reading.example ? `. For example ${reading.example}` : ''}` : undefined;
+  const result = tryValue.trim() ? checkAccession(pattern.trim(), tryValue) : null;
   return (
-    <form onSubmit={submit} noValidate className="flex max-w-3xl flex-col gap-5">
-      <TextField
-        label="Institution name"
-        value={institutionName}
-        onChange={(e) => {
-          setInstitutionName(e.target.value);
-          setErrors(({ institutionName: _drop, ...rest }) => rest);
-        }}
-        error={errors.institutionName}
-        readOnly={!canManage}
-        maxLength={300}
-        required
-      />
-
+    <>
       <div className="flex flex-col gap-2">
-        <TextField
+        <TextInput
+          name="accessionPattern"
           label="Accession-number pattern"
-          value={pattern}
-          onChange={(e) => {
-            setPattern(e.target.value);
-            setErrors(({ accessionPattern: _drop, ...rest }) => rest);
-          }}
-          hint={patternHint}
-          error={patternError}
+          hint={hint}
+          liveError={reading.ok ? undefined : reading.error}
           readOnly={!canManage}
           className="mono"
           spellCheck={false}
-          maxLength={200}
           required
         />
         <details className="text-sm text-ink-700">
@@ -124,43 +84,56 @@ export function CatalogueSettingsForm({ settings, canManage }: { settings: Catal
           maxLength={100}
         />
         <div aria-live="polite">
-          {check ? (
-            check.ok ? (
+          {result ? (
+            result.ok ? (
               <p className="text-sm font-medium text-ok-700">
-                <span aria-hidden="true">✓ </span>“{check.normalised}” fits the pattern.
+                <span aria-hidden="true">✓ </span>“{result.normalised}” fits the pattern.
               </p>
             ) : (
               <p className="text-sm font-medium text-danger-700">
                 <span aria-hidden="true">✗ </span>
-                {check.message}
+                {result.message}
               </p>
             )
           ) : null}
         </div>
       </div>
+    </>
+  );
+}
 
+export function CatalogueSettingsForm({ settings, canManage }: { settings: CatalogueSettings; canManage: boolean }) {
+  const update = useUpdateCatalogueSettings();
+  const form = useSchemaForm({ schema: catalogueSettingsSchema, defaultValues: settings, check });
+  const [saved, setSaved] = useState(false);
+
+  function onValid(body: CatalogueSettings) {
+    setSaved(false);
+    update.mutate(body, {
+      onSuccess: (value) => {
+        form.reset(value);
+        setSaved(true);
+      },
+      onError: form.serverError,
+    });
+  }
+
+  return (
+    <SchemaForm form={form} onValid={onValid} className="max-w-3xl gap-5">
+      <TextInput name="institutionName" label="Institution name" readOnly={!canManage} required />
+      <PatternFields canManage={canManage} />
       {canManage ? (
-        <div className="flex flex-col gap-3">
-          {otherError ? (
-            <Notice tone="error" role="alert" title="Not saved.">
-              <p>{otherError}</p>
-            </Notice>
-          ) : null}
-          {Object.keys(errors).length > 0 ? (
-            <Notice tone="error" role="alert" title="Not saved. Check the highlighted fields." />
-          ) : null}
-          <div className="flex items-center gap-3">
-            <Button type="submit" variant="primary" disabled={update.isPending}>
-              Save
-            </Button>
-            <span role="status" className="text-sm text-ok-700">
-              {update.isPending ? 'Saving…' : saved ? 'Settings saved.' : ''}
-            </span>
-          </div>
+        <div className="flex items-center gap-3">
+          <Button type="submit" variant="primary" disabled={update.isPending}>
+            Save
+          </Button>
+          <span role="status" className="text-sm text-ok-700">
+            {update.isPending ? 'Saving…' : saved ? 'Settings saved.' : ''}
+          </span>
         </div>
       ) : (
         <Notice tone="info">Only administrators change these settings.</Notice>
       )}
-    </form>
+    </SchemaForm>
   );
 }

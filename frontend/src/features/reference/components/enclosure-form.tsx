@@ -1,15 +1,17 @@
+import { useWatch } from 'react-hook-form';
 import { enclosureInputSchema, enclosureSchema, type Enclosure } from '@toneledger/common/schemas/catalogue';
 import { PAT_RESULT, YES_NO_UNKNOWN } from '@toneledger/common/schemas/vocab';
-import { SelectField, TextField } from '@/components/ui/field';
-import { TextAreaField } from '@/components/ui/text-area-field';
+import { SchemaForm } from '@/components/form/schema-form';
+import { SelectInput, TextAreaInput, TextInput } from '@/components/form/fields';
 import { useSaveEnclosure } from '@/features/reference/api/save-enclosure';
 import { BUFFERED_HELP, BufferedNote, PAT_HELP } from '@/features/reference/components/enclosure-notes';
-import { FormActions, FormMessages } from '@/features/reference/components/form-messages';
+import { FormActions } from '@/features/reference/components/form-actions';
+import { fieldList } from '@/lib/forms/stale-edit';
 import { useRecordForm } from '@/features/reference/components/use-record-form';
 
 type YesNoUnknown = (typeof YES_NO_UNKNOWN.codes)[number];
 
-interface EnclosureDraft extends Record<string, unknown> {
+interface EnclosureValues {
   name: string;
   material: string;
   alkalineBuffered: YesNoUnknown;
@@ -17,7 +19,7 @@ interface EnclosureDraft extends Record<string, unknown> {
   notes: string;
 }
 
-const LABELS: Record<string, string> = {
+const LABELS: Record<keyof EnclosureValues, string> = {
   name: 'Name',
   material: 'Material',
   alkalineBuffered: 'Alkaline-buffered',
@@ -33,7 +35,7 @@ export function choiceToBuffered(choice: YesNoUnknown): boolean | null {
   return choice === 'yes' ? true : choice === 'no' ? false : null;
 }
 
-function toDraft(enclosure: Enclosure | null): EnclosureDraft {
+function toValues(enclosure: Enclosure | null): EnclosureValues {
   return {
     name: enclosure?.name ?? '',
     material: enclosure?.material ?? '',
@@ -43,15 +45,19 @@ function toDraft(enclosure: Enclosure | null): EnclosureDraft {
   };
 }
 
-function toBody(draft: EnclosureDraft) {
-  return { ...draft, alkalineBuffered: choiceToBuffered(draft.alkalineBuffered) };
+/** The body: the yes/no/unknown choice is the contract's true/false/null. */
+function toBody(values: EnclosureValues) {
+  return { ...values, alkalineBuffered: choiceToBuffered(values.alkalineBuffered) };
 }
 
-function describe(field: string, value: unknown): string {
-  if (value === '' || value == null) return '(empty)';
-  if (field === 'alkalineBuffered') return YES_NO_UNKNOWN.labels[value as YesNoUnknown] ?? String(value);
-  if (field === 'patResult') return PAT_RESULT.labels[value as keyof typeof PAT_RESULT.labels] ?? String(value);
-  return String(value);
+function describe(key: string, values: EnclosureValues): string {
+  if (key === 'alkalineBuffered') return YES_NO_UNKNOWN.labels[values.alkalineBuffered];
+  if (key === 'patResult') return PAT_RESULT.labels[values.patResult as keyof typeof PAT_RESULT.labels] ?? values.patResult;
+  return String(values[key as keyof EnclosureValues] ?? '');
+}
+
+function Buffered() {
+  return useWatch<EnclosureValues, 'alkalineBuffered'>({ name: 'alkalineBuffered' }) === 'yes' ? <BufferedNote /> : null;
 }
 
 export function EnclosureForm({
@@ -64,52 +70,26 @@ export function EnclosureForm({
   onCancel: () => void;
 }) {
   const save = useSaveEnclosure();
-  const form = useRecordForm({ record: enclosure, toDraft, toBody, schema: enclosureInputSchema, recordSchema: enclosureSchema, save, onSaved });
-  const { draft, errors } = form;
+  const { form, edit, onValid, saving } = useRecordForm({
+    record: enclosure,
+    schema: enclosureInputSchema,
+    recordSchema: enclosureSchema,
+    toValues,
+    toBody,
+    describe,
+    fields: fieldList(LABELS),
+    save,
+    onSaved,
+  });
   return (
-    <form onSubmit={form.submit} noValidate className="flex flex-col gap-3">
-      <TextField label="Name" hint="e.g. Four-flap folder, unbuffered" value={draft.name} onChange={(e) => form.set('name', e.target.value)} error={errors.name} maxLength={200} required />
-      <TextField
-        label="Material"
-        hint="e.g. cotton rag paper, polyester film, polypropylene"
-        value={draft.material}
-        onChange={(e) => form.set('material', e.target.value)}
-        error={errors.material}
-        maxLength={300}
-      />
-      <SelectField
-        label="Alkaline-buffered"
-        hint={BUFFERED_HELP}
-        value={draft.alkalineBuffered}
-        onChange={(e) => form.set('alkalineBuffered', e.target.value as YesNoUnknown)}
-        error={errors.alkalineBuffered}
-      >
-        {YES_NO_UNKNOWN.options.map((o) => (
-          <option key={o.value} value={o.value}>
-            {o.label}
-          </option>
-        ))}
-      </SelectField>
-      {draft.alkalineBuffered === 'yes' ? <BufferedNote /> : null}
-      <SelectField label="Photographic Activity Test" hint={PAT_HELP} value={draft.patResult} onChange={(e) => form.set('patResult', e.target.value)} error={errors.patResult}>
-        {PAT_RESULT.options.map((o) => (
-          <option key={o.value} value={o.value}>
-            {o.label}
-          </option>
-        ))}
-      </SelectField>
-      <TextAreaField label="Notes" value={draft.notes} onChange={(e) => form.set('notes', e.target.value)} error={errors.notes} maxLength={2000} />
-      <FormMessages
-        errors={errors}
-        formError={form.formError}
-        stale={form.stale}
-        notice={form.notice}
-        labelFor={(path) => LABELS[path] ?? path}
-        describe={describe}
-        onReapply={form.reapply}
-        onDiscard={form.discardMine}
-      />
-      <FormActions saving={form.saving} onCancel={onCancel} />
-    </form>
+    <SchemaForm form={form} edit={edit} onValid={onValid} className="gap-3">
+      <TextInput name="name" label={LABELS.name} hint="e.g. Four-flap folder, unbuffered" required />
+      <TextInput name="material" label={LABELS.material} hint="e.g. cotton rag paper, polyester film, polypropylene" />
+      <SelectInput name="alkalineBuffered" label={LABELS.alkalineBuffered} hint={BUFFERED_HELP} options={YES_NO_UNKNOWN.options} />
+      <Buffered />
+      <SelectInput name="patResult" label={LABELS.patResult} hint={PAT_HELP} options={PAT_RESULT.options} />
+      <TextAreaInput name="notes" label={LABELS.notes} />
+      <FormActions saving={saving} onCancel={onCancel} />
+    </SchemaForm>
   );
 }

@@ -25,8 +25,8 @@ describe('CatalogueSettingsPage', () => {
     expect(screen.queryByText(/^Reads as:/)).toBeNull();
 
     fireEvent.click(screen.getByRole('button', { name: 'Save' }));
+    expect((await screen.findByRole('alert')).textContent).toContain('Not saved');
     expect(requests.filter((r) => r.method === 'PUT')).toHaveLength(0);
-    expect(screen.getByRole('alert').textContent).toContain('Not saved');
   });
 
   it('tries a number against the pattern as typed', async () => {

@@ -90,15 +90,15 @@ describe('EnclosuresPage', () => {
     fireEvent.click(screen.getByRole('button', { name: 'Save' }));
 
     const alert = await screen.findByRole('alert');
-    expect(alert.textContent).toContain('Tomas Reyes saved this record');
+    expect(alert.textContent).toContain('Tomas Reyes saved it');
     const material = within(alert).getByRole('row', { name: /^Material/ });
-    expect(within(material).getAllByRole('cell').map((c) => c.textContent)).toEqual(['Cotton rag paper', 'Lignin-free board', 'unchanged']);
+    expect(within(material).getAllByRole('cell').map((c) => c.textContent)).toEqual(['Cotton rag paper', 'Lignin-free board', 'Not changed by you; the current value will be kept']);
     const name = within(alert).getByRole('row', { name: /^Name/ });
     expect(within(name).getAllByRole('cell').map((c) => c.textContent)).toEqual(['Four-flap folder', 'unchanged', 'Four-flap folder, unbuffered']);
     // The typed value is still there.
     expect(screen.getByLabelText<HTMLInputElement>('Name').value).toBe('Four-flap folder, unbuffered');
 
-    fireEvent.click(within(alert).getByRole('button', { name: 'Re-apply my changes' }));
+    fireEvent.click(within(alert).getByRole('button', { name: 'Re-apply my changes to the current version' }));
     expect(screen.getByLabelText<HTMLInputElement>('Material').value).toBe('Lignin-free board');
     expect(screen.getByLabelText<HTMLInputElement>('Name').value).toBe('Four-flap folder, unbuffered');
     fireEvent.click(screen.getByRole('button', { name: 'Save' }));

@@ -61,7 +61,7 @@ describe('MakersPage', () => {
     renderPage(<MakersPage />, { path: '/catalogue/makers', me: makeMe('admin') });
     fireEvent.click(await screen.findByRole('button', { name: 'Edit Wren Halloway' }));
     fireEvent.click(screen.getByRole('button', { name: 'Save' }));
-    expect(screen.getByRole('status').textContent).toBe('Nothing to save: no field has changed.');
+    expect((await screen.findByRole('status')).textContent).toBe('Nothing to save: no field has changed.');
     expect(requests.every((r) => r.method === 'GET')).toBe(true);
   });
 });
