@@ -1,10 +1,10 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { ImportJob } from '@toneledger/common/schemas/catalogue';
-import { requestData } from '@/lib/api-client';
+import { importsApi } from '@toneledger/common/api/imports';
+import { callData } from '@/lib/api-client';
 import { importKeys } from '@/features/catalogue/api/keys';
 
-export function commitImport(id: string): Promise<ImportJob> {
-  return requestData<ImportJob>(`/api/imports/${encodeURIComponent(id)}/commit`, { method: 'POST', body: {} });
+export function commitImport(id: string) {
+  return callData(importsApi.commit, { params: { id }, body: {} });
 }
 
 export function useCommitImport() {

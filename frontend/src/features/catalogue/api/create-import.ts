@@ -1,13 +1,13 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { ImportJob } from '@toneledger/common/schemas/catalogue';
-import { requestData } from '@/lib/api-client';
+import { importsApi } from '@toneledger/common/api/imports';
+import { callData } from '@/lib/api-client';
 import { importKeys } from '@/features/catalogue/api/keys';
 
 /** Uploads a CSV file as multipart/form-data (field `file`); the server starts checking it. */
-export async function createImport(file: File): Promise<ImportJob> {
+export async function createImport(file: File) {
   const form = new FormData();
   form.append('file', file, file.name);
-  return requestData<ImportJob>('/api/imports', { method: 'POST', body: form });
+  return callData(importsApi.start, { body: form });
 }
 
 export function useCreateImport() {

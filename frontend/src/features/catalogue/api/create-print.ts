@@ -1,10 +1,11 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { Print, PrintInput } from '@toneledger/common/schemas/catalogue';
-import { requestData } from '@/lib/api-client';
-import { printKeys } from '@/features/catalogue/api/keys';
+import type { BodyIn } from '@toneledger/common/api/endpoint';
+import { printsApi } from '@toneledger/common/api/prints';
+import { callData } from '@/lib/api-client';
+import { printKeys } from '@/lib/prints-api';
 
-export function createPrint(input: PrintInput): Promise<Print> {
-  return requestData<Print>('/api/prints', { method: 'POST', body: input });
+export function createPrint(input: BodyIn<typeof printsApi.create>) {
+  return callData(printsApi.create, { body: input });
 }
 
 export function useCreatePrint() {

@@ -1,9 +1,10 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { requestData } from '@/lib/api-client';
-import { printKeys } from '@/features/catalogue/api/keys';
+import { printsApi } from '@toneledger/common/api/prints';
+import { callData } from '@/lib/api-client';
+import { printKeys } from '@/lib/prints-api';
 
-export function deletePrint(id: string, version: number): Promise<{ id: string }> {
-  return requestData<{ id: string }>(`/api/prints/${encodeURIComponent(id)}`, { method: 'DELETE', query: { version } });
+export function deletePrint(id: string, version: number) {
+  return callData(printsApi.remove, { params: { id }, query: { version } });
 }
 
 export function useDeletePrint() {

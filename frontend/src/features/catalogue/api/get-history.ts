@@ -1,16 +1,12 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { HistoryEvent } from '@toneledger/common/schemas/catalogue';
-import { requestData } from '@/lib/api-client';
-import { printKeys } from '@/features/catalogue/api/keys';
-
-export function getHistory(printId: string, signal?: AbortSignal): Promise<HistoryEvent[]> {
-  return requestData<HistoryEvent[]>(`/api/prints/${encodeURIComponent(printId)}/history`, { signal });
-}
+import { printsApi } from '@toneledger/common/api/prints';
+import { callData } from '@/lib/api-client';
+import { printKeys } from '@/lib/prints-api';
 
 export function historyQueryOptions(printId: string) {
   return queryOptions({
     queryKey: printKeys.history(printId),
-    queryFn: ({ signal }) => getHistory(printId, signal),
+    queryFn: ({ signal }) => callData(printsApi.history, { params: { id: printId }, signal }),
   });
 }
 

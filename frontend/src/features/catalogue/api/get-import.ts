@@ -1,8 +1,10 @@
 import { useEffect } from 'react';
 import { queryOptions, useQuery, useQueryClient } from '@tanstack/react-query';
+import { importsApi } from '@toneledger/common/api/imports';
 import type { ImportJob } from '@toneledger/common/schemas/catalogue';
-import { requestData } from '@/lib/api-client';
-import { importKeys, printKeys } from '@/features/catalogue/api/keys';
+import { callData } from '@/lib/api-client';
+import { importKeys } from '@/features/catalogue/api/keys';
+import { printKeys } from '@/lib/prints-api';
 
 /** How often a running import is asked for its progress. */
 export const IMPORT_POLL_MS = 700;
@@ -11,8 +13,8 @@ export function isImportRunning(job: Pick<ImportJob, 'status'> | undefined): boo
   return job?.status === 'validating' || job?.status === 'committing';
 }
 
-export function getImport(id: string, signal?: AbortSignal): Promise<ImportJob> {
-  return requestData<ImportJob>(`/api/imports/${encodeURIComponent(id)}`, { signal });
+export function getImport(id: string, signal?: AbortSignal) {
+  return callData(importsApi.get, { params: { id }, signal });
 }
 
 export function importQueryOptions(id: string) {

@@ -1,16 +1,12 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { Movement } from '@toneledger/common/schemas/catalogue';
-import { requestData } from '@/lib/api-client';
-import { printKeys } from '@/features/catalogue/api/keys';
-
-export function getMovements(printId: string, signal?: AbortSignal): Promise<Movement[]> {
-  return requestData<Movement[]>(`/api/prints/${encodeURIComponent(printId)}/movements`, { signal });
-}
+import { printsApi } from '@toneledger/common/api/prints';
+import { callData } from '@/lib/api-client';
+import { printKeys } from '@/lib/prints-api';
 
 export function movementsQueryOptions(printId: string) {
   return queryOptions({
     queryKey: printKeys.movements(printId),
-    queryFn: ({ signal }) => getMovements(printId, signal),
+    queryFn: ({ signal }) => callData(printsApi.movements, { params: { id: printId }, signal }),
   });
 }
 

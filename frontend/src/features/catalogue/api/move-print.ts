@@ -1,17 +1,13 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { Print } from '@toneledger/common/schemas/catalogue';
-import { isApiError, requestData } from '@/lib/api-client';
-import { printKeys } from '@/features/catalogue/api/keys';
+import type { BodyIn } from '@toneledger/common/api/endpoint';
+import { printsApi } from '@toneledger/common/api/prints';
+import { callData, isApiError } from '@/lib/api-client';
+import { printKeys } from '@/lib/prints-api';
 
-export interface MovementInput {
-  toLocationId: string;
-  reason: string;
-  movedAt?: string;
-  version: number;
-}
+export type MovementInput = BodyIn<typeof printsApi.move>;
 
-export function movePrint(printId: string, input: MovementInput): Promise<Print> {
-  return requestData<Print>(`/api/prints/${encodeURIComponent(printId)}/movements`, { method: 'POST', body: input });
+export function movePrint(printId: string, input: MovementInput) {
+  return callData(printsApi.move, { params: { id: printId }, body: input });
 }
 
 export function useMovePrint() {

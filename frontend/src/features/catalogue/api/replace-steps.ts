@@ -1,16 +1,14 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { Print, ProcessStepInput } from '@toneledger/common/schemas/catalogue';
-import { requestData } from '@/lib/api-client';
-import { printKeys } from '@/features/catalogue/api/keys';
+import type { BodyIn } from '@toneledger/common/api/endpoint';
+import { printsApi } from '@toneledger/common/api/prints';
+import { callData } from '@/lib/api-client';
+import { printKeys } from '@/lib/prints-api';
 
-export interface StepsReplace {
-  version: number;
-  steps: ProcessStepInput[];
-}
+export type StepsReplace = BodyIn<typeof printsApi.replaceSteps>;
 
 /** Replaces the whole ordered list of process steps of one print. */
-export function replaceSteps(printId: string, body: StepsReplace): Promise<Print> {
-  return requestData<Print>(`/api/prints/${encodeURIComponent(printId)}/steps`, { method: 'PUT', body });
+export function replaceSteps(printId: string, body: StepsReplace) {
+  return callData(printsApi.replaceSteps, { params: { id: printId }, body });
 }
 
 export function useReplaceSteps() {

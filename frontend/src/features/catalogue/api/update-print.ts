@@ -1,10 +1,13 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { Print, PrintUpdate } from '@toneledger/common/schemas/catalogue';
-import { requestData } from '@/lib/api-client';
-import { printKeys } from '@/features/catalogue/api/keys';
+import type { BodyIn } from '@toneledger/common/api/endpoint';
+import { printsApi } from '@toneledger/common/api/prints';
+import { callData } from '@/lib/api-client';
+import { printKeys } from '@/lib/prints-api';
 
-export function updatePrint(id: string, update: PrintUpdate): Promise<Print> {
-  return requestData<Print>(`/api/prints/${encodeURIComponent(id)}`, { method: 'PATCH', body: update });
+export type PrintUpdate = BodyIn<typeof printsApi.update>;
+
+export function updatePrint(id: string, update: PrintUpdate) {
+  return callData(printsApi.update, { params: { id }, body: update });
 }
 
 export function useUpdatePrint() {

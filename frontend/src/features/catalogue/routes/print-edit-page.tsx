@@ -3,7 +3,7 @@ import { ErrorNotice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/loading';
 import { PageHeader } from '@/components/ui/page-header';
 import { useDocumentTitle } from '@/lib/use-document-title';
-import { usePrint } from '@/features/catalogue/api/get-print';
+import { usePrint } from '@/lib/prints-api';
 import { PrintForm } from '@/features/catalogue/components/print-form';
 
 export function PrintEditPage() {

@@ -3,7 +3,7 @@ import { ErrorNotice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/loading';
 import { PageHeader } from '@/components/ui/page-header';
 import { useDocumentTitle } from '@/lib/use-document-title';
-import { usePrint } from '@/features/catalogue/api/get-print';
+import { usePrint } from '@/lib/prints-api';
 import { StepsEditor } from '@/features/catalogue/components/steps-editor';
 
 /** A page of its own, so the print's page stays a calm record and the editor has room for its fields. */

@@ -10,7 +10,7 @@ import { Pagination } from '@/components/ui/pagination';
 import { useMe } from '@/lib/auth';
 import { useSearchQuery } from '@/lib/search-query';
 import { useDocumentTitle } from '@/lib/use-document-title';
-import { usePrints } from '@/features/catalogue/api/get-prints';
+import { usePrints } from '@/lib/prints-api';
 import { printsCsvHref } from '@/features/catalogue/api/exports';
 import { ColumnChooser, useColumnVisibility } from '@/features/catalogue/components/column-chooser';
 import { PrintsFilters } from '@/features/catalogue/components/prints-filters';
