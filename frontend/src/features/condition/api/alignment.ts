@@ -1,19 +1,15 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { z } from 'zod';
-import type { Alignment, alignmentInputSchema } from '@toneledger/common/schemas/images';
-import { requestData } from '@/lib/api-client';
+import type { BodyIn } from '@toneledger/common/api/endpoint';
+import { imagesApi } from '@toneledger/common/api/images';
+import { callData } from '@/lib/api-client';
 import { alignmentKeys, type AlignmentQuery } from '@/features/condition/api/keys';
 
-export type AlignmentInput = z.infer<typeof alignmentInputSchema>;
-
-export function getAlignment(query: AlignmentQuery, signal?: AbortSignal): Promise<Alignment | null> {
-  return requestData<Alignment | null>('/api/image-alignments', { query: { ...query }, signal });
-}
+export type AlignmentInput = BodyIn<typeof imagesApi.saveAlignment>;
 
 export function alignmentQueryOptions(query: AlignmentQuery) {
   return queryOptions({
     queryKey: alignmentKeys.detail(query),
-    queryFn: ({ signal }) => getAlignment(query, signal),
+    queryFn: ({ signal }) => callData(imagesApi.alignment, { query, signal }),
   });
 }
 
@@ -24,8 +20,8 @@ export function useAlignment(query: AlignmentQuery | null) {
   });
 }
 
-export function saveAlignment(input: AlignmentInput): Promise<Alignment> {
-  return requestData<Alignment>('/api/image-alignments', { method: 'PUT', body: input });
+export function saveAlignment(input: AlignmentInput) {
+  return callData(imagesApi.saveAlignment, { body: input });
 }
 
 export function useSaveAlignment() {

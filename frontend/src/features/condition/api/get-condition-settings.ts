@@ -1,20 +1,13 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import { conditionSettingsApi } from '@toneledger/common/api/condition';
 import { DEFAULT_GRADE_DEFINITIONS, type GradeDefinitions } from '@toneledger/common/schemas/condition';
-import { requestData } from '@/lib/api-client';
+import { callData } from '@/lib/api-client';
 import { settingsKeys } from '@/features/condition/api/keys';
-
-export interface ConditionSettings {
-  grades: GradeDefinitions;
-}
-
-export function getConditionSettings(signal?: AbortSignal): Promise<ConditionSettings> {
-  return requestData<ConditionSettings>('/api/settings/condition', { signal });
-}
 
 export function conditionSettingsQueryOptions() {
   return queryOptions({
     queryKey: settingsKeys.condition(),
-    queryFn: ({ signal }) => getConditionSettings(signal),
+    queryFn: ({ signal }) => callData(conditionSettingsApi.get, { signal }),
     staleTime: 5 * 60_000,
   });
 }

@@ -1,16 +1,12 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { ConditionReport } from '@toneledger/common/schemas/condition';
-import { requestData } from '@/lib/api-client';
+import { reportsApi } from '@toneledger/common/api/condition';
+import { callData } from '@/lib/api-client';
 import { reportKeys } from '@/features/condition/api/keys';
-
-export function getReport(id: string, signal?: AbortSignal): Promise<ConditionReport> {
-  return requestData<ConditionReport>(`/api/condition-reports/${encodeURIComponent(id)}`, { signal });
-}
 
 export function reportQueryOptions(id: string) {
   return queryOptions({
     queryKey: reportKeys.detail(id),
-    queryFn: ({ signal }) => getReport(id, signal),
+    queryFn: ({ signal }) => callData(reportsApi.get, { params: { id }, signal }),
   });
 }
 

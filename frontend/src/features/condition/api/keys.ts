@@ -1,6 +1,10 @@
-import type { PrintListQuery } from '@toneledger/common/schemas/catalogue';
+import type { QueryIn } from '@toneledger/common/api/endpoint';
+import type { imagesApi } from '@toneledger/common/api/images';
 
-/** Query keys for the `condition-reports` resource. Lists are per print. */
+/**
+ * Query keys for the `condition-reports` resource. Lists are per print. Prints and images are read
+ * through `@/lib/prints-api` and `@/lib/images-api`.
+ */
 export const reportKeys = {
   all: ['condition-reports'] as const,
   lists: () => [...reportKeys.all, 'list'] as const,
@@ -22,24 +26,7 @@ export const settingsKeys = {
   condition: () => [...settingsKeys.all, 'condition'] as const,
 };
 
-export interface ImageListQuery {
-  includeWithdrawn?: boolean;
-}
-
-/** Query keys for the `images` resource. Lists are per print; fixity history sits under an image. */
-export const imageKeys = {
-  all: ['images'] as const,
-  lists: () => [...imageKeys.all, 'list'] as const,
-  list: (printId: string, query: ImageListQuery = {}) => [...imageKeys.lists(), { printId, ...query }] as const,
-  details: () => [...imageKeys.all, 'detail'] as const,
-  detail: (id: string) => [...imageKeys.details(), id] as const,
-  fixity: (id: string) => [...imageKeys.detail(id), 'fixity'] as const,
-};
-
-export interface AlignmentQuery {
-  baseImageId: string;
-  otherImageId: string;
-}
+export type AlignmentQuery = QueryIn<typeof imagesApi.alignment>;
 
 /** Query keys for the `image-alignments` resource: one saved alignment per pair of images. */
 export const alignmentKeys = {
@@ -48,18 +35,8 @@ export const alignmentKeys = {
   detail: (query: AlignmentQuery) => [...alignmentKeys.details(), query] as const,
 };
 
-/** Query keys for fixity alerts (`/api/admin/fixity`). */
+/** Query keys for fixity alerts (`fixityApi.alerts`). */
 export const fixityKeys = {
   all: ['fixity'] as const,
   alerts: () => [...fixityKeys.all, 'alerts'] as const,
-};
-
-/** Query keys for the `prints` resource, as this feature reads it (the same values the catalogue uses). */
-export const printKeys = {
-  all: ['prints'] as const,
-  lists: () => [...printKeys.all, 'list'] as const,
-  list: (query: Pick<PrintListQuery, 'q' | 'pageSize'>) => [...printKeys.lists(), query] as const,
-  details: () => [...printKeys.all, 'detail'] as const,
-  detail: (id: string) => [...printKeys.details(), id] as const,
-  timeline: (id: string) => [...printKeys.detail(id), 'timeline'] as const,
 };

@@ -1,22 +1,25 @@
 import { useMutation, useQueryClient, type QueryClient } from '@tanstack/react-query';
-import type { z } from 'zod';
-import type { FixityResult, PrintImage, imageDeleteSchema, imageUpdateSchema } from '@toneledger/common/schemas/images';
-import { requestData } from '@/lib/api-client';
-import { fixityKeys, imageKeys, printKeys } from '@/features/condition/api/keys';
+import type { BodyIn } from '@toneledger/common/api/endpoint';
+import { fixityApi, imagesApi } from '@toneledger/common/api/images';
+import type { PrintImage } from '@toneledger/common/schemas/images';
+import { callData } from '@/lib/api-client';
+import { imageKeys } from '@/lib/images-api';
+import { printKeys } from '@/lib/prints-api';
+import { fixityKeys } from '@/features/condition/api/keys';
 
-export type ImageUpdate = z.input<typeof imageUpdateSchema>;
-export type ImageWithdrawal = z.input<typeof imageDeleteSchema>;
+export type ImageUpdate = BodyIn<typeof imagesApi.update>;
+export type ImageWithdrawal = BodyIn<typeof imagesApi.withdraw>;
 
-export function updateImage(id: string, update: ImageUpdate): Promise<PrintImage> {
-  return requestData<PrintImage>(`/api/images/${encodeURIComponent(id)}`, { method: 'PATCH', body: update });
+export function updateImage(id: string, update: ImageUpdate) {
+  return callData(imagesApi.update, { params: { id }, body: update });
 }
 
-export function withdrawImage(id: string, withdrawal: ImageWithdrawal): Promise<PrintImage> {
-  return requestData<PrintImage>(`/api/images/${encodeURIComponent(id)}/withdraw`, { method: 'POST', body: withdrawal });
+export function withdrawImage(id: string, withdrawal: ImageWithdrawal) {
+  return callData(imagesApi.withdraw, { params: { id }, body: withdrawal });
 }
 
-export function checkFixity(id: string): Promise<FixityResult> {
-  return requestData<FixityResult>(`/api/images/${encodeURIComponent(id)}/fixity`, { method: 'POST', body: {} });
+export function checkFixity(id: string) {
+  return callData(fixityApi.check, { params: { id }, body: {} });
 }
 
 /** A changed image: its detail is set; the image lists and the print's timeline are refreshed. */

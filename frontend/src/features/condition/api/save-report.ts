@@ -1,29 +1,32 @@
 import { useMutation, useQueryClient, type QueryClient } from '@tanstack/react-query';
-import type { z } from 'zod';
-import type { ConditionReport, ReportInput, reportUpdateSchema } from '@toneledger/common/schemas/condition';
-import { requestData } from '@/lib/api-client';
-import { printKeys, reportKeys } from '@/features/condition/api/keys';
+import { reportsApi } from '@toneledger/common/api/condition';
+import type { BodyIn } from '@toneledger/common/api/endpoint';
+import type { ConditionReport } from '@toneledger/common/schemas/condition';
+import { callData } from '@/lib/api-client';
+import { printKeys } from '@/lib/prints-api';
+import { reportKeys } from '@/features/condition/api/keys';
 
-export type ReportUpdate = z.input<typeof reportUpdateSchema>;
+export type ReportInput = BodyIn<typeof reportsApi.create>;
+export type ReportUpdate = BodyIn<typeof reportsApi.update>;
 
-export function createReport(printId: string, input: ReportInput): Promise<ConditionReport> {
-  return requestData<ConditionReport>(`/api/prints/${encodeURIComponent(printId)}/condition-reports`, { method: 'POST', body: input });
+export function createReport(printId: string, input: ReportInput) {
+  return callData(reportsApi.create, { params: { id: printId }, body: input });
 }
 
-export function updateReport(id: string, update: ReportUpdate): Promise<ConditionReport> {
-  return requestData<ConditionReport>(`/api/condition-reports/${encodeURIComponent(id)}`, { method: 'PATCH', body: update });
+export function updateReport(id: string, update: ReportUpdate) {
+  return callData(reportsApi.update, { params: { id }, body: update });
 }
 
-export function signReport(id: string, version: number): Promise<ConditionReport> {
-  return requestData<ConditionReport>(`/api/condition-reports/${encodeURIComponent(id)}/sign`, { method: 'POST', body: { version } });
+export function signReport(id: string, version: number) {
+  return callData(reportsApi.sign, { params: { id }, body: { version } });
 }
 
-export function addAddendum(id: string, text: string): Promise<ConditionReport> {
-  return requestData<ConditionReport>(`/api/condition-reports/${encodeURIComponent(id)}/addenda`, { method: 'POST', body: { text } });
+export function addAddendum(id: string, text: string) {
+  return callData(reportsApi.addAddendum, { params: { id }, body: { text } });
 }
 
-export function discardReport(id: string, version: number): Promise<{ id: string }> {
-  return requestData<{ id: string }>(`/api/condition-reports/${encodeURIComponent(id)}`, { method: 'DELETE', query: { version } });
+export function discardReport(id: string, version: number) {
+  return callData(reportsApi.discard, { params: { id }, query: { version } });
 }
 
 /** A saved report: its detail is set, the print's list and timeline are refreshed. */

@@ -3,7 +3,7 @@ import { Link } from 'react-router-dom';
 import { VIEW_TYPE_LABELS, type PrintImage } from '@toneledger/common/schemas/images';
 import { buttonClasses } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/field';
-import { useImages } from '@/features/condition/api/get-images';
+import { useImages } from '@/lib/images-api';
 import { imageLabel } from '@/features/condition/components/region-drawer';
 import { byCapture, defaultPair } from '@/features/condition/utils/compare';
 

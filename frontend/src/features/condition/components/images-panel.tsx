@@ -4,7 +4,7 @@ import { VIEW_TYPE_LABELS, type PrintImage } from '@toneledger/common/schemas/im
 import { ErrorNotice, Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/loading';
 import { formatDateTime } from '@/lib/format';
-import { useImages } from '@/features/condition/api/get-images';
+import { useImages } from '@/lib/images-api';
 import { FixityBadge } from '@/features/condition/components/fixity-badge';
 import { ImageDetails } from '@/features/condition/components/image-details';
 import { UploadQueue } from '@/features/condition/components/upload-queue';

@@ -3,8 +3,9 @@ import { useQueryClient } from '@tanstack/react-query';
 import { VIEW_TYPES, VIEW_TYPE_LABELS } from '@toneledger/common/schemas/images';
 import { Button } from '@/components/ui/button';
 import { isApiError } from '@/lib/api-client';
-import { imageKeys, printKeys } from '@/features/condition/api/keys';
-import { uploadImage } from '@/features/condition/api/upload-image';
+import { imageKeys } from '@/lib/images-api';
+import { printKeys } from '@/lib/prints-api';
+import { uploadImage, type ImageUpload } from '@/features/condition/api/upload-image';
 import { formatBytes } from '@/features/condition/utils/format';
 
 type Status = 'waiting' | 'uploading' | 'done' | 'failed';
@@ -12,7 +13,7 @@ type Status = 'waiting' | 'uploading' | 'done' | 'failed';
 interface QueuedFile {
   id: number;
   file: File;
-  viewType: string;
+  viewType: ImageUpload['viewType'];
   capturedOn: string;
   notes: string;
   status: Status;
@@ -114,7 +115,7 @@ export function UploadQueue({ printId }: { printId: string }) {
                     className="h-8 rounded border border-paper-400 bg-white px-2"
                     value={item.viewType}
                     disabled={item.status === 'uploading' || item.status === 'done'}
-                    onChange={(e) => patch(item.id, { viewType: e.target.value })}
+                    onChange={(e) => patch(item.id, { viewType: e.target.value as ImageUpload['viewType'] })}
                   >
                     {VIEW_TYPES.map((v) => (
                       <option key={v} value={v}>

@@ -11,7 +11,7 @@ import { PageHeader } from '@/components/ui/page-header';
 import { useMe } from '@/lib/auth';
 import { formatDateTime } from '@/lib/format';
 import { useDocumentTitle } from '@/lib/use-document-title';
-import { useFindPrints } from '@/features/condition/api/find-prints';
+import { useFindPrints } from '@/lib/prints-api';
 import { useFixityAlerts, useRunFixityCheck } from '@/features/condition/api/fixity';
 
 function PrintSearch() {

@@ -3,7 +3,7 @@ import { can } from '@toneledger/common/domain/roles';
 import { Loading } from '@/components/ui/loading';
 import { useMe } from '@/lib/auth';
 import { useDocumentTitle } from '@/lib/use-document-title';
-import { usePrint } from '@/features/condition/api/get-print';
+import { usePrint } from '@/lib/prints-api';
 import { CompareChooser } from '@/features/condition/components/compare-chooser';
 import { ImagesPanel } from '@/features/condition/components/images-panel';
 import { PrintIdentityLine } from '@/features/condition/components/print-identity-line';

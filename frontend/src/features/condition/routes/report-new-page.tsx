@@ -2,10 +2,10 @@ import { Link, useNavigate, useParams } from 'react-router-dom';
 import { Loading } from '@/components/ui/loading';
 import { PageHeader } from '@/components/ui/page-header';
 import { useDocumentTitle } from '@/lib/use-document-title';
+import { useImages } from '@/lib/images-api';
+import { usePrint } from '@/lib/prints-api';
 import { useGradeDefinitions } from '@/features/condition/api/get-condition-settings';
 import { useConditionTerms } from '@/features/condition/api/get-condition-terms';
-import { useImages } from '@/features/condition/api/get-images';
-import { usePrint } from '@/features/condition/api/get-print';
 import { ReportForm } from '@/features/condition/components/report-form';
 import { NotLoaded } from '@/features/condition/routes/print-not-loaded';
 

@@ -1,6 +1,8 @@
+import { imagesApi } from '@toneledger/common/api/images';
 import type { Print } from '@toneledger/common/schemas/catalogue';
 import type { ConditionReport, ConditionTerm, Observation } from '@toneledger/common/schemas/condition';
 import type { PrintImage } from '@toneledger/common/schemas/images';
+import { urlOf } from '@/lib/api-client';
 import { json } from '@/test/fetch-mock';
 
 export const PRINT_ID = '11111111-2222-4333-8444-555555555555';
@@ -29,7 +31,7 @@ export function makeImage(overrides: Partial<PrintImage> = {}): PrintImage {
     id, printId: PRINT_ID, viewType: 'recto', capturedOn: '1995-05-02', notes: null, fileName: 'recto-1995.tif', contentType: 'image/tiff',
     sizeBytes: 2_400_000, width: 4000, height: 3000, sha256: 'a'.repeat(64),
     exif: { capturedAt: null, make: 'Camera Co', model: 'Model 5', lens: null, exposureTime: 0.008, fNumber: 8, iso: 100, focalLength: 50 },
-    derivatives: 'ready', urls: { thumb: `/api/images/${id}/file/thumb`, screen: `/api/images/${id}/file/screen`, original: null },
+    derivatives: 'ready', urls: { thumb: urlOf(imagesApi.file, { params: { id, variant: 'thumb' } }), screen: urlOf(imagesApi.file, { params: { id, variant: 'screen' } }), original: null },
     lastFixity: null, uploadedAt: '2024-01-02T10:00:00.000Z', uploadedBy: 'Ada Marsh', withdrawn: null, version: 1, ...overrides,
   };
 }
