@@ -1,13 +1,13 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { z } from 'zod';
-import type { MeasurementSession, sessionInputSchema } from '@toneledger/common/schemas/measurements';
-import { requestData } from '@/lib/api-client';
+import type { BodyIn } from '@toneledger/common/api/endpoint';
+import { measurementsApi } from '@toneledger/common/api/measurements';
+import { callData } from '@/lib/api-client';
 import { measurementKeys, sessionKeys } from '@/features/measurements/api/keys';
 
-export type SessionBody = z.input<typeof sessionInputSchema>;
+export type SessionBody = BodyIn<typeof measurementsApi.recordSession>;
 
-export function createSession(printId: string, input: SessionBody): Promise<MeasurementSession> {
-  return requestData<MeasurementSession>(`/api/prints/${encodeURIComponent(printId)}/measurement-sessions`, { method: 'POST', body: input });
+export function createSession(printId: string, input: SessionBody) {
+  return callData(measurementsApi.recordSession, { params: { id: printId }, body: input });
 }
 
 /** A recorded session: its detail is set; the print's analysis and the collection-wide list are asked for again. */

@@ -1,17 +1,13 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { PrintMeasurements } from '@toneledger/common/schemas/measurements';
-import { requestData } from '@/lib/api-client';
+import { measurementsApi } from '@toneledger/common/api/measurements';
+import { callData } from '@/lib/api-client';
 import { measurementKeys } from '@/features/measurements/api/keys';
 
 /** A print's spots, each with its change against baseline, rate and projection, and its sessions. */
-export function getPrintMeasurements(printId: string, signal?: AbortSignal): Promise<PrintMeasurements> {
-  return requestData<PrintMeasurements>(`/api/prints/${encodeURIComponent(printId)}/measurements`, { signal });
-}
-
 export function printMeasurementsQueryOptions(printId: string) {
   return queryOptions({
     queryKey: measurementKeys.detail(printId),
-    queryFn: ({ signal }) => getPrintMeasurements(printId, signal),
+    queryFn: ({ signal }) => callData(measurementsApi.forPrint, { params: { id: printId }, signal }),
   });
 }
 

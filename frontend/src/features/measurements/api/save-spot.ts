@@ -1,23 +1,24 @@
 import { useMutation, useQueryClient, type QueryClient } from '@tanstack/react-query';
-import type { z } from 'zod';
-import type { PrintMeasurements, Spot, baselineChoiceSchema, spotInputSchema, spotUpdateSchema } from '@toneledger/common/schemas/measurements';
-import { requestData } from '@/lib/api-client';
+import type { BodyIn } from '@toneledger/common/api/endpoint';
+import { measurementsApi } from '@toneledger/common/api/measurements';
+import type { PrintMeasurements, Spot } from '@toneledger/common/schemas/measurements';
+import { callData } from '@/lib/api-client';
 import { measurementKeys, spotKeys } from '@/features/measurements/api/keys';
 
-export type SpotInput = z.input<typeof spotInputSchema>;
-export type SpotUpdate = z.input<typeof spotUpdateSchema>;
-export type BaselineChoice = z.input<typeof baselineChoiceSchema>;
+export type SpotInput = BodyIn<typeof measurementsApi.createSpot>;
+export type SpotUpdate = BodyIn<typeof measurementsApi.updateSpot>;
+export type BaselineChoice = BodyIn<typeof measurementsApi.chooseBaseline>;
 
-export function createSpot(printId: string, input: SpotInput): Promise<Spot> {
-  return requestData<Spot>(`/api/prints/${encodeURIComponent(printId)}/measurement-spots`, { method: 'POST', body: input });
+export function createSpot(printId: string, input: SpotInput) {
+  return callData(measurementsApi.createSpot, { params: { id: printId }, body: input });
 }
 
-export function updateSpot(id: string, update: SpotUpdate): Promise<Spot> {
-  return requestData<Spot>(`/api/measurement-spots/${encodeURIComponent(id)}`, { method: 'PATCH', body: update });
+export function updateSpot(id: string, update: SpotUpdate) {
+  return callData(measurementsApi.updateSpot, { params: { id }, body: update });
 }
 
-export function chooseBaseline(id: string, choice: BaselineChoice): Promise<Spot> {
-  return requestData<Spot>(`/api/measurement-spots/${encodeURIComponent(id)}/baseline`, { method: 'PUT', body: choice });
+export function chooseBaseline(id: string, choice: BaselineChoice) {
+  return callData(measurementsApi.chooseBaseline, { params: { id }, body: choice });
 }
 
 /**

@@ -4,7 +4,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { ErrorNotice } from '@/components/ui/notice';
-import { findPrintsQueryOptions, useFindPrints } from '@/features/measurements/api/find-prints';
+import { findPrintsQueryOptions, useFindPrints } from '@/lib/prints-api';
 
 const PAGE_SIZE = 10;
 

@@ -5,7 +5,7 @@ import { makeMe } from '@/test/fixtures';
 import { renderRoutes } from '@/test/render';
 import type { Leader } from '@/features/measurements/api/get-leaders';
 import { LeadersPage } from '@/features/measurements/routes/leaders-page';
-import { PRINT_ID, SPOT_ID } from '@/features/measurements/testing/fixtures';
+import { PRINT_ID, SPOT_ID, makeListItem } from '@/features/measurements/testing/fixtures';
 
 const SLOW = { timeout: 4000 };
 
@@ -66,7 +66,7 @@ describe('spots changing most', () => {
   it('opens a print straight away when the accession number matches exactly', async () => {
     const { router, requests } = renderLeaders('/measurements', 'researcher', {
       'GET /api/prints': () =>
-        json({ data: [{ id: PRINT_ID, accessionNumber: '1979.3.12', title: 'Quay cranes in fog' }], pagination: { page: 1, pageSize: 10, total: 1 } }),
+        json({ data: [makeListItem()], pagination: { page: 1, pageSize: 10, total: 1 } }),
     });
     fireEvent.change(await screen.findByLabelText('Accession number', {}, SLOW), { target: { value: '1979.3.12' } });
     fireEvent.click(screen.getByRole('button', { name: 'Open print' }));
@@ -77,7 +77,7 @@ describe('spots changing most', () => {
   it('lists near matches to choose from when none matches exactly', async () => {
     renderLeaders('/measurements', 'researcher', {
       'GET /api/prints': () =>
-        json({ data: [{ id: PRINT_ID, accessionNumber: '1979.3.12', title: 'Quay cranes in fog' }], pagination: { page: 1, pageSize: 10, total: 1 } }),
+        json({ data: [makeListItem()], pagination: { page: 1, pageSize: 10, total: 1 } }),
     });
     fireEvent.change(await screen.findByLabelText('Accession number', {}, SLOW), { target: { value: '1979.3' } });
     fireEvent.click(screen.getByRole('button', { name: 'Open print' }));

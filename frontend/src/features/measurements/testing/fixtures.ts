@@ -1,4 +1,4 @@
-import type { Print } from '@toneledger/common/schemas/catalogue';
+import { printListItemSchema, type Print, type PrintListItem } from '@toneledger/common/schemas/catalogue';
 import type { PrintImage } from '@toneledger/common/schemas/images';
 import type { MeasurementSession, PrintMeasurements, Spot, SpotAnalysis } from '@toneledger/common/schemas/measurements';
 
@@ -38,6 +38,11 @@ export function makePrint(overrides: Partial<Print> = {}): Print {
     updatedAt: '2024-06-01T10:00:00.000Z',
     ...overrides,
   };
+}
+
+/** The print as the catalogue's list answers it (what the print finder's search returns). */
+export function makeListItem(print: Print = makePrint()): PrintListItem {
+  return printListItemSchema.parse({ ...print, makerName: null, paperLabel: null, enclosureName: null, warningCodes: [] });
 }
 
 export function makeSpot(overrides: Partial<Spot> = {}): Spot {
