@@ -5,7 +5,7 @@ import { AppError, validationFailed } from '../errors';
 /**
  * One small file in memory from a multipart field (CSV imports and previews), with multer's errors
  * turned into the envelope: not multipart → 415, too large → 413, anything else → 400 on `file`.
- * Large files (images) stream to disk instead: see services/image-ingest.ts.
+ * Images stream to disk instead: see middleware/image-upload.ts.
  */
 export function singleUpload(field: string, maxBytes: number) {
   const handler = multer({ storage: multer.memoryStorage(), limits: { fileSize: maxBytes, files: 1, fields: 5 } }).single(field);
