@@ -10,6 +10,9 @@ export interface SummaryItem {
   target: HTMLElement | null;
 }
 
+/** A person's name for a field path, given the label the field has on the page; null to keep that label. */
+export type LabelFor = (path: string, label: string | null) => string | null;
+
 const attr = (value: string) => value.replace(/["\\]/g, '\\$&');
 
 /** The control that shows a field: its `name`, or a `data-field` on a control group (radios, a drawn region). */
@@ -32,12 +35,13 @@ function labelText(element: HTMLElement): string | null {
  * The problems of a form as the summary lists them: each field once, the whole form's problem first,
  * then the fields in the order they stand on the page (fields not on the page last).
  */
-export function summaryItems(errors: FieldErrors, root: ParentNode, labelFor?: (path: string) => string | null): SummaryItem[] {
+export function summaryItems(errors: FieldErrors, root: ParentNode, labelFor?: LabelFor): SummaryItem[] {
   const items = Object.entries(errors)
     .filter(([, message]) => message)
     .map(([path, message]): SummaryItem => {
       const target = path === '' ? null : fieldElement(root, path);
-      return { path, message, target, label: path === '' ? null : (labelFor?.(path) ?? (target ? labelText(target) : null)) };
+      const own = target ? labelText(target) : null;
+      return { path, message, target, label: path === '' ? null : (labelFor?.(path, own) ?? own) };
     });
   const rank = (item: SummaryItem) => (item.path === '' ? 0 : item.target ? 1 : 2);
   return items
@@ -56,7 +60,7 @@ export function summaryItems(errors: FieldErrors, root: ParentNode, labelFor?: (
 export interface ErrorSummaryProps {
   errors: FieldErrors;
   /** A person's name for a field path, where the field's own label is not enough ("Observation 2 · Severity"). */
-  labelFor?: (path: string) => string | null;
+  labelFor?: LabelFor;
   /** Takes focus each time this number grows (after a refused submit). */
   focusRequest?: number;
 }

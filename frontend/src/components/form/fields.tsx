@@ -12,6 +12,8 @@ interface Common {
   fieldClassName?: string;
   /** A problem found as the person types (before any submit); a problem from the schema or the server comes first. */
   liveError?: string;
+  /** The control's id, where the form needs to know it (focus after a move); otherwise one is made from the name. */
+  id?: string;
 }
 
 type Native<T> = Omit<T, 'name' | 'value' | 'defaultValue' | 'onChange' | 'onBlur' | 'id' | 'form'>;
@@ -22,8 +24,10 @@ export interface TextInputProps extends Common, Native<InputHTMLAttributes<HTMLI
 }
 
 /** A text box bound to a schema form: label, hint or error below, and the contract's length limit. */
-export function TextInput({ name, label, hint, fieldClassName, liveError, transform, ...rest }: TextInputProps) {
-  const { id, limits } = useFieldSetup(name);
+export function TextInput({ name, id: givenId, label, hint, fieldClassName, liveError, transform, ...rest }: TextInputProps) {
+  const setup = useFieldSetup(name);
+  const { limits } = setup;
+  const id = givenId ?? setup.id;
   const { field, fieldState } = useController({ name });
   return (
     <TextField
@@ -55,8 +59,10 @@ export function DateInput(props: TextInputProps) {
 export interface TextAreaInputProps extends Common, Native<TextareaHTMLAttributes<HTMLTextAreaElement>> {}
 
 /** Multi-line text bound to a schema form, with the contract's length limit. */
-export function TextAreaInput({ name, label, hint, fieldClassName, liveError, ...rest }: TextAreaInputProps) {
-  const { id, limits } = useFieldSetup(name);
+export function TextAreaInput({ name, id: givenId, label, hint, fieldClassName, liveError, ...rest }: TextAreaInputProps) {
+  const setup = useFieldSetup(name);
+  const { limits } = setup;
+  const id = givenId ?? setup.id;
   const { field, fieldState } = useController({ name });
   return (
     <TextAreaField
@@ -80,12 +86,14 @@ export interface SelectInputProps extends Common, Native<SelectHTMLAttributes<HT
   options?: readonly { value: string; label: string }[];
   /** The label of the empty choice ('' in the form), e.g. "Not recorded" or "Choose…". */
   empty?: string;
+  /** Takes a choice in place of setting the field (a change that sets other fields too). */
+  onChangeValue?: (value: string) => void;
   children?: ReactNode;
 }
 
 /** A choice bound to a schema form. Controlled, so a value whose option loads later still shows. */
-export function SelectInput({ name, label, hint, fieldClassName, liveError, options, empty, children, ...rest }: SelectInputProps) {
-  const { id } = useFieldSetup(name);
+export function SelectInput({ name, id: givenId, label, hint, fieldClassName, liveError, options, empty, onChangeValue, children, ...rest }: SelectInputProps) {
+  const id = givenId ?? useFieldSetup(name).id;
   const { field, fieldState } = useController({ name });
   return (
     <SelectField
@@ -97,7 +105,7 @@ export function SelectInput({ name, label, hint, fieldClassName, liveError, opti
       {...rest}
       name={field.name}
       value={(field.value as string | null | undefined) ?? ''}
-      onChange={(event) => field.onChange(event.target.value)}
+      onChange={(event) => (onChangeValue ? onChangeValue(event.target.value) : field.onChange(event.target.value))}
       onBlur={field.onBlur}
     >
       {empty !== undefined ? <option value="">{empty}</option> : null}

@@ -1,7 +1,7 @@
 import { useId, type FormHTMLAttributes, type ReactNode } from 'react';
 import { FormProvider, useFormState, useWatch, type FieldValues } from 'react-hook-form';
 import type { z } from 'zod';
-import { ErrorSummary } from '@/components/form/error-summary';
+import { ErrorSummary, type LabelFor } from '@/components/form/error-summary';
 import { SchemaFormContext } from '@/components/form/form-context';
 import { StaleEditReview } from '@/components/form/stale-edit-review';
 import { ErrorNotice, Notice } from '@/components/ui/notice';
@@ -13,7 +13,7 @@ export interface SchemaFormProps<S extends z.ZodType, V extends FieldValues> ext
   form: SchemaFormApi<S, V>;
   onValid: (body: z.output<S>, values: V) => unknown;
   /** A person's name for a field path the field's own label does not give (rows of a list). */
-  labelFor?: (path: string) => string | null;
+  labelFor?: LabelFor;
   /** Maps a form field to the contract's path for its limits, where the two differ. */
   schemaPath?: (name: string) => string;
   /** The edit of a saved record: shows the stale-edit review when someone saved in between. */
@@ -42,7 +42,7 @@ function Review<V extends FieldValues>({ edit, subject, form }: { edit: RecordEd
   );
 }
 
-function Summary<V extends FieldValues>({ form, labelFor }: { form: SchemaFormApi<z.ZodType, V>; labelFor?: (path: string) => string | null }) {
+function Summary<V extends FieldValues>({ form, labelFor }: { form: SchemaFormApi<z.ZodType, V>; labelFor?: LabelFor }) {
   const { errors } = useFormState({ control: form.control });
   return <ErrorSummary errors={flattenFormErrors(errors)} labelFor={labelFor} focusRequest={form.focusRequest} />;
 }

@@ -1,5 +1,6 @@
 import type { FieldError, FieldValues, Path, UseFormSetError } from 'react-hook-form';
 import type { FieldIssue } from '@toneledger/common/schemas/envelope';
+import { isApiError } from '@/lib/api-client';
 
 /**
  * The problems of a form, one message per field, keyed by the field's path as the contract writes it
@@ -27,8 +28,23 @@ export function issuesToFieldErrors(issues: readonly AnyIssue[], fieldFor: (path
   return errors;
 }
 
-/** The server's field issues (`ApiError.fieldIssues`) as field errors. */
-export function serverFieldErrors(issues: readonly FieldIssue[], fieldFor?: (path: string) => string): FieldErrors {
+/**
+ * The field issues of a failed request (`ApiError.fieldIssues`: a `validation_failed`, or a 409 that
+ * names the field that must be unique). An issue the envelope lists without its `code` still has a
+ * field and a message, and is shown too; anything else in `details` (a stale edit's record) is not.
+ */
+export function fieldIssuesOf(error: unknown): Pick<FieldIssue, 'path' | 'message'>[] {
+  if (!isApiError(error)) return [];
+  if (error.fieldIssues.length > 0) return error.fieldIssues;
+  if (!Array.isArray(error.details)) return [];
+  return error.details.flatMap((item: unknown) => {
+    const { path, message } = (typeof item === 'object' && item !== null ? item : {}) as { path?: unknown; message?: unknown };
+    return typeof path === 'string' && typeof message === 'string' ? [{ path, message }] : [];
+  });
+}
+
+/** The server's field issues as field errors, moved to the fields that show them. */
+export function serverFieldErrors(issues: readonly Pick<FieldIssue, 'path' | 'message'>[], fieldFor?: (path: string) => string): FieldErrors {
   return issuesToFieldErrors(issues, fieldFor);
 }
 

@@ -3,8 +3,7 @@ import { useForm, type DefaultValues, type FieldError, type FieldValues, type Re
 import { toNestErrors } from '@hookform/resolvers';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { isApiError } from '@/lib/api-client';
-import { applyFieldErrors, flattenFormErrors, serverFieldErrors, type FieldErrors } from '@/lib/forms/field-errors';
+import { applyFieldErrors, fieldIssuesOf, flattenFormErrors, serverFieldErrors, type FieldErrors } from '@/lib/forms/field-errors';
 
 export interface SchemaFormOptions<S extends z.ZodType, V extends FieldValues> {
   /** The contract's request schema: the same one the server validates with. */
@@ -19,7 +18,11 @@ export interface SchemaFormOptions<S extends z.ZodType, V extends FieldValues> {
   toBody?: (values: V) => unknown;
   /** A body path as the form field that shows it, where the two differ (e.g. rows left out of the body). */
   fieldFor?: (path: string, values: V) => string;
-  /** Checks the schema cannot make in the browser (a pattern from the settings, an EDTF date): field errors, empty when fine. */
+  /**
+   * Checks the schema cannot make in the browser (a pattern from the settings, an EDTF date), or a
+   * plainer word for a field the schema names only as a record id: field errors, empty when fine.
+   * They come before the schema's message for the same field.
+   */
   check?: (values: V) => FieldErrors;
 }
 
@@ -61,12 +64,12 @@ export function useSchemaForm<S extends z.ZodType, V extends FieldValues>(option
     const extra = check?.(values) ?? {};
     const result = await zod(body, context, resolverOptions as never);
     if (!fieldFor && Object.keys(extra).length === 0) return result as never;
-    const found: FieldErrors = {};
+    // The form's own checks say more than the schema about the same field, so they come first.
+    const found: FieldErrors = { ...extra };
     for (const [path, message] of Object.entries(flattenFormErrors(result.errors))) {
       const field = fieldFor ? fieldFor(path, values) : path;
       if (!(field in found)) found[field] = message;
     }
-    for (const [path, message] of Object.entries(extra)) if (!(path in found)) found[path] = message;
     if (Object.keys(found).length === 0) return result as never;
     const flat = Object.fromEntries(Object.entries(found).map(([path, message]) => [path, { type: 'validate', message } satisfies FieldError]));
     return { values: {}, errors: toNestErrors(flat, resolverOptions as never) } as never;
@@ -107,7 +110,7 @@ export function useSchemaForm<S extends z.ZodType, V extends FieldValues>(option
     },
     showErrors,
     serverError: (error) => {
-      const issues = isApiError(error) ? error.fieldIssues : [];
+      const issues = fieldIssuesOf(error);
       if (issues.length > 0) {
         const values = form.getValues();
         showErrors(serverFieldErrors(issues, fieldFor ? (path) => fieldFor(path, values) : undefined));

@@ -1,97 +1,79 @@
-import { useId, useState, type FormEvent } from 'react';
+import { useId, useState } from 'react';
+import type { z } from 'zod';
 import { movementInputSchema, type Print } from '@toneledger/common/schemas/catalogue';
+import { SelectInput, TextInput } from '@/components/form/fields';
+import { SchemaForm } from '@/components/form/schema-form';
 import { Button } from '@/components/ui/button';
-import { SelectField, TextField } from '@/components/ui/field';
 import { ErrorNotice, Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/loading';
 import { isApiError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/format';
+import { fieldIssuesOf, type FieldErrors } from '@/lib/forms/field-errors';
+import { useSchemaForm } from '@/lib/forms/use-schema-form';
 import { useLocations } from '@/lib/reference-api';
 import { useMovements } from '@/features/catalogue/api/get-movements';
 import { useMovePrint } from '@/features/catalogue/api/move-print';
-import { serverIssuesToErrors, type FieldErrors } from '@/features/catalogue/utils/print-form';
+
+interface MoveValues {
+  toLocationId: string;
+  reason: string;
+  /** As the date-and-time control gives it, in local time; empty for now. */
+  movedAt: string;
+}
+
+const EMPTY_MOVE: MoveValues = { toLocationId: '', reason: '', movedAt: '' };
 
 function MoveForm({ print }: { print: Print }) {
   const locations = useLocations();
   const move = useMovePrint();
-  const [toLocationId, setTo] = useState('');
-  const [reason, setReason] = useState('');
-  const [movedAt, setMovedAt] = useState('');
-  const [errors, setErrors] = useState<FieldErrors>({});
   const [done, setDone] = useState<string | null>(null);
+  const form = useSchemaForm({
+    schema: movementInputSchema,
+    defaultValues: EMPTY_MOVE,
+    // The body: the local date and time as an instant (left as typed when it is not one, so the schema says so), on the print's version.
+    toBody: (values: MoveValues) => {
+      const when = values.movedAt ? new Date(values.movedAt) : null;
+      const movedAt = when === null ? undefined : Number.isNaN(when.getTime()) ? values.movedAt : when.toISOString();
+      return { toLocationId: values.toLocationId, reason: values.reason, movedAt, version: print.version };
+    },
+    check: (values: MoveValues): FieldErrors => (values.toLocationId ? {} : { toLocationId: 'Choose where the print goes' }),
+  });
 
-  function submit(event: FormEvent) {
-    event.preventDefault();
+  function onValid(body: z.output<typeof movementInputSchema>) {
     setDone(null);
-    const when = movedAt ? new Date(movedAt) : null;
-    const candidate = {
-      toLocationId,
-      reason,
-      ...(when && !Number.isNaN(when.getTime()) ? { movedAt: when.toISOString() } : {}),
-      version: print.version,
-    };
-    const checked = movementInputSchema.safeParse(candidate);
-    if (!checked.success) {
-      const next: FieldErrors = {};
-      for (const issue of checked.error.issues) next[String(issue.path[0] ?? 'form')] ??= issue.message;
-      if (next.toLocationId) next.toLocationId = 'Choose where the print goes';
-      setErrors(next);
-      return;
-    }
-    if (movedAt && !candidate.movedAt) {
-      setErrors({ movedAt: 'Enter a date and time' });
-      return;
-    }
-    setErrors({});
     move.mutate(
-      { printId: print.id, input: checked.data },
+      { printId: print.id, input: body },
       {
         onSuccess: (saved) => {
           setDone(`Moved to ${saved.location?.pathLabel ?? 'the new place'}.`);
-          setTo('');
-          setReason('');
-          setMovedAt('');
+          form.reset(EMPTY_MOVE);
         },
         onError: (error) => {
-          if (isApiError(error)) setErrors(serverIssuesToErrors(error.details));
+          // A stale version is said below; the page has the current record by then.
+          if (!(isApiError(error) && error.code === 'conflict' && fieldIssuesOf(error).length === 0)) form.serverError(error);
         },
       },
     );
   }
 
-  const conflict = isApiError(move.error) && move.error.code === 'conflict';
+  const conflict = isApiError(move.error) && move.error.code === 'conflict' && fieldIssuesOf(move.error).length === 0;
   return (
-    <form onSubmit={submit} aria-label="Move this print" className="mt-4 flex flex-col gap-3 rounded border border-paper-300 bg-paper-50 p-3" noValidate>
+    <SchemaForm form={form} onValid={onValid} failureTitle="The print was not moved." aria-label="Move this print" className="mt-4 gap-3 rounded border border-paper-300 bg-paper-50 p-3">
       <h3 className="font-sans text-sm font-semibold text-ink-900">Move this print</h3>
       <div className="grid gap-3 sm:grid-cols-2">
-        <SelectField label="To location" value={toLocationId} onChange={(e) => setTo(e.target.value)} error={errors.toLocationId}>
-          <option value="">Choose a place…</option>
-          {locations.data?.data
-            .filter((l) => l.id !== print.location?.id)
-            .map((l) => (
-              <option key={l.id} value={l.id}>
-                {l.pathLabel}
-              </option>
-            ))}
-        </SelectField>
-        <TextField
-          label="Moved at (optional)"
-          type="datetime-local"
-          value={movedAt}
-          onChange={(e) => setMovedAt(e.target.value)}
-          error={errors.movedAt}
-          hint="Leave empty for now"
+        <SelectInput
+          name="toLocationId"
+          label="To location"
+          empty="Choose a place…"
+          options={locations.data?.data.filter((l) => l.id !== print.location?.id).map((l) => ({ value: l.id, label: l.pathLabel }))}
         />
+        <TextInput name="movedAt" label="Moved at (optional)" type="datetime-local" hint="Leave empty for now" />
       </div>
-      <TextField label="Reason" value={reason} onChange={(e) => setReason(e.target.value)} error={errors.reason} maxLength={500} />
-      {move.isError ? (
-        conflict ? (
-          <Notice tone="warning" role="alert" title="This print was changed while the page was open.">
-            <p>The page now shows the current record. Check its location, then press Move again.</p>
-          </Notice>
-        ) : (
-          <ErrorNotice error={move.error} title="The print was not moved." />
-        )
+      <TextInput name="reason" label="Reason" />
+      {conflict ? (
+        <Notice tone="warning" role="alert" title="This print was changed while the page was open.">
+          <p>The page now shows the current record. Check its location, then press Move again.</p>
+        </Notice>
       ) : null}
       {done ? (
         <p role="status" className="text-sm text-ok-700">
@@ -103,7 +85,7 @@ function MoveForm({ print }: { print: Print }) {
           {move.isPending ? 'Moving…' : 'Move'}
         </Button>
       </div>
-    </form>
+    </SchemaForm>
   );
 }
 

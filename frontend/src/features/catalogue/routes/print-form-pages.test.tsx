@@ -167,7 +167,7 @@ describe('print form: editing on top of someone else’s save', () => {
     expect(notice.textContent).toContain('Bram Otley saved it');
     expect(notice.textContent).toContain('now version 5');
     const rows = within(notice).getAllByRole('row').slice(1).map((row) => within(row).getAllByRole('rowheader', { hidden: true })[0]?.textContent);
-    expect(rows).toEqual(['Title', 'Status', 'Provenance']);
+    expect(rows).toEqual(['Title', 'Date made', 'Status', 'Provenance']);
     const titleRow = within(notice).getByRole('rowheader', { name: 'Title' }).closest('tr')!;
     expect(titleRow.textContent).toContain('Harbour wall, low tide');
     expect(titleRow.textContent).toContain('Harbour wall at low tide');

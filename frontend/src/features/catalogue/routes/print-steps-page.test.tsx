@@ -122,6 +122,32 @@ describe('steps editor', () => {
     expect(calls).toBe(1);
   });
 
+  it('reads the time as m:ss or seconds, says so for anything else, and clears the message once it is corrected', async () => {
+    const { requests } = renderSteps(() => json({ data: makePrint({ version: 4 }) }));
+    await screen.findByRole('list', { name: 'Steps in order' });
+    const time = () => within(steps()[0]!).getByLabelText('Time (m:ss or seconds)');
+    const hint = 'Enter a time as m:ss or seconds, e.g. 1:30 or 90';
+    const errorOf = (input: HTMLElement) => document.getElementById(input.getAttribute('aria-describedby') ?? '')?.textContent;
+
+    fireEvent.change(time(), { target: { value: 'two minutes' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Save process history' }));
+    await waitFor(() => expect(errorOf(time())).toBe(hint));
+    expect(screen.getByRole('link', { name: `Step 1: Time (m:ss or seconds): ${hint}` })).toBeTruthy();
+
+    fireEvent.change(time(), { target: { value: '1:75' } });
+    await waitFor(() => expect(errorOf(time())).toBe(hint));
+    expect(time().getAttribute('aria-invalid')).toBe('true');
+
+    fireEvent.change(time(), { target: { value: '1:30' } });
+    await waitFor(() => expect(time().getAttribute('aria-invalid')).toBeNull());
+    expect(screen.queryByText(hint)).toBeNull();
+    expect(requests.some((r) => r.method === 'PUT')).toBe(false);
+
+    fireEvent.click(screen.getByRole('button', { name: 'Save process history' }));
+    await waitFor(() => expect(requests.some((r) => r.method === 'PUT')).toBe(true));
+    expect((requests.find((r) => r.method === 'PUT')?.body as { steps: { timeSeconds: number }[] }).steps[0]?.timeSeconds).toBe(90);
+  });
+
   it('on a stale save shows the current steps and saves over the new version only when asked', async () => {
     const current = makePrint({ version: 7, steps: [makeStep({ type: 'washing', agent: 'Running water' })] });
     let calls = 0;
@@ -137,7 +163,7 @@ describe('steps editor', () => {
     expect(notice.textContent).toContain('Bram Otley saved it');
     expect(within(notice).getByText('Washing — Running water')).toBeTruthy();
     expect(steps()).toHaveLength(2);
-    fireEvent.click(within(notice).getByRole('button', { name: 'Keep my list and save it over version 7' }));
+    fireEvent.click(within(notice).getByRole('button', { name: 'Re-apply my changes to the current version' }));
     fireEvent.click(screen.getByRole('button', { name: 'Save process history' }));
     await waitFor(() => expect(calls).toBe(2));
     expect((requests.filter((r) => r.method === 'PUT')[1]?.body as { version: number }).version).toBe(7);

@@ -1,26 +1,9 @@
 import type { EdtfResult } from '@toneledger/common/domain/edtf';
+import { formatDuration } from '@toneledger/common/domain/duration';
 import type { CompatibilityCode } from '@toneledger/common/domain/compatibility';
 
 /** Seconds as m:ss (minutes may exceed 59, e.g. 75:00 for a long wash). */
-export function formatSeconds(seconds: number | null | undefined): string {
-  if (seconds === null || seconds === undefined) return '';
-  const whole = Math.max(0, Math.round(seconds));
-  const minutes = Math.floor(whole / 60);
-  return `${minutes}:${String(whole % 60).padStart(2, '0')}`;
-}
-
-/**
- * Reads a time typed as m:ss (`1:30`) or as whole seconds (`90`). Empty is null; anything else
- * is returned unchanged, so the shared schema reports it.
- */
-export function parseTimeInput(text: string): number | null | string {
-  const value = text.trim();
-  if (value === '') return null;
-  const clock = /^(\d+):([0-5]\d)$/.exec(value);
-  if (clock) return Number(clock[1]) * 60 + Number(clock[2]);
-  if (/^\d+$/.test(value)) return Number(value);
-  return value;
-}
+export const formatSeconds = formatDuration;
 
 /** "about April 1968 · 1968-04-01 to 1968-04-30" for a parsed EDTF value. */
 export function edtfSummary(result: Extract<EdtfResult, { ok: true }>): string {

@@ -1,10 +1,6 @@
-import { printInputSchema, type Print, type PrintInput, type PrintUpdate } from '@toneledger/common/schemas/catalogue';
+import type { Print } from '@toneledger/common/schemas/catalogue';
 import { LIGHT_RESPONSIVITY, PROCESS, STATUS, SUPPORT } from '@toneledger/common/schemas/vocab';
-import { formatDimensions } from '@/features/catalogue/utils/format';
-import { issuesToErrors, type Checked, type FieldErrors } from '@/lib/form-errors';
-
-export { serverIssuesToErrors } from '@/lib/form-errors';
-export type { Checked, FieldErrors };
+import { fieldList } from '@/lib/forms/stale-edit';
 
 /** The fields of a print that the form edits (location is set on create, and moved afterwards). */
 export const PRINT_FIELDS = [
@@ -43,6 +39,9 @@ export const FIELD_LABELS: Record<PrintField | 'locationId', string> = {
   locationId: 'Location',
 };
 
+/** The edited fields with their labels, in form order (for the stale-edit review). */
+export const PRINT_FORM_FIELDS = fieldList(Object.fromEntries(PRINT_FIELDS.map((f) => [f, FIELD_LABELS[f]])) as Record<PrintField, string>);
+
 export function emptyPrintValues(): PrintFormValues {
   const values = Object.fromEntries([...PRINT_FIELDS, 'locationId'].map((field) => [field, ''])) as PrintFormValues;
   values.process = 'gelatin_silver_developing_out';
@@ -80,98 +79,30 @@ export function printToValues(print: Print): PrintFormValues {
   };
 }
 
-/** Fields typed by hand are sent as typed; an empty choice means "none". Required fields stay '' so their message shows. */
-function raw(values: PrintFormValues, fields: readonly string[]): Record<string, unknown> {
-  const out: Record<string, unknown> = {};
-  for (const field of fields) {
-    const value = values[field as keyof PrintFormValues];
-    if (field === 'accessionNumber' || field === 'title') out[field] = value;
-    else if (field === 'process' || field === 'status') out[field] = value === '' ? undefined : value;
-    else out[field] = value === '' ? null : value;
-  }
-  return out;
-}
-
-const editSchema = printInputSchema.omit({ locationId: true });
-
-/** The create form checked with the same schema the server uses. */
-export function checkCreate(values: PrintFormValues): Checked<PrintInput> {
-  const result = printInputSchema.safeParse(raw(values, [...PRINT_FIELDS, 'locationId']));
-  return result.success ? { ok: true, data: result.data } : { ok: false, errors: issuesToErrors(result.error.issues) };
-}
-
-/** Fields whose text differs from the record the edit started from. */
-export function changedFields(base: PrintFormValues, values: PrintFormValues): PrintField[] {
-  return PRINT_FIELDS.filter((field) => values[field] !== base[field]);
-}
-
 /**
- * The edit form checked with the shared schema; the update carries only the fields the person
- * changed, on top of the version the edit started from.
+ * The form's values as the request body. Typed fields go as typed (the schema trims them, reads
+ * numbers and turns empty text into null); an empty choice in a list that may be empty is null, and
+ * in a list that must be answered (process, status) it is left out, so the schema says so.
  */
-export function checkUpdate(base: PrintFormValues, values: PrintFormValues, version: number): Checked<PrintUpdate> {
-  const result = editSchema.safeParse(raw(values, PRINT_FIELDS));
-  if (!result.success) return { ok: false, errors: issuesToErrors(result.error.issues) };
-  const update: Record<string, unknown> = { version };
-  const parsed = result.data as Record<string, unknown>;
-  for (const field of changedFields(base, values)) update[field] = parsed[field] ?? null;
-  return { ok: true, data: update as PrintUpdate };
+export function printValuesToBody(values: PrintFormValues): Record<string, unknown> {
+  const body: Record<string, unknown> = { ...values };
+  for (const field of ['support', 'lightResponsivity'] as const) body[field] = values[field] === '' ? null : values[field];
+  for (const field of ['process', 'status'] as const) if (values[field] === '') delete body[field];
+  return body;
 }
 
-/** How a field of a saved record reads to a person (names and labels, not ids and codes). */
-export function describePrintField(print: Print, field: PrintField): string {
+/** How a code field of the form reads to a person. */
+export function describeCode(field: PrintField, value: string): string {
   switch (field) {
-    case 'makerId':
-      return print.maker?.name ?? '';
-    case 'paperId':
-      return print.paper?.label ?? '';
-    case 'enclosureId':
-      return print.enclosure?.name ?? '';
     case 'process':
-      return PROCESS.labels[print.process];
+      return PROCESS.labels[value as keyof typeof PROCESS.labels] ?? value;
     case 'support':
-      return print.support ? SUPPORT.labels[print.support] : '';
+      return SUPPORT.labels[value as keyof typeof SUPPORT.labels] ?? value;
     case 'status':
-      return STATUS.labels[print.status];
+      return STATUS.labels[value as keyof typeof STATUS.labels] ?? value;
     case 'lightResponsivity':
-      return print.lightResponsivity ? LIGHT_RESPONSIVITY.labels[print.lightResponsivity] : '';
+      return LIGHT_RESPONSIVITY.labels[value as keyof typeof LIGHT_RESPONSIVITY.labels] ?? value;
     default:
-      return printToValues(print)[field];
+      return value;
   }
 }
-
-export interface StaleChange {
-  field: PrintField;
-  label: string;
-  opened: string;
-  now: string;
-  /** The person had changed this field too: their value differs from the one they opened. */
-  alsoChangedByYou: boolean;
-}
-
-/** What someone else changed between the record the form opened and the record as it is now. */
-export function staleChanges(opened: Print, current: Print, mine: PrintFormValues): StaleChange[] {
-  const before = printToValues(opened);
-  const now = printToValues(current);
-  return PRINT_FIELDS.filter((field) => before[field] !== now[field]).map((field) => ({
-    field,
-    label: FIELD_LABELS[field],
-    opened: describePrintField(opened, field),
-    now: describePrintField(current, field),
-    alsoChangedByYou: mine[field] !== before[field],
-  }));
-}
-
-/**
- * Puts the person's edits on top of the current record: a field they changed keeps their value,
- * every other field takes the current value. Nothing typed is lost, nothing of theirs is overwritten.
- */
-export function rebaseValues(opened: Print, current: Print, mine: PrintFormValues): PrintFormValues {
-  const before = printToValues(opened);
-  const now = printToValues(current);
-  const next = { ...mine };
-  for (const field of PRINT_FIELDS) if (mine[field] === before[field]) next[field] = now[field];
-  return next;
-}
-
-export { formatDimensions };

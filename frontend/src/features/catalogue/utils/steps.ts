@@ -1,22 +1,20 @@
-import {
-  stepsReplaceSchema,
-  type ProcessStep,
-  type ProcessStepInput,
-} from '@toneledger/common/schemas/catalogue';
-import type { STEP_TYPE } from '@toneledger/common/schemas/vocab';
-import { formatSeconds, parseTimeInput } from '@/features/catalogue/utils/format';
+import type { ProcessStep } from '@toneledger/common/schemas/catalogue';
+import { STEP_TYPE, TONER_CLASS, type STEP_TYPE as StepTypes } from '@toneledger/common/schemas/vocab';
+import { formatDuration } from '@toneledger/common/domain/duration';
 
-export type StepType = (typeof STEP_TYPE.codes)[number];
+export type StepType = (typeof StepTypes.codes)[number];
 
-/** One step as the editor holds it: every field as the text in its control. */
-export interface StepDraft {
-  key: string;
+/**
+ * One step as the editor holds it: every field as the text in its control, named as in the
+ * contract. `timeSeconds` holds the time as typed (m:ss or seconds); the contract reads it.
+ */
+export interface StepValues {
   type: StepType;
   agent: string;
   tonerClass: string;
   recipeId: string;
   dilution: string;
-  time: string;
+  timeSeconds: string;
   temperatureC: string;
   extent: string;
   concentration: string;
@@ -28,20 +26,24 @@ export interface StepDraft {
   notes: string;
 }
 
-export type StepField = Exclude<keyof StepDraft, 'key' | 'type'>;
+export interface StepsValues {
+  steps: StepValues[];
+}
 
-const BATH: StepField[] = ['agent', 'dilution', 'time', 'temperatureC', 'notes'];
+export type StepField = Exclude<keyof StepValues, 'type'>;
+
+const BATH: StepField[] = ['agent', 'dilution', 'timeSeconds', 'temperatureC', 'notes'];
 
 /** Which fields each kind of step records. Fields of other kinds are never sent. */
-export const STEP_FIELDS: Record<StepType, StepField[]> = {
+export const FIELDS_BY_KIND: Record<StepType, StepField[]> = {
   development: BATH,
   stop: BATH,
   fixing: BATH,
   washing: BATH,
   hypo_clearing: BATH,
   final_wash: BATH,
-  toning: ['tonerClass', 'recipeId', 'agent', 'dilution', 'time', 'temperatureC', 'extent', 'notes'],
-  after_bath: ['agent', 'concentration', 'time', 'temperatureC', 'alkaline', 'notes'],
+  toning: ['tonerClass', 'recipeId', 'agent', 'dilution', 'timeSeconds', 'temperatureC', 'extent', 'notes'],
+  after_bath: ['agent', 'concentration', 'timeSeconds', 'temperatureC', 'alkaline', 'notes'],
   residual_thiosulfate_test: ['method', 'value', 'unit', 'notes'],
 };
 
@@ -58,30 +60,23 @@ export const AGENT_LABELS: Record<StepType, string> = {
   residual_thiosulfate_test: 'Agent',
 };
 
-let counter = 0;
-export function newStepKey(): string {
-  counter += 1;
-  return `step-${counter}`;
-}
-
-export function emptyStep(type: StepType): StepDraft {
+export function emptyStep(type: StepType): StepValues {
   return {
-    key: newStepKey(), type, agent: '', tonerClass: '', recipeId: '', dilution: '', time: '', temperatureC: '', extent: '',
+    type, agent: '', tonerClass: '', recipeId: '', dilution: '', timeSeconds: '', temperatureC: '', extent: '',
     concentration: '', alkaline: 'unknown', method: '', value: '', unit: '', notes: '',
   };
 }
 
 const text = (value: string | number | null | undefined) => (value === null || value === undefined ? '' : String(value));
 
-export function stepToDraft(step: ProcessStep): StepDraft {
+export function stepToValues(step: ProcessStep): StepValues {
   return {
-    key: step.id,
     type: step.type,
     agent: text(step.agent),
     tonerClass: text(step.tonerClass),
     recipeId: step.recipe?.id ?? '',
     dilution: text(step.dilution),
-    time: formatSeconds(step.timeSeconds),
+    timeSeconds: formatDuration(step.timeSeconds),
     temperatureC: text(step.temperatureC),
     extent: text(step.extent),
     concentration: text(step.concentration),
@@ -93,54 +88,37 @@ export function stepToDraft(step: ProcessStep): StepDraft {
   };
 }
 
-/** A draft as the API receives it: only the fields of its kind, empty as null, time in seconds. */
-export function draftToInput(draft: StepDraft): Record<string, unknown> {
-  const out: Record<string, unknown> = { type: draft.type };
-  for (const field of STEP_FIELDS[draft.type]) {
-    const value = draft[field];
-    if (field === 'time') out.timeSeconds = parseTimeInput(value);
-    else if (field === 'alkaline') out.alkaline = value === 'yes' ? true : value === 'no' ? false : null;
-    else out[field] = value.trim() === '' ? null : value;
+/** The print's steps in their order, as the editor holds them. */
+export function printToStepsValues(print: { steps: ProcessStep[] }): StepsValues {
+  return { steps: [...print.steps].sort((a, b) => a.position - b.position).map(stepToValues) };
+}
+
+const CHOICES: StepField[] = ['tonerClass', 'extent', 'method'];
+
+/**
+ * A step as the request carries it: only the fields of its kind; an empty choice is null and the
+ * alkaline choice is true, false or null. Text and figures go as typed, for the schema to read.
+ */
+export function stepToBody(step: StepValues): Record<string, unknown> {
+  const out: Record<string, unknown> = { type: step.type };
+  for (const field of FIELDS_BY_KIND[step.type]) {
+    const value = step[field];
+    if (field === 'alkaline') out.alkaline = value === 'yes' ? true : value === 'no' ? false : null;
+    else out[field] = CHOICES.includes(field) && value === '' ? null : value;
   }
   return out;
 }
 
-/** Error keys are `<index>.<field>` (the editor's field names: `time` for `timeSeconds`), or `form`. */
-export type StepErrors = Partial<Record<string, string>>;
-
-function stepErrorKey(path: readonly PropertyKey[]): string {
-  // steps.2.timeSeconds → 2.time
-  const [root, index, field] = path.map(String);
-  if (root !== 'steps' || index === undefined) return 'form';
-  if (field === undefined) return `${index}.type`;
-  return `${index}.${field === 'timeSeconds' ? 'time' : field}`;
+/** Where a problem at a path of the request shows: a step as a whole shows at its type. */
+export function stepFieldFor(path: string): string {
+  if (/^steps\.\d+$/.test(path)) return `${path}.type`;
+  return path.startsWith('steps.') ? path : '';
 }
 
-export function issuesToStepErrors(issues: { path: string | readonly PropertyKey[]; message: string }[]): StepErrors {
-  const errors: StepErrors = {};
-  for (const issue of issues) {
-    const path = typeof issue.path === 'string' ? issue.path.split('.').filter(Boolean) : issue.path;
-    const key = stepErrorKey(path);
-    errors[key] ??= issue.message;
-  }
-  return errors;
-}
-
-export type CheckedSteps = { ok: true; data: { version: number; steps: ProcessStepInput[] } } | { ok: false; errors: StepErrors };
-
-/** The whole list checked with the schema the server uses. */
-export function checkSteps(drafts: StepDraft[], version: number): CheckedSteps {
-  const result = stepsReplaceSchema.safeParse({ version, steps: drafts.map(draftToInput) });
-  if (result.success) return { ok: true, data: result.data };
-  return { ok: false, errors: issuesToStepErrors(result.error.issues) };
-}
-
-/** Moves the item at `from` by `delta` places; out-of-range moves leave the list as it is. */
-export function moveItem<T>(items: T[], from: number, delta: number): T[] {
-  const to = from + delta;
-  if (from < 0 || from >= items.length || to < 0 || to >= items.length) return items;
-  const next = [...items];
-  const [item] = next.splice(from, 1);
-  next.splice(to, 0, item as T);
-  return next;
+/** A step in one line: "Toning — Iron blue (Recipe name) — agent". */
+export function describeStep(step: StepValues, recipeName: (id: string) => string | undefined): string {
+  const toner = step.tonerClass ? ` — ${TONER_CLASS.labels[step.tonerClass as keyof typeof TONER_CLASS.labels] ?? step.tonerClass}` : '';
+  const recipe = step.recipeId ? ` (${recipeName(step.recipeId) ?? 'a recipe'})` : '';
+  const agent = step.agent.trim() ? ` — ${step.agent.trim()}` : '';
+  return `${STEP_TYPE.labels[step.type]}${toner}${recipe}${agent}`;
 }
