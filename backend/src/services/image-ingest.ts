@@ -92,12 +92,6 @@ export async function inspectImage(file: string, screen?: { path: string; size: 
   return orientation >= 5 ? { width: meta.height, height: meta.width } : { width: meta.width, height: meta.height };
 }
 
-/**
- * The upload itself is read by multer (middleware/image-upload.ts); kept here so callers of
- * `receiveImage` keep working until their routes put `imageUpload(maxBytes)` before the handler.
- */
-export { receiveImage } from '../middleware/image-upload';
-
 /** SHA-256 of a stream, without holding it. */
 export async function sha256Of(stream: NodeJS.ReadableStream): Promise<string> {
   const hash = createHash('sha256');

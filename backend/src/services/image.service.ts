@@ -10,7 +10,6 @@ import { Op, QueryTypes } from 'sequelize';
 import type { ObjectStore } from '@toneledger/storage/object-store';
 import { can, type Role } from '@toneledger/common/domain/roles';
 import type { PrintImage, FixityResult } from '@toneledger/common/schemas/images';
-import { env } from '../config/env';
 import { db } from '../db';
 import { FixityCheck, Image, ImageAlignment, Print } from '../models';
 import { AppError, notFound, serviceUnavailable, validationFailed } from '../errors';
@@ -221,7 +220,7 @@ export async function withdrawImage(
   body: { reason: string; version: number },
   actor: AuditActor & { role: Role },
   requestId: string | null,
-  retentionDays: number = env().IMAGE_RETENTION_DAYS,
+  retentionDays: number,
 ) {
   return db().transaction(async (t) => {
     const row = await Image.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });

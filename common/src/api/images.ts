@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { dataEnvelope } from '../schemas/envelope';
 import {
   alignmentInputSchema, alignmentSchema, fixityAlertSchema, fixityResultSchema, imageDeleteSchema, imageSchema, imageUpdateSchema,
+  imageUploadFieldsSchema,
 } from '../schemas/images';
 import { emptyBodySchema, id, idParamsSchema } from '../schemas/primitives';
 import { endpoint } from './endpoint';
@@ -17,7 +18,7 @@ export const imagesApi = {
   upload: endpoint({
     method: 'post', path: '/api/prints/:id/images',
     summary: 'Uploads one image (multipart: file, viewType, capturedOn?, notes?); type checked by content; SHA-256 kept', tags: ['images'],
-    access: 'images.write', params: idParamsSchema, requestContentType: 'multipart/form-data', status: 201,
+    access: 'images.write', params: idParamsSchema, requestContentType: 'multipart/form-data', body: imageUploadFieldsSchema, status: 201,
     response: { description: 'The stored image (display copies follow in the background)', schema: imageEnvelope },
   }),
   get: endpoint({

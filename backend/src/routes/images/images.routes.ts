@@ -1,9 +1,6 @@
-import { rm } from 'node:fs/promises';
 import { fixityApi, imagesApi } from '@toneledger/common/api/images';
-import { imageUploadFieldsSchema } from '@toneledger/common/schemas/images';
 import { implement, type RouteDef } from '../../http/route';
-import { validationFailed } from '../../errors';
-import { receiveImage } from '../../services/image-ingest';
+import { imageUpload, uploadedImage } from '../../middleware/image-upload';
 import {
   checkFixityNow, fixityAlerts, fixityHistory, getAlignment, imageFor, listImages, openVariant, saveAlignment, updateImage, uploadImage,
   withdrawImage,
@@ -15,15 +12,11 @@ export function imagesRoutes(deps: AppDeps): RouteDef[] {
   return [
     ...implement(imagesApi, {
       list: async ({ params, query, actor }) => ({ data: await listImages(params.id, actor.role, query.includeWithdrawn === 'true') }),
-      upload: async ({ params, req, actor, requestId }) => {
-        const file = await receiveImage(req, deps.env.IMAGE_MAX_MB * 1024 * 1024);
-        try {
-          const fields = imageUploadFieldsSchema.safeParse(file.fields);
-          if (!fields.success) throw validationFailed(fields.error.issues.map((i) => ({ path: i.path.join('.'), message: i.message, code: i.code })));
-          return { data: await uploadImage({ store: deps.store, queue: deps.queue }, params.id, file, fields.data, actor, requestId) };
-        } finally {
-          await rm(file.tempDir, { recursive: true, force: true });
-        }
+      upload: {
+        before: [imageUpload(deps.env.IMAGE_MAX_MB * 1024 * 1024)],
+        // The text fields are the endpoint's body, checked by the contract; the middleware removes the temporary file when the answer ends.
+        handler: async ({ params, body, req, actor, requestId }) =>
+          ({ data: await uploadImage({ store: deps.store, queue: deps.queue }, params.id, uploadedImage(req), body, actor, requestId) }),
       },
       get: async ({ params, actor }) => ({ data: await imageFor(params.id, actor.role) }),
       file: async ({ params, actor, res }) => {
@@ -43,7 +36,8 @@ export function imagesRoutes(deps: AppDeps): RouteDef[] {
         });
       },
       update: async ({ params, body, actor, requestId }) => ({ data: await updateImage(params.id, body, actor, requestId) }),
-      withdraw: async ({ params, body, actor, requestId }) => ({ data: await withdrawImage(params.id, body, actor, requestId) }),
+      withdraw: async ({ params, body, actor, requestId }) =>
+        ({ data: await withdrawImage(params.id, body, actor, requestId, deps.env.IMAGE_RETENTION_DAYS) }),
       saveAlignment: async ({ body, actor }) => ({ data: await saveAlignment(body, actor) }),
       alignment: async ({ query }) => ({ data: await getAlignment(query.baseImageId, query.otherImageId) }),
     }),
