@@ -15,9 +15,16 @@ export type LabelFor = (path: string, label: string | null) => string | null;
 
 const attr = (value: string) => value.replace(/["\\]/g, '\\$&');
 
-/** The control that shows a field: its `name`, or a `data-field` on a control group (radios, a drawn region). */
+/**
+ * The control that shows a field: its `name`, or a `data-field` on a control group (radios, a drawn
+ * region); for a part of a field without a control of its own (`region.points`), the field's control.
+ */
 export function fieldElement(root: ParentNode, path: string): HTMLElement | null {
-  return root.querySelector<HTMLElement>(`[name="${attr(path)}"]`) ?? root.querySelector<HTMLElement>(`[data-field="${attr(path)}"]`);
+  for (let at = path; at !== ''; at = at.includes('.') ? at.slice(0, at.lastIndexOf('.')) : '') {
+    const found = root.querySelector<HTMLElement>(`[name="${attr(at)}"]`) ?? root.querySelector<HTMLElement>(`[data-field="${attr(at)}"]`);
+    if (found) return found;
+  }
+  return null;
 }
 
 /** The words a control is labelled with on the page. */

@@ -1,39 +1,29 @@
-import { useId, useState, type FormEvent } from 'react';
+import { useId, useState } from 'react';
 import { addendumInputSchema } from '@toneledger/common/schemas/condition';
+import { TextAreaInput } from '@/components/form/fields';
+import { SchemaForm } from '@/components/form/schema-form';
 import { Button } from '@/components/ui/button';
-import { ErrorNotice, Notice } from '@/components/ui/notice';
-import { TextAreaField } from '@/components/ui/text-area-field';
-import { isApiError } from '@/lib/api-client';
+import { Notice } from '@/components/ui/notice';
+import { useSchemaForm } from '@/lib/forms/use-schema-form';
 import { useAddAddendum } from '@/features/condition/api/save-report';
-import { serverIssuesToErrors } from '@/features/condition/utils/report-form';
 
 /** A dated, attributed addition or correction to a signed report. The report itself is not changed. */
 export function AddendumForm({ reportId }: { reportId: string }) {
   const headingId = useId();
-  const [text, setText] = useState('');
-  const [error, setError] = useState<string | undefined>();
   const [done, setDone] = useState(false);
   const add = useAddAddendum();
+  const form = useSchemaForm({ schema: addendumInputSchema, defaultValues: { text: '' } });
 
-  function submit(event: FormEvent) {
-    event.preventDefault();
+  function onValid(body: { text: string }) {
     setDone(false);
-    const checked = addendumInputSchema.safeParse({ text });
-    if (!checked.success) {
-      setError(checked.error.issues[0]?.message);
-      return;
-    }
-    setError(undefined);
     add.mutate(
-      { id: reportId, text: checked.data.text },
+      { id: reportId, text: body.text },
       {
         onSuccess: () => {
-          setText('');
+          form.reset({ text: '' });
           setDone(true);
         },
-        onError: (e) => {
-          if (isApiError(e)) setError(serverIssuesToErrors(e.details).text);
-        },
+        onError: form.serverError,
       },
     );
   }
@@ -44,9 +34,8 @@ export function AddendumForm({ reportId }: { reportId: string }) {
         Add an addendum
       </h2>
       <p className="mt-1 text-sm text-ink-700">The signed report stays as it is. An addendum is dated and carries your name.</p>
-      <form onSubmit={submit} noValidate className="mt-3 flex flex-col gap-3">
-        <TextAreaField label="Addendum" value={text} onChange={(e) => setText(e.target.value)} error={error} rows={3} maxLength={10000} />
-        {add.isError && !error ? <ErrorNotice error={add.error} title="The addendum was not added." /> : null}
+      <SchemaForm form={form} onValid={onValid} failureTitle="The addendum was not added." className="mt-3 gap-3">
+        <TextAreaInput name="text" label="Addendum" rows={3} />
         {done ? (
           <Notice tone="success" role="status">
             <p>Addendum added.</p>
@@ -57,7 +46,7 @@ export function AddendumForm({ reportId }: { reportId: string }) {
             Add addendum
           </Button>
         </div>
-      </form>
+      </SchemaForm>
     </section>
   );
 }

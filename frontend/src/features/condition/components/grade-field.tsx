@@ -7,16 +7,19 @@ export interface GradeFieldProps {
   definitions: GradeDefinitions;
   error?: string;
   id?: string;
+  /** The form field it stands for, so an error summary can link to it. */
+  name?: string;
 }
 
 /** The overall grade: one radio per level, each with its written definition beside it. */
-export function GradeField({ value, onChange, definitions, error, id }: GradeFieldProps) {
+export function GradeField({ value, onChange, definitions, error, id, name }: GradeFieldProps) {
   const uid = useId();
   const legendId = `${uid}-legend`;
   const errorId = `${uid}-error`;
   return (
     <div
       id={id}
+      data-field={name}
       role="radiogroup"
       aria-labelledby={legendId}
       aria-describedby={error ? errorId : undefined}

@@ -1,16 +1,16 @@
-import { useId, useState, type FormEvent, type ReactNode } from 'react';
+import { useId, useState, type ReactNode } from 'react';
 import { can, type Role } from '@toneledger/common/domain/roles';
-import { VIEW_TYPES, VIEW_TYPE_LABELS, imageDeleteSchema, type PrintImage } from '@toneledger/common/schemas/images';
+import { VIEW_TYPES, VIEW_TYPE_LABELS, imageDeleteSchema, imageUpdateSchema, type PrintImage } from '@toneledger/common/schemas/images';
+import { DateInput, SelectInput, TextAreaInput, TextInput } from '@/components/form/fields';
+import { SchemaForm } from '@/components/form/schema-form';
 import { Button } from '@/components/ui/button';
-import { SelectField, TextField } from '@/components/ui/field';
 import { ErrorNotice, Notice } from '@/components/ui/notice';
-import { TextAreaField } from '@/components/ui/text-area-field';
 import { formatDateTime } from '@/lib/format';
+import { useSchemaForm } from '@/lib/forms/use-schema-form';
 import { useFixityHistory } from '@/features/condition/api/fixity';
 import { useCheckFixity, useUpdateImage, useWithdrawImage } from '@/features/condition/api/save-image';
 import { FixityBadge } from '@/features/condition/components/fixity-badge';
 import { formatBytes, formatDay, formatExposure } from '@/features/condition/utils/format';
-import { serverIssuesToErrors } from '@/features/condition/utils/report-form';
 
 function Row({ term, children }: { term: string; children: ReactNode }) {
   return (
@@ -27,33 +27,36 @@ function exifLine(image: PrintImage): string | null {
   return parts.length ? parts.join(' · ') : null;
 }
 
-function EditImageForm({ image, onDone }: { image: PrintImage; onDone: () => void }) {
-  const [viewType, setViewType] = useState<string>(image.viewType);
-  const [capturedOn, setCapturedOn] = useState(image.capturedOn ?? '');
-  const [notes, setNotes] = useState(image.notes ?? '');
-  const update = useUpdateImage();
-  const errors = update.isError ? serverIssuesToErrors((update.error as { details?: unknown }).details) : {};
+interface ImageValues {
+  viewType: string;
+  capturedOn: string;
+  notes: string;
+}
 
-  function submit(event: FormEvent) {
-    event.preventDefault();
-    update.mutate(
-      { id: image.id, update: { viewType: viewType as PrintImage['viewType'], capturedOn: capturedOn || null, notes: notes.trim() || null, version: image.version } },
-      { onSuccess: onDone },
-    );
-  }
+function EditImageForm({ image, onDone }: { image: PrintImage; onDone: () => void }) {
+  const update = useUpdateImage();
+  const form = useSchemaForm({
+    schema: imageUpdateSchema,
+    defaultValues: { viewType: image.viewType, capturedOn: image.capturedOn ?? '', notes: image.notes ?? '' } satisfies ImageValues,
+    // The body: no capture date and no notes are null, on the version shown.
+    toBody: (values: ImageValues) => ({
+      viewType: values.viewType,
+      capturedOn: values.capturedOn || null,
+      notes: values.notes.trim() || null,
+      version: image.version,
+    }),
+  });
 
   return (
-    <form onSubmit={submit} noValidate aria-label="Edit image details" className="mt-3 flex flex-col gap-3 rounded border border-paper-300 bg-paper-50 p-3">
-      <SelectField label="View shown" value={viewType} onChange={(e) => setViewType(e.target.value)} error={errors.viewType}>
-        {VIEW_TYPES.map((v) => (
-          <option key={v} value={v}>
-            {VIEW_TYPE_LABELS[v]}
-          </option>
-        ))}
-      </SelectField>
-      <TextField type="date" label="Captured on" value={capturedOn} onChange={(e) => setCapturedOn(e.target.value)} error={errors.capturedOn} />
-      <TextAreaField label="Image notes" value={notes} onChange={(e) => setNotes(e.target.value)} error={errors.notes} rows={2} maxLength={2000} />
-      {update.isError && Object.keys(errors).length === 0 ? <ErrorNotice error={update.error} title="Not saved." /> : null}
+    <SchemaForm
+      form={form}
+      onValid={(body) => update.mutate({ id: image.id, update: body }, { onSuccess: onDone, onError: form.serverError })}
+      aria-label="Edit image details"
+      className="mt-3 gap-3 rounded border border-paper-300 bg-paper-50 p-3"
+    >
+      <SelectInput name="viewType" label="View shown" options={VIEW_TYPES.map((v) => ({ value: v, label: VIEW_TYPE_LABELS[v] }))} />
+      <DateInput name="capturedOn" label="Captured on" />
+      <TextAreaInput name="notes" label="Image notes" rows={2} />
       <div className="flex gap-2">
         <Button type="submit" variant="primary" size="sm" disabled={update.isPending}>
           Save image details
@@ -62,34 +65,29 @@ function EditImageForm({ image, onDone }: { image: PrintImage; onDone: () => voi
           Cancel
         </Button>
       </div>
-    </form>
+    </SchemaForm>
   );
 }
 
 function WithdrawForm({ image, onDone, onWithdrawn }: { image: PrintImage; onDone: () => void; onWithdrawn?: (image: PrintImage) => void }) {
-  const [reason, setReason] = useState('');
-  const [error, setError] = useState<string | undefined>();
   const withdraw = useWithdrawImage();
-
-  function submit(event: FormEvent) {
-    event.preventDefault();
-    const checked = imageDeleteSchema.safeParse({ reason, version: image.version });
-    if (!checked.success) {
-      setError(checked.error.issues[0]?.message);
-      return;
-    }
-    setError(undefined);
-    withdraw.mutate({ id: image.id, withdrawal: checked.data }, { onSuccess: (saved) => (onWithdrawn ? onWithdrawn(saved) : onDone()) });
-  }
+  const form = useSchemaForm({ schema: imageDeleteSchema, defaultValues: { reason: '' }, toBody: (values: { reason: string }) => ({ ...values, version: image.version }) });
 
   return (
-    <form onSubmit={submit} noValidate aria-label="Withdraw image" className="mt-3 flex flex-col gap-3 rounded border border-danger-200 bg-danger-50 p-3 text-sm">
+    <SchemaForm
+      form={form}
+      onValid={(body) =>
+        withdraw.mutate({ id: image.id, withdrawal: body }, { onSuccess: (saved) => (onWithdrawn ? onWithdrawn(saved) : onDone()), onError: form.serverError })
+      }
+      failureTitle="Not withdrawn."
+      aria-label="Withdraw image"
+      className="mt-3 gap-3 rounded border border-danger-200 bg-danger-50 p-3 text-sm"
+    >
       <p>
         A withdrawn image is no longer shown or offered for comparison. Its files are kept for the retention period and then purged; the record of
         the upload and of the withdrawal stays in the audit trail.
       </p>
-      <TextField label="Reason for withdrawal" value={reason} onChange={(e) => setReason(e.target.value)} error={error} maxLength={500} />
-      {withdraw.isError ? <ErrorNotice error={withdraw.error} title="Not withdrawn." /> : null}
+      <TextInput name="reason" label="Reason for withdrawal" />
       <div className="flex gap-2">
         <Button type="submit" variant="danger" size="sm" disabled={withdraw.isPending}>
           Withdraw image
@@ -98,7 +96,7 @@ function WithdrawForm({ image, onDone, onWithdrawn }: { image: PrintImage; onDon
           Cancel
         </Button>
       </div>
-    </form>
+    </SchemaForm>
   );
 }
 

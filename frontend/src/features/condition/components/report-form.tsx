@@ -1,45 +1,30 @@
-import { useId, useRef, useState, type FormEvent } from 'react';
-import { staleEditDetailsSchema } from '@toneledger/common/schemas/catalogue';
-import {
-  CONDITION_CONTEXTS,
-  CONDITION_CONTEXT_LABELS,
-  GRADE_LABELS,
-  reportSchema,
-  type ConditionReport,
-  type ConditionTerm,
-  type GradeDefinitions,
-} from '@toneledger/common/schemas/condition';
+import { useId, useState } from 'react';
+import { useController, useWatch } from 'react-hook-form';
+import { CONDITION_CONTEXTS, CONDITION_CONTEXT_LABELS, GRADE_LABELS, reportInputSchema, reportSchema, type ConditionReport, type ConditionTerm, type GradeDefinitions } from '@toneledger/common/schemas/condition';
 import type { PrintImage } from '@toneledger/common/schemas/images';
+import { DateInput, SelectInput, TextAreaInput } from '@/components/form/fields';
+import { useFieldId } from '@/components/form/form-context';
+import { SchemaForm } from '@/components/form/schema-form';
 import { Button } from '@/components/ui/button';
-import { SelectField, TextField } from '@/components/ui/field';
-import { ErrorNotice, Notice } from '@/components/ui/notice';
-import { TextAreaField } from '@/components/ui/text-area-field';
-import { isApiError } from '@/lib/api-client';
+import { ErrorNotice } from '@/components/ui/notice';
+import { changesOnly } from '@/lib/forms/stale-edit';
+import { useRecordEdit } from '@/lib/forms/use-record-edit';
+import { useSchemaForm } from '@/lib/forms/use-schema-form';
 import { useCreateReport, useDiscardReport, useSignReport, useUpdateReport } from '@/features/condition/api/save-report';
 import { GradeField } from '@/features/condition/components/grade-field';
 import { ObservationsEditor } from '@/features/condition/components/observations-editor';
-import { StaleReportNotice } from '@/features/condition/components/stale-report-notice';
 import { todayIso } from '@/features/condition/utils/format';
 import {
-  changedFields,
-  checkReport,
-  checkUpdate,
+  FIELD_LABELS as L,
+  REPORT_FORM_FIELDS,
   describeField,
   emptyReportValues,
   errorLabel,
-  rebaseValues,
   reportToValues,
-  serverIssuesToErrors,
-  staleChanges,
-  type FieldErrors,
+  reportValuesToBody,
+  type ReportField,
   type ReportFormValues,
 } from '@/features/condition/utils/report-form';
-
-interface Conflict {
-  current: ConditionReport;
-  lastChangedBy: string | null;
-  lastChangedAt: string | null;
-}
 
 interface Shared {
   images: PrintImage[];
@@ -53,6 +38,13 @@ export type ReportFormProps =
 
 export const SIGN_WARNING = 'Signing locks the report; later corrections are addenda.';
 
+const CONTEXTS = CONDITION_CONTEXTS.map((c) => ({ value: c, label: CONDITION_CONTEXT_LABELS[c] }));
+
+function Grade({ definitions }: { definitions: GradeDefinitions }) {
+  const { field, fieldState } = useController<ReportFormValues, 'grade'>({ name: 'grade' });
+  return <GradeField id={useFieldId('grade')} name="grade" value={field.value} onChange={field.onChange} definitions={definitions} error={fieldState.error?.message} />;
+}
+
 /**
  * A condition report being written: a new one, or the author's own draft. Checked with the shared
  * schema before sending; whatever the server answers, what was typed stays in the form. A draft is
@@ -60,243 +52,115 @@ export const SIGN_WARNING = 'Signing locks the report; later corrections are add
  * meantime is shown, field by field, before anything is overwritten.
  */
 export function ReportForm(props: ReportFormProps) {
-  const prefix = `report${useId().replace(/[^a-zA-Z0-9_-]/g, '')}`;
   const opened = props.mode === 'edit' ? props.report : null;
-  const [base, setBase] = useState<ConditionReport | null>(opened);
-  const [values, setValues] = useState<ReportFormValues>(() => (opened ? reportToValues(opened) : emptyReportValues(todayIso())));
-  const [errors, setErrors] = useState<FieldErrors>({});
-  const [conflict, setConflict] = useState<Conflict | null>(null);
-  const [notice, setNotice] = useState<string | null>(null);
   const [confirmSign, setConfirmSign] = useState(false);
   const [confirmDiscard, setConfirmDiscard] = useState(false);
-  const [failure, setFailure] = useState<unknown>(null);
-  const summaryRef = useRef<HTMLDivElement>(null);
-
   const create = useCreateReport();
   const update = useUpdateReport();
   const sign = useSignReport();
   const discard = useDiscardReport();
   const busy = create.isPending || update.isPending || sign.isPending || discard.isPending;
 
-  const baseValues = base ? reportToValues(base) : null;
-  const dirty = baseValues ? changedFields(baseValues, values).length > 0 : true;
-  const id = (path: string) => `${prefix}-${path.replace(/\./g, '-')}`;
+  const form = useSchemaForm({ schema: reportInputSchema, defaultValues: opened ? reportToValues(opened) : emptyReportValues(todayIso()), toBody: reportValuesToBody });
+  const edit = useRecordEdit(form, {
+    record: opened,
+    recordSchema: reportSchema,
+    toValues: reportToValues,
+    fields: REPORT_FORM_FIELDS,
+    comparable: reportValuesToBody,
+    describe: (key, values) => describeField(values, key as ReportField, props.terms),
+  });
+  const values = useWatch({ control: form.control }) as ReportFormValues;
+  const observationsHeading = useId();
+  const dirty = edit.base ? edit.changed(values).length > 0 : true;
 
-  function set<K extends keyof ReportFormValues>(field: K, value: ReportFormValues[K]) {
-    setValues((v) => ({ ...v, [field]: value }));
+  function failed(error: unknown) {
+    if (!edit.catchConflict(error)) form.serverError(error);
   }
 
-  function showErrors(next: FieldErrors) {
-    setErrors(next);
-    requestAnimationFrame(() => summaryRef.current?.focus());
-  }
-
-  /** Sorts a failed request into a stale-edit review, field errors, or a general message. */
-  function handleError(error: unknown) {
-    if (isApiError(error) && error.code === 'conflict') {
-      const stale = staleEditDetailsSchema.safeParse(error.details);
-      const current = stale.success ? reportSchema.safeParse(stale.data.current) : null;
-      if (stale.success && current?.success) {
-        setConflict({ current: current.data, lastChangedBy: stale.data.lastChangedBy, lastChangedAt: stale.data.lastChangedAt });
-        return;
-      }
-    }
-    const fieldErrors = isApiError(error) ? serverIssuesToErrors(error.details) : {};
-    if (Object.keys(fieldErrors).length > 0) showErrors(fieldErrors);
-    else setFailure(error);
-  }
-
-  function reset() {
-    setNotice(null);
-    setFailure(null);
+  /** Saves the draft if anything changed; the saved report, or null when it was not saved. */
+  async function saveDraft(body: ReturnType<typeof reportInputSchema.parse>, current: ReportFormValues): Promise<ConditionReport | null> {
     create.reset();
     update.reset();
     sign.reset();
-  }
-
-  /** Saves the draft if anything changed; resolves with the saved report, or null when it was not saved. */
-  async function saveDraft(): Promise<ConditionReport | null> {
-    if (props.mode === 'create') {
-      const checked = checkReport(values);
-      if (!checked.ok) {
-        showErrors(checked.errors);
-        return null;
-      }
-      setErrors({});
-      try {
-        return await create.mutateAsync({ printId: props.printId, input: checked.data });
-      } catch (error) {
-        handleError(error);
-        return null;
-      }
-    }
-    if (!base || !baseValues) return null;
-    if (!dirty) return base;
-    const checked = checkUpdate(baseValues, values, base.version);
-    if (!checked.ok) {
-      showErrors(checked.errors);
-      return null;
-    }
-    setErrors({});
     try {
-      const saved = await update.mutateAsync({ id: base.id, update: checked.data });
-      setBase(saved);
-      setValues(reportToValues(saved));
+      if (props.mode === 'create') return await create.mutateAsync({ printId: props.printId, input: body });
+      if (!edit.base) return null;
+      const changed = edit.changed(current);
+      if (changed.length === 0) return edit.base;
+      const saved = await update.mutateAsync({ id: edit.base.id, update: changesOnly(body, changed, edit.base.version) as never });
+      edit.saved(saved);
       return saved;
     } catch (error) {
-      handleError(error);
+      failed(error);
       return null;
     }
   }
 
-  async function submit(event: FormEvent) {
-    event.preventDefault();
-    reset();
-    const saved = await saveDraft();
+  async function onValid(body: ReturnType<typeof reportInputSchema.parse>, current: ReportFormValues) {
+    const saved = await saveDraft(body, current);
     if (!saved) return;
     if (props.mode === 'create') props.onCreated(saved);
-    else setNotice(`Draft saved (version ${saved.version}).`);
+    else form.setNotice(`Draft saved (version ${saved.version}).`);
   }
 
   async function signNow() {
-    reset();
-    if (values.grade === '') {
+    if (form.getValues('grade') === '') {
       setConfirmSign(false);
-      showErrors({ grade: 'Give an overall grade before signing' });
+      form.showErrors({ grade: 'Give an overall grade before signing' });
       return;
     }
-    const saved = await saveDraft();
-    if (!saved) {
-      setConfirmSign(false);
-      return;
-    }
-    try {
-      await sign.mutateAsync({ id: saved.id, version: saved.version });
-    } catch (error) {
-      setConfirmSign(false);
-      handleError(error);
-    }
+    let checked = false;
+    await form.submit(async (body, current) => {
+      checked = true;
+      const saved = await saveDraft(body, current);
+      if (!saved) return setConfirmSign(false);
+      try {
+        await sign.mutateAsync({ id: saved.id, version: saved.version });
+      } catch (error) {
+        setConfirmSign(false);
+        failed(error);
+      }
+    })();
+    if (!checked) setConfirmSign(false);
   }
-
-  function reapply() {
-    if (!conflict || !base) return;
-    const both = staleChanges(base, conflict.current, values, props.terms).filter((c) => c.alsoChangedByYou);
-    setValues(rebaseValues(base, conflict.current, values));
-    setBase(conflict.current);
-    setConflict(null);
-    reset();
-    setNotice(
-      `Your edits are now on top of version ${conflict.current.version}.` +
-        (both.length ? ` You both changed: ${both.map((c) => c.label).join(', ')}; your values are in the form.` : '') +
-        ' Check the form, then save the draft.',
-    );
-  }
-
-  function discardMine() {
-    if (!conflict) return;
-    setValues(reportToValues(conflict.current));
-    setBase(conflict.current);
-    setConflict(null);
-    setErrors({});
-    reset();
-    setNotice(`The form now shows version ${conflict.current.version}. Your edits were discarded.`);
-  }
-
-  const errorEntries = Object.entries(errors).filter(([, message]) => message) as [string, string][];
 
   return (
-    <form onSubmit={submit} noValidate aria-label={props.mode === 'create' ? 'New condition report' : 'Draft condition report'} className="flex max-w-5xl flex-col gap-5">
-      {conflict && base ? (
-        <StaleReportNotice
-          changes={staleChanges(base, conflict.current, values, props.terms)}
-          lastChangedBy={conflict.lastChangedBy}
-          lastChangedAt={conflict.lastChangedAt}
-          currentVersion={conflict.current.version}
-          describeMine={(field) => describeField(values, field, props.terms)}
-          onReapply={reapply}
-          onDiscard={discardMine}
-        />
-      ) : null}
-      {notice ? (
-        <Notice tone="info" role="status">
-          <p>{notice}</p>
-        </Notice>
-      ) : null}
-      <div ref={summaryRef} tabIndex={-1} className="outline-none">
-        {errorEntries.length > 0 ? (
-          <Notice tone="error" role="alert" title={`Not saved: ${errorEntries.length === 1 ? 'one field needs' : `${errorEntries.length} fields need`} attention.`}>
-            <ul className="mt-1 list-disc pl-5">
-              {errorEntries.map(([path, message]) => {
-                const label = errorLabel(path);
-                return (
-                  <li key={path}>
-                    {label ? (
-                      <a href={`#${id(path)}`} className="text-danger-700">
-                        {label}: {message}
-                      </a>
-                    ) : (
-                      message
-                    )}
-                  </li>
-                );
-              })}
-            </ul>
-          </Notice>
-        ) : null}
-      </div>
-      {failure ? <ErrorNotice error={failure} title="Not saved." /> : null}
-
+    <SchemaForm
+      form={form}
+      edit={edit}
+      subject="this draft"
+      onValid={onValid}
+      labelFor={errorLabel}
+      aria-label={props.mode === 'create' ? 'New condition report' : 'Draft condition report'}
+      className="max-w-5xl gap-5"
+    >
       <fieldset className="grid gap-4 rounded border border-paper-300 bg-white p-4 sm:grid-cols-3">
         <legend className="px-1 font-serif text-lg font-semibold">Examination</legend>
-        <TextField id={id('examinedOn')} type="date" label="Examined on" value={values.examinedOn} onChange={(e) => set('examinedOn', e.target.value)} error={errors.examinedOn} required />
-        <SelectField id={id('context')} label="Context" value={values.context} onChange={(e) => set('context', e.target.value)} error={errors.context}>
-          {CONDITION_CONTEXTS.map((c) => (
-            <option key={c} value={c}>
-              {CONDITION_CONTEXT_LABELS[c]}
-            </option>
-          ))}
-        </SelectField>
-        <TextField
-          id={id('nextCheckOn')}
-          type="date"
-          label="Next check"
-          hint="Proposed date of the next examination"
-          value={values.nextCheckOn}
-          onChange={(e) => set('nextCheckOn', e.target.value)}
-          error={errors.nextCheckOn}
-        />
+        <DateInput name="examinedOn" label={L.examinedOn} required />
+        <SelectInput name="context" label={L.context} options={CONTEXTS} />
+        <DateInput name="nextCheckOn" label={L.nextCheckOn} hint="Proposed date of the next examination" />
       </fieldset>
 
       <section className="rounded border border-paper-300 bg-white p-4">
-        <GradeField id={id('grade')} value={values.grade} onChange={(grade) => set('grade', grade)} definitions={props.definitions} error={errors.grade} />
+        <Grade definitions={props.definitions} />
       </section>
 
-      <section className="rounded border border-paper-300 bg-paper-50 p-4" aria-labelledby={id('observations-heading')}>
-        <h2 id={id('observations-heading')} className="mb-3 text-lg">
-          Observations
+      <section className="rounded border border-paper-300 bg-paper-50 p-4" aria-labelledby={observationsHeading}>
+        <h2 id={observationsHeading} className="mb-3 text-lg">
+          {L.observations}
         </h2>
-        <ObservationsEditor
-          observations={values.observations}
-          onChange={(observations) => set('observations', observations)}
-          terms={props.terms}
-          images={props.images}
-          errors={errors}
-          fieldId={id}
-        />
+        <ObservationsEditor terms={props.terms} images={props.images} />
       </section>
 
       <fieldset className="grid gap-4 rounded border border-paper-300 bg-white p-4">
         <legend className="px-1 font-serif text-lg font-semibold">Summary and advice</legend>
-        <TextAreaField id={id('summary')} label="Summary" value={values.summary} onChange={(e) => set('summary', e.target.value)} error={errors.summary} rows={4} maxLength={10000} />
-        <TextAreaField
-          id={id('recommendations')}
-          label="Recommendations"
+        <TextAreaInput name="summary" label={L.summary} rows={4} />
+        <TextAreaInput
+          name="recommendations"
+          label={L.recommendations}
           hint="Advice on care, housing, display or loan. Treatment decisions rest with qualified conservators."
-          value={values.recommendations}
-          onChange={(e) => set('recommendations', e.target.value)}
-          error={errors.recommendations}
           rows={3}
-          maxLength={10000}
         />
       </fieldset>
 
@@ -322,11 +186,7 @@ export function ReportForm(props: ReportFormProps) {
           <p>Discard this draft? It is removed from the print's reports; the audit trail keeps a copy.</p>
           {discard.isError ? <ErrorNotice error={discard.error} title="The draft was not discarded." /> : null}
           <div className="mt-3 flex gap-2">
-            <Button
-              variant="danger"
-              disabled={busy}
-              onClick={() => base && discard.mutate({ report: base }, { onSuccess: () => props.onDiscarded(base) })}
-            >
+            <Button variant="danger" disabled={busy} onClick={() => edit.base && discard.mutate({ report: edit.base }, { onSuccess: () => props.onDiscarded(edit.base!) })}>
               Discard draft
             </Button>
             <Button onClick={() => setConfirmDiscard(false)} disabled={busy}>
@@ -348,7 +208,7 @@ export function ReportForm(props: ReportFormProps) {
             <Button variant="quiet" onClick={() => setConfirmDiscard(true)} disabled={busy || confirmDiscard}>
               Discard…
             </Button>
-            <span className="text-xs text-ink-700">{dirty ? 'Unsaved changes' : `Saved · version ${base?.version ?? ''}`}</span>
+            <span className="text-xs text-ink-700">{dirty ? 'Unsaved changes' : `Saved · version ${edit.base?.version ?? ''}`}</span>
           </>
         ) : (
           <Button variant="quiet" onClick={props.onCancel} disabled={busy}>
@@ -356,6 +216,6 @@ export function ReportForm(props: ReportFormProps) {
           </Button>
         )}
       </div>
-    </form>
+    </SchemaForm>
   );
 }

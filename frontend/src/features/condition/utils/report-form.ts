@@ -1,23 +1,16 @@
 import {
   CONDITION_CONTEXT_LABELS,
   GRADE_LABELS,
-  reportInputSchema,
   type ConditionReport,
   type ConditionTerm,
   type Grade,
   type Region,
-  type ReportInput,
 } from '@toneledger/common/schemas/condition';
-import type { ReportUpdate } from '@/features/condition/api/save-report';
+import { fieldList } from '@/lib/forms/stale-edit';
 import { formatDay } from '@/features/condition/utils/format';
-import { issuesToErrors, type Checked, type FieldErrors } from '@/lib/form-errors';
 
-export { serverIssuesToErrors } from '@/lib/form-errors';
-export type { Checked, FieldErrors };
-
-/** One observation as the form holds it; `key` only keeps React rows stable while reordering. */
-export interface ObservationDraft {
-  key: string;
+/** One observation as the form holds it. */
+export interface ObservationValues {
   termCode: string;
   side: string;
   area: string;
@@ -35,21 +28,23 @@ export interface ReportFormValues {
   summary: string;
   recommendations: string;
   nextCheckOn: string;
-  observations: ObservationDraft[];
+  observations: ObservationValues[];
 }
 
-export const REPORT_FIELDS = ['examinedOn', 'context', 'grade', 'summary', 'recommendations', 'nextCheckOn', 'observations'] as const;
-export type ReportField = (typeof REPORT_FIELDS)[number];
+export type ReportField = keyof ReportFormValues;
 
 export const FIELD_LABELS: Record<ReportField, string> = {
   examinedOn: 'Examined on',
   context: 'Context',
+  nextCheckOn: 'Next check',
   grade: 'Overall grade',
+  observations: 'Observations',
   summary: 'Summary',
   recommendations: 'Recommendations',
-  nextCheckOn: 'Next check',
-  observations: 'Observations',
 };
+
+/** The report's fields in form order, with their labels (for the stale-edit review). */
+export const REPORT_FORM_FIELDS = fieldList(FIELD_LABELS);
 
 export const OBSERVATION_LABELS: Record<string, string> = {
   termCode: 'Observed',
@@ -64,11 +59,8 @@ export const OBSERVATION_LABELS: Record<string, string> = {
   'region.points': 'Region',
 };
 
-let counter = 0;
-const nextKey = () => `obs-${(counter += 1)}`;
-
-export function newObservation(): ObservationDraft {
-  return { key: nextKey(), termCode: '', side: 'recto', area: 'image', extent: 'localised', extentPercent: '', severity: 'slight', notes: '', region: null };
+export function newObservation(): ObservationValues {
+  return { termCode: '', side: 'recto', area: 'image', extent: 'localised', extentPercent: '', severity: 'slight', notes: '', region: null };
 }
 
 export function emptyReportValues(today: string): ReportFormValues {
@@ -86,7 +78,6 @@ export function reportToValues(report: ConditionReport): ReportFormValues {
     observations: [...report.observations]
       .sort((a, b) => a.position - b.position)
       .map((o) => ({
-        key: nextKey(),
         termCode: o.termCode,
         side: o.side,
         area: o.area,
@@ -99,55 +90,22 @@ export function reportToValues(report: ConditionReport): ReportFormValues {
   };
 }
 
-function rawObservation(o: ObservationDraft) {
-  return {
-    termCode: o.termCode,
-    side: o.side,
-    area: o.area,
-    extent: o.extent,
-    extentPercent: o.extent === 'percentage' ? o.extentPercent.trim() : null,
-    severity: o.severity,
-    notes: o.notes,
-    region: o.region,
-  };
+/** An observation as sent: a percentage only with the percentage extent. */
+function observationBody(o: ObservationValues) {
+  return { ...o, extentPercent: o.extent === 'percentage' ? o.extentPercent.trim() : null };
 }
 
-function raw(values: ReportFormValues) {
+/**
+ * The form's values as the request body: no grade and no next check are null; text and figures go
+ * as typed, for the schema to trim and read.
+ */
+export function reportValuesToBody(values: ReportFormValues) {
   return {
-    examinedOn: values.examinedOn,
-    context: values.context,
+    ...values,
     grade: values.grade === '' ? null : values.grade,
-    summary: values.summary,
-    recommendations: values.recommendations,
     nextCheckOn: values.nextCheckOn === '' ? null : values.nextCheckOn,
-    observations: values.observations.map(rawObservation),
+    observations: values.observations.map(observationBody),
   };
-}
-
-/** The field a value of the form compares by (observations without their row keys). */
-function comparable(values: ReportFormValues, field: ReportField): string {
-  if (field === 'observations') return JSON.stringify(values.observations.map(rawObservation));
-  return values[field];
-}
-
-export function changedFields(base: ReportFormValues, values: ReportFormValues): ReportField[] {
-  return REPORT_FIELDS.filter((field) => comparable(base, field) !== comparable(values, field));
-}
-
-/** The whole form checked with the schema the server uses. */
-export function checkReport(values: ReportFormValues): Checked<ReportInput> {
-  const result = reportInputSchema.safeParse(raw(values));
-  return result.success ? { ok: true, data: result.data } : { ok: false, errors: issuesToErrors(result.error.issues) };
-}
-
-/** The form checked whole; the update carries only the fields changed since `base`, on its version. */
-export function checkUpdate(base: ReportFormValues, values: ReportFormValues, version: number): Checked<ReportUpdate> {
-  const checked = checkReport(values);
-  if (!checked.ok) return checked;
-  const update: Record<string, unknown> = { version };
-  const parsed = checked.data as Record<string, unknown>;
-  for (const field of changedFields(base, values)) update[field] = parsed[field] ?? null;
-  return { ok: true, data: update as ReportUpdate };
 }
 
 /** A readable label for an error's path: "Observation 3 · Observed". */
@@ -180,36 +138,4 @@ export function describeField(values: ReportFormValues, field: ReportField, term
     default:
       return values[field];
   }
-}
-
-export interface StaleChange {
-  field: ReportField;
-  label: string;
-  opened: string;
-  now: string;
-  alsoChangedByYou: boolean;
-}
-
-/** What changed between the version the form opened and the version saved since. */
-export function staleChanges(opened: ConditionReport, current: ConditionReport, mine: ReportFormValues, terms: ConditionTerm[] = []): StaleChange[] {
-  const before = reportToValues(opened);
-  const now = reportToValues(current);
-  return REPORT_FIELDS.filter((field) => comparable(before, field) !== comparable(now, field)).map((field) => ({
-    field,
-    label: FIELD_LABELS[field],
-    opened: describeField(before, field, terms),
-    now: describeField(now, field, terms),
-    alsoChangedByYou: comparable(mine, field) !== comparable(before, field),
-  }));
-}
-
-/** The person's edits on top of the current version: fields they changed keep their values. */
-export function rebaseValues(opened: ConditionReport, current: ConditionReport, mine: ReportFormValues): ReportFormValues {
-  const before = reportToValues(opened);
-  const now = reportToValues(current);
-  const next: ReportFormValues = { ...mine };
-  for (const field of REPORT_FIELDS) {
-    if (comparable(mine, field) === comparable(before, field)) (next as unknown as Record<string, unknown>)[field] = now[field];
-  }
-  return next;
 }
