@@ -1,16 +1,16 @@
-import type { z } from 'zod';
-import type { Enclosure, enclosureInputSchema, enclosureUpdateSchema } from '@toneledger/common/schemas/catalogue';
+import type { BodyIn } from '@toneledger/common/api/endpoint';
+import { enclosuresApi } from '@toneledger/common/api/reference';
 import { enclosureKeys } from '@/lib/reference-api';
 import { createReference, updateReference, useSaveReference } from '@/features/reference/api/save-reference';
 
-export function createEnclosure(input: z.input<typeof enclosureInputSchema>): Promise<Enclosure> {
-  return createReference<Enclosure>('/api/enclosures', input);
+export function createEnclosure(input: BodyIn<typeof enclosuresApi.create>) {
+  return createReference(enclosuresApi, input);
 }
 
-export function updateEnclosure(id: string, patch: z.input<typeof enclosureUpdateSchema>): Promise<Enclosure> {
-  return updateReference<Enclosure>('/api/enclosures', id, patch);
+export function updateEnclosure(id: string, patch: BodyIn<typeof enclosuresApi.update>) {
+  return updateReference(enclosuresApi, id, patch);
 }
 
 export function useSaveEnclosure() {
-  return useSaveReference<Enclosure>(enclosureKeys, '/api/enclosures');
+  return useSaveReference(enclosureKeys, enclosuresApi);
 }

@@ -1,16 +1,16 @@
-import type { z } from 'zod';
-import type { Paper, paperInputSchema, paperUpdateSchema } from '@toneledger/common/schemas/catalogue';
+import type { BodyIn } from '@toneledger/common/api/endpoint';
+import { papersApi } from '@toneledger/common/api/reference';
 import { paperKeys } from '@/lib/reference-api';
 import { createReference, updateReference, useSaveReference } from '@/features/reference/api/save-reference';
 
-export function createPaper(input: z.input<typeof paperInputSchema>): Promise<Paper> {
-  return createReference<Paper>('/api/papers', input);
+export function createPaper(input: BodyIn<typeof papersApi.create>) {
+  return createReference(papersApi, input);
 }
 
-export function updatePaper(id: string, patch: z.input<typeof paperUpdateSchema>): Promise<Paper> {
-  return updateReference<Paper>('/api/papers', id, patch);
+export function updatePaper(id: string, patch: BodyIn<typeof papersApi.update>) {
+  return updateReference(papersApi, id, patch);
 }
 
 export function useSavePaper() {
-  return useSaveReference<Paper>(paperKeys, '/api/papers');
+  return useSaveReference(paperKeys, papersApi);
 }

@@ -1,16 +1,16 @@
-import type { z } from 'zod';
-import type { Recipe, recipeInputSchema, recipeUpdateSchema } from '@toneledger/common/schemas/catalogue';
+import type { BodyIn } from '@toneledger/common/api/endpoint';
+import { recipesApi } from '@toneledger/common/api/reference';
 import { recipeKeys } from '@/lib/reference-api';
 import { createReference, updateReference, useSaveReference } from '@/features/reference/api/save-reference';
 
-export function createRecipe(input: z.input<typeof recipeInputSchema>): Promise<Recipe> {
-  return createReference<Recipe>('/api/recipes', input);
+export function createRecipe(input: BodyIn<typeof recipesApi.create>) {
+  return createReference(recipesApi, input);
 }
 
-export function updateRecipe(id: string, patch: z.input<typeof recipeUpdateSchema>): Promise<Recipe> {
-  return updateReference<Recipe>('/api/recipes', id, patch);
+export function updateRecipe(id: string, patch: BodyIn<typeof recipesApi.update>) {
+  return updateReference(recipesApi, id, patch);
 }
 
 export function useSaveRecipe() {
-  return useSaveReference<Recipe>(recipeKeys, '/api/recipes');
+  return useSaveReference(recipeKeys, recipesApi);
 }

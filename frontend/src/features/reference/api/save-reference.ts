@@ -1,5 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { requestData } from '@/lib/api-client';
+import type { BodyIn, DataOf } from '@toneledger/common/api/endpoint';
+import type { enclosuresApi, locationsApi, makersApi, papersApi, recipesApi } from '@toneledger/common/api/reference';
+import { callData } from '@/lib/api-client';
 
 /** What a record form sends: a whole new record (`id: null`), or the changed fields and `version`. */
 export interface SaveRequest {
@@ -13,22 +15,34 @@ interface ReferenceKeys {
   detail: (id: string) => readonly unknown[];
 }
 
-export function createReference<T>(path: string, body: unknown): Promise<T> {
-  return requestData<T>(path, { method: 'POST', body });
+type ReferenceContract = typeof makersApi | typeof papersApi | typeof recipesApi | typeof locationsApi | typeof enclosuresApi;
+/** The record a reference contract's create and edit answer. */
+type RecordOf<C extends ReferenceContract> = DataOf<C['create']> & { id: string };
+
+// The five contracts are made by one definition and share one shape: each call is typed per contract by its signature.
+type AnyCreate = typeof makersApi.create;
+type AnyUpdate = typeof makersApi.update;
+
+export async function createReference<C extends ReferenceContract>(contract: C, body: BodyIn<C['create']>): Promise<RecordOf<C>> {
+  const created: unknown = await callData(contract.create as AnyCreate, { body: body as BodyIn<AnyCreate> });
+  return created as RecordOf<C>;
 }
 
-export function updateReference<T>(path: string, id: string, body: unknown): Promise<T> {
-  return requestData<T>(`${path}/${encodeURIComponent(id)}`, { method: 'PATCH', body });
+export async function updateReference<C extends ReferenceContract>(contract: C, id: string, body: BodyIn<C['update']>): Promise<RecordOf<C>> {
+  const updated: unknown = await callData(contract.update as AnyUpdate, { params: { id }, body: body as BodyIn<AnyUpdate> });
+  return updated as RecordOf<C>;
 }
 
 /**
  * Create-or-update for one reference resource: POST without an id, PATCH with one. On success the
- * record is put in its detail query and every list of the resource is fetched again.
+ * record is put in its detail query and every list of the resource is fetched again. The body is
+ * what the record form checked with the contract's schema.
  */
-export function useSaveReference<T extends { id: string }>(keys: ReferenceKeys, path: string) {
+export function useSaveReference<C extends ReferenceContract>(keys: ReferenceKeys, contract: C) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ id, body }: SaveRequest) => (id ? updateReference<T>(path, id, body) : createReference<T>(path, body)),
+    mutationFn: ({ id, body }: SaveRequest) =>
+      id ? updateReference(contract, id, body as BodyIn<C['update']>) : createReference(contract, body as BodyIn<C['create']>),
     onSuccess: async (record) => {
       queryClient.setQueryData(keys.detail(record.id), record);
       await queryClient.invalidateQueries({ queryKey: keys.lists() });

@@ -1,10 +1,11 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CatalogueSettings } from '@toneledger/common/schemas/catalogue';
-import { requestData } from '@/lib/api-client';
+import type { BodyIn } from '@toneledger/common/api/endpoint';
+import { catalogueSettingsApi } from '@toneledger/common/api/reference';
+import { callData } from '@/lib/api-client';
 import { catalogueSettingsKey } from '@/lib/settings-api';
 
-export function updateCatalogueSettings(settings: CatalogueSettings): Promise<CatalogueSettings> {
-  return requestData<CatalogueSettings>('/api/settings/catalogue', { method: 'PUT', body: settings });
+export function updateCatalogueSettings(settings: BodyIn<typeof catalogueSettingsApi.put>) {
+  return callData(catalogueSettingsApi.put, { body: settings });
 }
 
 export function useUpdateCatalogueSettings() {
