@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { dataEnvelope } from '../schemas/envelope';
+import { emptyBodySchema } from '../schemas/primitives';
 import { endpoint } from './endpoint';
 
 /** Only paths inside this app: "/x", never "//host" or "/\host". */
@@ -21,7 +22,7 @@ export const authApi = {
   }),
   logout: endpoint({
     method: 'post', path: '/auth/logout', summary: "Ends the session here and returns the provider's end-session URL so its session ends too",
-    tags: ['session'], access: 'public',
+    tags: ['session'], access: 'public', body: emptyBodySchema,
     response: { description: 'Where to send the browser next', schema: dataEnvelope(z.object({ redirectTo: z.string() })) },
   }),
 };

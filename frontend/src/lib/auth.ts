@@ -1,6 +1,8 @@
 import { queryOptions, useMutation, useSuspenseQuery } from '@tanstack/react-query';
+import { authApi } from '@toneledger/common/api/auth';
+import { meApi } from '@toneledger/common/api/users';
 import type { Me } from '@toneledger/common/schemas/users';
-import { requestData } from '@/lib/api-client';
+import { callData, urlOf } from '@/lib/api-client';
 import { browser } from '@/lib/browser';
 
 /** The signed-in person. Rooted at the API resource `me`. */
@@ -8,14 +10,10 @@ export const meKeys = {
   all: ['me'] as const,
 };
 
-export function getMe(signal?: AbortSignal): Promise<Me> {
-  return requestData<Me>('/api/me', { signal });
-}
-
 export function meQueryOptions() {
   return queryOptions({
     queryKey: meKeys.all,
-    queryFn: ({ signal }) => getMe(signal),
+    queryFn: ({ signal }) => callData(meApi.get, { signal }),
     staleTime: 60_000,
   });
 }
@@ -28,11 +26,11 @@ export function useMe(): Me {
 /** Where the browser goes to sign in, coming back to `returnTo` afterwards. */
 export function signInHref(returnTo: string): string {
   const safe = returnTo.startsWith('/') && !returnTo.startsWith('//') ? returnTo : '/';
-  return `/auth/login?returnTo=${encodeURIComponent(safe)}`;
+  return urlOf(authApi.login, { query: { returnTo: safe } });
 }
 
 export async function signOut(): Promise<string> {
-  const { redirectTo } = await requestData<{ redirectTo: string }>('/auth/logout', { method: 'POST', body: {} });
+  const { redirectTo } = await callData(authApi.logout, { body: {} });
   return redirectTo;
 }
 

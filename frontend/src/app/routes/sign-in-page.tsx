@@ -1,6 +1,8 @@
 import { useLocation } from 'react-router-dom';
+import { authApi } from '@toneledger/common/api/auth';
 import { PlainPage } from '@/app/layout/plain-page';
 import { buttonClasses } from '@/components/ui/button';
+import { urlOf } from '@/lib/api-client';
 import { useDocumentTitle } from '@/lib/use-document-title';
 
 /**
@@ -19,7 +21,7 @@ export function SignInPage() {
         kept, and how its condition and colour change over the years. Sign in with your institution account to
         continue.
       </p>
-      <form method="get" action="/auth/login" className="mt-6">
+      <form method="get" action={urlOf(authApi.login)} className="mt-6">
         <input type="hidden" name="returnTo" value={returnTo} />
         <button type="submit" className={buttonClasses('primary', 'md', 'px-6')}>
           Sign in

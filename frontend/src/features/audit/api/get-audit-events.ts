@@ -1,16 +1,13 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import type { AuditEvent, AuditListQuery } from '@toneledger/common/schemas/audit';
-import { requestPage } from '@/lib/api-client';
+import { auditApi } from '@toneledger/common/api/users';
+import type { AuditListQuery } from '@toneledger/common/schemas/audit';
+import { call } from '@/lib/api-client';
 import { auditKeys } from '@/features/audit/api/keys';
-
-export function getAuditEvents(query: AuditListQuery, signal?: AbortSignal) {
-  return requestPage<AuditEvent>('/api/audit', { query, signal });
-}
 
 export function auditEventsQueryOptions(query: AuditListQuery) {
   return queryOptions({
     queryKey: auditKeys.list(query),
-    queryFn: ({ signal }) => getAuditEvents(query, signal),
+    queryFn: ({ signal }) => call(auditApi.list, { query, signal }),
     placeholderData: keepPreviousData,
   });
 }

@@ -1,13 +1,13 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { z } from 'zod';
-import type { testMailSchema } from '@toneledger/common/schemas/system';
-import { requestData } from '@/lib/api-client';
+import type { BodyIn } from '@toneledger/common/api/endpoint';
+import { devMailApi } from '@toneledger/common/api/dev-mail';
+import { callData } from '@/lib/api-client';
 import { devMailKeys } from '@/features/dev-mail/api/keys';
 
-export type TestMail = z.infer<typeof testMailSchema>;
+export type TestMail = BodyIn<typeof devMailApi.sendTest>;
 
-export function sendTestMail(input: TestMail): Promise<{ messageId: string }> {
-  return requestData<{ messageId: string }>('/api/dev/mail/test', { method: 'POST', body: input });
+export function sendTestMail(input: TestMail) {
+  return callData(devMailApi.sendTest, { body: input });
 }
 
 export function useSendTestMail() {

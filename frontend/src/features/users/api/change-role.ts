@@ -1,11 +1,14 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { RoleChange, User } from '@toneledger/common/schemas/users';
-import { requestData } from '@/lib/api-client';
+import type { BodyIn } from '@toneledger/common/api/endpoint';
+import { usersApi } from '@toneledger/common/api/users';
+import { callData } from '@/lib/api-client';
 import { meKeys } from '@/lib/auth';
 import { userKeys } from '@/features/users/api/keys';
 
-export function changeRole(id: string, change: RoleChange): Promise<User> {
-  return requestData<User>(`/api/users/${encodeURIComponent(id)}/role`, { method: 'PATCH', body: change });
+export type RoleChange = BodyIn<typeof usersApi.changeRole>;
+
+export function changeRole(id: string, change: RoleChange) {
+  return callData(usersApi.changeRole, { params: { id }, body: change });
 }
 
 export function useChangeRole() {

@@ -1,16 +1,13 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import type { User, UserListQuery } from '@toneledger/common/schemas/users';
-import { requestPage } from '@/lib/api-client';
+import { usersApi } from '@toneledger/common/api/users';
+import type { UserListQuery } from '@toneledger/common/schemas/users';
+import { call } from '@/lib/api-client';
 import { userKeys } from '@/features/users/api/keys';
-
-export function getUsers(query: UserListQuery, signal?: AbortSignal) {
-  return requestPage<User>('/api/users', { query, signal });
-}
 
 export function usersQueryOptions(query: UserListQuery) {
   return queryOptions({
     queryKey: userKeys.list(query),
-    queryFn: ({ signal }) => getUsers(query, signal),
+    queryFn: ({ signal }) => call(usersApi.list, { query, signal }),
     placeholderData: keepPreviousData,
   });
 }
