@@ -1,10 +1,9 @@
-import { useId, useState, type FormEvent } from 'react';
+import { useId, useState } from 'react';
 import { baselineChoiceSchema, type MeasurementSession, type Spot } from '@toneledger/common/schemas/measurements';
 import { Button } from '@/components/ui/button';
-import { SelectField } from '@/components/ui/field';
-import { ErrorNotice } from '@/components/ui/notice';
-import { TextAreaField } from '@/components/ui/text-area-field';
-import { isApiError } from '@/lib/api-client';
+import { SelectInput, TextAreaInput } from '@/components/form/fields';
+import { SchemaForm } from '@/components/form/schema-form';
+import { useSchemaForm } from '@/lib/forms/use-schema-form';
 import { useChooseBaseline } from '@/features/measurements/api/save-spot';
 import { formatDay } from '@/features/measurements/utils/format';
 
@@ -22,44 +21,20 @@ export interface BaselineControlProps {
  */
 export function BaselineControl({ spot, sessions }: BaselineControlProps) {
   const [open, setOpen] = useState(false);
-  const [sessionId, setSessionId] = useState(spot.baseline?.sessionId ?? AUTOMATIC);
-  const [reason, setReason] = useState('');
-  const [errors, setErrors] = useState<{ sessionId?: string; reason?: string }>({});
   const [saved, setSaved] = useState(false);
   const choose = useChooseBaseline();
   const headingId = useId();
+  const form = useSchemaForm({
+    schema: baselineChoiceSchema,
+    defaultValues: { sessionId: spot.baseline?.sessionId ?? AUTOMATIC, reason: '' },
+    // The body: the automatic choice is no session; on the spot's version.
+    toBody: (values: { sessionId: string; reason: string }) => ({ ...values, sessionId: values.sessionId === AUTOMATIC ? null : values.sessionId, version: spot.version }),
+  });
 
-  function submit(event: FormEvent) {
-    event.preventDefault();
+  function close() {
+    setOpen(false);
+    form.reset();
     choose.reset();
-    setSaved(false);
-    const checked = baselineChoiceSchema.safeParse({ sessionId: sessionId === AUTOMATIC ? null : sessionId, reason, version: spot.version });
-    if (!checked.success) {
-      const found: typeof errors = {};
-      for (const issue of checked.error.issues) {
-        const key = issue.path[0] === 'sessionId' ? 'sessionId' : 'reason';
-        found[key] ??= issue.message;
-      }
-      setErrors(found);
-      return;
-    }
-    setErrors({});
-    choose.mutate(
-      { id: spot.id, choice: checked.data },
-      {
-        onSuccess: () => {
-          setOpen(false);
-          setReason('');
-          setSaved(true);
-        },
-        onError: (error) => {
-          if (!isApiError(error)) return;
-          const found: typeof errors = {};
-          for (const issue of error.fieldIssues) found[issue.path === 'sessionId' ? 'sessionId' : 'reason'] ??= issue.message;
-          setErrors(found);
-        },
-      },
-    );
   }
 
   if (!open) {
@@ -77,44 +52,42 @@ export function BaselineControl({ spot, sessions }: BaselineControlProps) {
     );
   }
 
-  const otherError = choose.isError && !(isApiError(choose.error) && choose.error.fieldIssues.length > 0);
   return (
-    <form onSubmit={submit} noValidate aria-labelledby={headingId} className="mt-2 flex max-w-xl flex-col gap-3 rounded border border-paper-300 bg-paper-50 p-3 print:hidden">
+    <SchemaForm
+      form={form}
+      onValid={(body) => {
+        setSaved(false);
+        choose.mutate(
+          { id: spot.id, choice: body },
+          {
+            onSuccess: () => {
+              close();
+              setSaved(true);
+            },
+            onError: form.serverError,
+          },
+        );
+      }}
+      failureTitle="The baseline was not changed."
+      aria-labelledby={headingId}
+      className="mt-2 max-w-xl gap-3 rounded border border-paper-300 bg-paper-50 p-3 print:hidden"
+    >
       <h3 id={headingId} className="font-sans text-sm font-semibold">
         Choose the baseline for {spot.name}
       </h3>
-      <SelectField label="Baseline session" value={sessionId} onChange={(e) => setSessionId(e.target.value)} error={errors.sessionId}>
-        <option value={AUTOMATIC}>The first comparable session (automatic)</option>
-        {sessions.map((s) => (
-          <option key={s.id} value={s.id}>
-            {formatDay(s.measuredOn)} · {s.instrument} · {s.illuminant}/{s.observer}° · {s.geometry}
-          </option>
-        ))}
-      </SelectField>
-      <TextAreaField
-        label="Reason"
-        hint="Why this session is the one to compare with: for example, the first reading after treatment."
-        value={reason}
-        onChange={(e) => setReason(e.target.value)}
-        error={errors.reason}
-        maxLength={500}
-        required
+      <SelectInput
+        name="sessionId"
+        label="Baseline session"
+        empty="The first comparable session (automatic)"
+        options={sessions.map((s) => ({ value: s.id, label: `${formatDay(s.measuredOn)} · ${s.instrument} · ${s.illuminant}/${s.observer}° · ${s.geometry}` }))}
       />
-      {otherError ? <ErrorNotice error={choose.error} title="The baseline was not changed." /> : null}
+      <TextAreaInput name="reason" label="Reason" hint="Why this session is the one to compare with: for example, the first reading after treatment." required />
       <div className="flex gap-2">
         <Button type="submit" variant="primary" disabled={choose.isPending}>
           {choose.isPending ? 'Saving…' : 'Save baseline'}
         </Button>
-        <Button
-          onClick={() => {
-            setOpen(false);
-            setErrors({});
-            choose.reset();
-          }}
-        >
-          Cancel
-        </Button>
+        <Button onClick={close}>Cancel</Button>
       </div>
-    </form>
+    </SchemaForm>
   );
 }

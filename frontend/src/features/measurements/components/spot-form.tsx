@@ -1,60 +1,115 @@
-import { useId, useState, type FormEvent } from 'react';
+import { useWatch } from 'react-hook-form';
 import type { PrintImage } from '@toneledger/common/schemas/images';
 import { VIEW_TYPE_LABELS } from '@toneledger/common/schemas/images';
-import { SPOT_PURPOSES, SPOT_PURPOSE_LABELS, spotInputSchema, spotUpdateSchema, type Spot } from '@toneledger/common/schemas/measurements';
+import { SPOT_PURPOSES, SPOT_PURPOSE_LABELS, spotInputSchema, spotSchema, type Spot } from '@toneledger/common/schemas/measurements';
+import { NumberInput, SelectInput, TextAreaInput, TextInput } from '@/components/form/fields';
+import { SchemaForm } from '@/components/form/schema-form';
 import { Button } from '@/components/ui/button';
-import { SelectField, TextField } from '@/components/ui/field';
-import { ErrorNotice, Notice } from '@/components/ui/notice';
-import { TextAreaField } from '@/components/ui/text-area-field';
-import { isApiError } from '@/lib/api-client';
+import type { FieldErrors } from '@/lib/forms/field-errors';
+import { changesOnly, fieldList } from '@/lib/forms/stale-edit';
+import { useRecordEdit } from '@/lib/forms/use-record-edit';
+import { NOTHING_TO_SAVE, useSchemaForm, type SchemaFormApi } from '@/lib/forms/use-schema-form';
 import { useCreateSpot, useUpdateSpot } from '@/features/measurements/api/save-spot';
 import { SpotMap } from '@/features/measurements/components/spot-map';
 
-interface Values {
+interface SpotValues {
   name: string;
   purpose: string;
-  notes: string;
   imageId: string;
   /** Percent across and down the image, as typed. */
   x: string;
   y: string;
+  notes: string;
 }
 
-type Errors = Partial<Record<keyof Values | 'point' | 'form', string>>;
+const LABELS: Record<keyof SpotValues, string> = { name: 'Spot name', purpose: 'Purpose', imageId: 'Image', x: 'Across (%)', y: 'Down (%)', notes: 'Notes' };
+const PLACE = ['imageId', 'x', 'y'];
 
 const pct = (v: number) => String(Math.round(v * 1000) / 10);
+const placed = (values: SpotValues) => values.x.trim() !== '' || values.y.trim() !== '';
 
-function toValues(spot: Spot | null, defaultImageId: string): Values {
+function toValues(spot: Spot | null, defaultImageId: string): SpotValues {
   return {
     name: spot?.name ?? '',
     purpose: spot?.purpose ?? '',
-    notes: spot?.notes ?? '',
     imageId: spot?.point?.imageId ?? defaultImageId,
     x: spot?.point ? pct(spot.point.x) : '',
     y: spot?.point ? pct(spot.point.y) : '',
+    notes: spot?.notes ?? '',
   };
 }
 
-function toInput(values: Values) {
-  const placed = values.x.trim() !== '' || values.y.trim() !== '';
-  const x = Number(values.x) / 100;
-  const y = Number(values.y) / 100;
+/** The body: the position as a fraction of the image (the form shows percent), none when no position is typed. */
+function toBody(values: SpotValues) {
   return {
     name: values.name,
     purpose: values.purpose === '' ? undefined : values.purpose,
     notes: values.notes,
-    point: placed && values.imageId ? { imageId: values.imageId, x: Number.isFinite(x) ? x : NaN, y: Number.isFinite(y) ? y : NaN } : null,
+    point: placed(values) && values.imageId ? { imageId: values.imageId, x: Number(values.x) / 100, y: Number(values.y) / 100 } : null,
   };
 }
 
-function issuesToErrors(issues: { path: string; message: string }[]): Errors {
-  const errors: Errors = {};
-  for (const issue of issues) {
-    const head = issue.path.split('.')[0] || 'form';
-    const key = (head === 'point' ? (issue.path.endsWith('.x') ? 'x' : issue.path.endsWith('.y') ? 'y' : 'point') : head) as keyof Errors;
-    errors[key] ??= head === 'point' && key !== 'point' ? 'A position from 0 to 100 %' : issue.message;
+/** A position is typed in percent, so it is checked in percent. */
+function check(values: SpotValues): FieldErrors {
+  if (!placed(values)) return {};
+  const errors: FieldErrors = {};
+  for (const axis of ['x', 'y'] as const) {
+    const n = Number(values[axis].trim());
+    if (values[axis].trim() === '' || !Number.isFinite(n) || n < 0 || n > 100) errors[axis] = 'A position from 0 to 100 %';
   }
   return errors;
+}
+
+/** `point.x` is shown at Across, `point.y` at Down, the point as a whole at Across. */
+const fieldFor = (path: string) => (path === 'point.y' ? 'y' : path.startsWith('point') ? 'x' : path);
+
+function Placement({ form, usable, others, spot }: { form: SchemaFormApi<typeof spotInputSchema, SpotValues>; usable: PrintImage[]; others: Spot[]; spot: Spot | null }) {
+  const [imageId, x, y, name] = useWatch({ control: form.control, name: ['imageId', 'x', 'y', 'name'] });
+  const image = usable.find((i) => i.id === imageId) ?? null;
+  const marks = [
+    ...others.filter((o) => o.id !== spot?.id && o.point && o.point.imageId === imageId).map((o) => ({ id: o.id, name: o.name, x: o.point!.x, y: o.point!.y })),
+    ...(x.trim() !== '' && y.trim() !== '' && Number.isFinite(Number(x)) && Number.isFinite(Number(y))
+      ? [{ id: 'this', name: name.trim() || 'New spot', x: Number(x) / 100, y: Number(y) / 100, active: true }]
+      : []),
+  ];
+  if (usable.length === 0) return <p className="text-sm text-ink-700">The print has no images with a display copy yet, so the spot cannot be placed. It can be placed later.</p>;
+  return (
+    <>
+      {usable.length > 1 ? (
+        <SelectInput
+          name="imageId"
+          label={LABELS.imageId}
+          options={usable.map((i) => ({ value: i.id, label: `${VIEW_TYPE_LABELS[i.viewType]}${i.capturedOn ? `, ${i.capturedOn}` : ''}` }))}
+        />
+      ) : null}
+      {image ? (
+        <SpotMap
+          image={image}
+          marks={marks}
+          onPlace={(p) => {
+            form.setValue('x', pct(p.x), { shouldValidate: form.formState.isSubmitted });
+            form.setValue('y', pct(p.y), { shouldValidate: form.formState.isSubmitted });
+          }}
+        />
+      ) : null}
+      <div className="flex flex-wrap items-end gap-3">
+        <NumberInput name="x" label={LABELS.x} fieldClassName="w-28" />
+        <NumberInput name="y" label={LABELS.y} fieldClassName="w-28" />
+        {x !== '' || y !== '' ? (
+          <Button
+            size="sm"
+            variant="quiet"
+            onClick={() => {
+              form.setValue('x', '');
+              form.setValue('y', '');
+            }}
+          >
+            Clear position
+          </Button>
+        ) : null}
+      </div>
+    </>
+  );
 }
 
 export interface SpotFormProps {
@@ -73,121 +128,53 @@ export interface SpotFormProps {
  * was typed stays in the form whatever the server answers.
  */
 export function SpotForm({ printId, spot, images, others, onDone }: SpotFormProps) {
-  const prefix = `spot${useId().replace(/[^a-zA-Z0-9_-]/g, '')}`;
   const usable = images.filter((i) => !i.withdrawn && i.urls.screen);
-  const [values, setValues] = useState<Values>(() => toValues(spot, usable[0]?.id ?? ''));
-  const [errors, setErrors] = useState<Errors>({});
-  const [notice, setNotice] = useState<string | null>(null);
+  const defaultImageId = usable[0]?.id ?? '';
   const create = useCreateSpot();
   const update = useUpdateSpot();
   const mutation = spot ? update : create;
-  const image = usable.find((i) => i.id === values.imageId) ?? null;
+  const form = useSchemaForm({ schema: spotInputSchema, defaultValues: toValues(spot, defaultImageId), toBody, check, fieldFor });
+  const edit = useRecordEdit(form, {
+    record: spot,
+    recordSchema: spotSchema,
+    toValues: (record: Spot) => toValues(record, defaultImageId),
+    fields: fieldList(LABELS),
+    describe: (key, values) => (key === 'purpose' ? (SPOT_PURPOSE_LABELS[values.purpose as keyof typeof SPOT_PURPOSE_LABELS] ?? values.purpose) : values[key as keyof SpotValues]),
+  });
 
-  const set = (field: keyof Values) => (event: { target: { value: string } }) => setValues((v) => ({ ...v, [field]: event.target.value }));
-
-  function onServerError(error: unknown) {
-    if (!isApiError(error)) return;
-    const found = issuesToErrors(error.fieldIssues);
-    if (Object.keys(found).length > 0) setErrors(found);
-  }
-
-  function submit(event: FormEvent) {
-    event.preventDefault();
-    setNotice(null);
+  function onValid(body: ReturnType<typeof spotInputSchema.parse>, values: SpotValues) {
     mutation.reset();
-    const input = toInput(values);
-    if (!spot) {
-      const checked = spotInputSchema.safeParse(input);
-      if (!checked.success) return setErrors(issuesToErrors(checked.error.issues.map((i) => ({ path: i.path.join('.'), message: i.message }))));
-      setErrors({});
-      create.mutate({ printId, input: checked.data }, { onSuccess: onDone, onError: onServerError });
-      return;
-    }
-    const before = toInput(toValues(spot, values.imageId));
-    const changed = Object.fromEntries(
-      (['name', 'purpose', 'notes', 'point'] as const)
-        .filter((k) => JSON.stringify(input[k] ?? null) !== JSON.stringify(before[k] ?? null))
-        .map((k) => [k, input[k]]),
+    if (!edit.base) return create.mutate({ printId, input: body }, { onSuccess: onDone, onError: form.serverError });
+    const changed = [...new Set(edit.changed(values).map((key) => (PLACE.includes(key) ? 'point' : key)))];
+    if (changed.length === 0) return form.setNotice(NOTHING_TO_SAVE);
+    update.mutate(
+      { id: edit.base.id, update: changesOnly(body, changed, edit.base.version) as never },
+      {
+        onSuccess: onDone,
+        onError: (error) => {
+          if (!edit.catchConflict(error)) form.serverError(error);
+        },
+      },
     );
-    const checked = spotUpdateSchema.safeParse({ ...changed, version: spot.version });
-    if (!checked.success) return setErrors(issuesToErrors(checked.error.issues.map((i) => ({ path: i.path.join('.'), message: i.message }))));
-    setErrors({});
-    if (Object.keys(changed).length === 0) return setNotice('Nothing has changed, so there is nothing to save.');
-    update.mutate({ id: spot.id, update: checked.data }, { onSuccess: onDone, onError: onServerError });
   }
-
-  const fieldErrors = Object.keys(errors).length > 0;
-  const otherError = mutation.isError && !(isApiError(mutation.error) && mutation.error.fieldIssues.length > 0);
-  const marks = [
-    ...others.filter((o) => o.id !== spot?.id && o.point && o.point.imageId === values.imageId).map((o) => ({ id: o.id, name: o.name, x: o.point!.x, y: o.point!.y })),
-    ...(values.x.trim() !== '' && values.y.trim() !== '' && Number.isFinite(Number(values.x)) && Number.isFinite(Number(values.y))
-      ? [{ id: 'this', name: values.name.trim() || 'New spot', x: Number(values.x) / 100, y: Number(values.y) / 100, active: true }]
-      : []),
-  ];
 
   return (
-    <form onSubmit={submit} noValidate aria-label={spot ? `Edit spot ${spot.name}` : 'New spot'} className="flex flex-col gap-4">
-      {notice ? (
-        <Notice role="status">
-          <p>{notice}</p>
-        </Notice>
-      ) : null}
-      {fieldErrors ? <Notice tone="error" role="alert" title="Not saved: check the fields marked below." /> : null}
-      {errors.form ? <p className="text-sm text-danger-700">{errors.form}</p> : null}
-      {otherError ? <ErrorNotice error={mutation.error} title="Not saved." /> : null}
+    <SchemaForm form={form} edit={edit} subject="this spot" onValid={onValid} aria-label={spot ? `Edit spot ${spot.name}` : 'New spot'} className="gap-4">
       <div className="grid gap-3 sm:grid-cols-2">
-        <TextField id={`${prefix}-name`} label="Spot name" value={values.name} onChange={set('name')} error={errors.name} maxLength={100} required />
-        <SelectField id={`${prefix}-purpose`} label="Purpose" value={values.purpose} onChange={set('purpose')} error={errors.purpose} required>
-          <option value="">Choose…</option>
-          {SPOT_PURPOSES.map((p) => (
-            <option key={p} value={p}>
-              {SPOT_PURPOSE_LABELS[p]}
-            </option>
-          ))}
-        </SelectField>
+        <TextInput name="name" label={LABELS.name} required />
+        <SelectInput name="purpose" label={LABELS.purpose} empty="Choose…" options={SPOT_PURPOSES.map((p) => ({ value: p, label: SPOT_PURPOSE_LABELS[p] }))} required />
       </div>
       <fieldset className="flex flex-col gap-3 rounded border border-paper-300 p-3">
         <legend className="px-1 text-xs font-semibold tracking-wide text-ink-700 uppercase">Place on the print</legend>
-        {usable.length === 0 ? (
-          <p className="text-sm text-ink-700">The print has no images with a display copy yet, so the spot cannot be placed. It can be placed later.</p>
-        ) : (
-          <>
-            {usable.length > 1 ? (
-              <SelectField label="Image" value={values.imageId} onChange={set('imageId')}>
-                {usable.map((i) => (
-                  <option key={i.id} value={i.id}>
-                    {VIEW_TYPE_LABELS[i.viewType]}
-                    {i.capturedOn ? `, ${i.capturedOn}` : ''}
-                  </option>
-                ))}
-              </SelectField>
-            ) : null}
-            {image ? (
-              <SpotMap
-                image={image}
-                marks={marks}
-                onPlace={({ x, y }) => setValues((v) => ({ ...v, x: pct(x), y: pct(y) }))}
-              />
-            ) : null}
-            <div className="flex flex-wrap items-end gap-3">
-              <TextField label="Across (%)" inputMode="decimal" value={values.x} onChange={set('x')} error={errors.x ?? errors.point} fieldClassName="w-28" />
-              <TextField label="Down (%)" inputMode="decimal" value={values.y} onChange={set('y')} error={errors.y} fieldClassName="w-28" />
-              {values.x !== '' || values.y !== '' ? (
-                <Button size="sm" variant="quiet" onClick={() => setValues((v) => ({ ...v, x: '', y: '' }))}>
-                  Clear position
-                </Button>
-              ) : null}
-            </div>
-          </>
-        )}
+        <Placement form={form} usable={usable} others={others} spot={spot} />
       </fieldset>
-      <TextAreaField label="Notes" value={values.notes} onChange={set('notes')} error={errors.notes} maxLength={2000} />
+      <TextAreaInput name="notes" label={LABELS.notes} />
       <div className="flex gap-2">
-        <Button type="submit" variant="primary" disabled={mutation.isPending}>
+        <Button type="submit" variant="primary" disabled={mutation.isPending || edit.conflict !== null}>
           {mutation.isPending ? 'Saving…' : 'Save spot'}
         </Button>
         <Button onClick={() => onDone(null)}>Cancel</Button>
       </div>
-    </form>
+    </SchemaForm>
   );
 }

@@ -1,28 +1,23 @@
+import { useFieldArray, useFormContext, useWatch } from 'react-hook-form';
 import { DENSITY_TYPES, SPOT_PURPOSE_LABELS, type MeasurementSession, type SpotAnalysis } from '@toneledger/common/schemas/measurements';
 import type { MeasurementConditions } from '@toneledger/common/domain/colour';
+import { NumberInput, SelectInput, useFieldError } from '@/components/form/fields';
 import { Button } from '@/components/ui/button';
-import { SelectField, TextField } from '@/components/ui/field';
 import { formatDay, formatNumber, formatSigned, formatThreshold } from '@/features/measurements/utils/format';
-import { previewSpot, type FieldErrors, type SpotEntry } from '@/features/measurements/utils/session-form';
+import { emptySpotEntry, newRow, previewSpot, type SessionFormValues } from '@/features/measurements/utils/session-form';
 
-const DENSITY_TYPE_LABELS: Record<(typeof DENSITY_TYPES)[number], string> = { visual: 'Visual', status_a: 'Status A' };
+const DENSITY_TYPES_LIST = DENSITY_TYPES.map((t) => ({ value: t, label: t === 'visual' ? 'Visual' : 'Status A' }));
 
 export interface SpotReadingsProps {
-  idPrefix: string;
   analysis: SpotAnalysis;
   baselineSession: MeasurementSession | null;
-  entry: SpotEntry;
   conditions: MeasurementConditions;
   threshold: number;
-  errors: FieldErrors;
-  onRowChange: (rowKey: string, channel: 'L' | 'a' | 'b', value: string) => void;
-  onAddRow: () => void;
-  onRemoveRow: (rowKey: string) => void;
-  onFieldChange: (field: 'density' | 'densityType' | 'reflectance', value: string) => void;
 }
 
 /** What the readings typed so far would show: mean and spread, and the change against the baseline. */
-function Preview({ analysis, baselineSession, entry, conditions, threshold }: Pick<SpotReadingsProps, 'analysis' | 'baselineSession' | 'entry' | 'conditions' | 'threshold'>) {
+function Preview({ analysis, baselineSession, conditions, threshold }: Omit<SpotReadingsProps, 'idPrefix'>) {
+  const entry = useWatch<SessionFormValues, `spots.${string}`>({ name: `spots.${analysis.spot.id}` }) ?? emptySpotEntry();
   const preview = previewSpot(entry, analysis.baseline, baselineSession, conditions, threshold);
   if (preview.kind === 'empty') return <p className="text-sm text-ink-700">Type a reading to see its change against the baseline.</p>;
   const { summary, density, against } = preview;
@@ -59,38 +54,33 @@ function Preview({ analysis, baselineSession, entry, conditions, threshold }: Pi
 
 /** One spot's readings in the session: rows of L*, a*, b*, optional density or reflectance, and the live preview. */
 export function SpotReadings(props: SpotReadingsProps) {
-  const { idPrefix, analysis, entry, errors, onRowChange, onAddRow, onRemoveRow, onFieldChange } = props;
-  const { spot } = analysis;
-  const groupError = errors[`spot:${spot.id}:readings`] ?? errors[`spot:${spot.id}`];
+  const { spot } = props.analysis;
+  const base = `spots.${spot.id}`;
+  const { control } = useFormContext<SessionFormValues>();
+  const { fields, append, remove } = useFieldArray({ control, name: `spots.${spot.id}.readings` });
+  const density = useWatch({ control, name: `spots.${spot.id}.density` }) ?? '';
+  const listError = useFieldError(`${base}.readings`);
+  const spotError = useFieldError(base);
+  const groupError = listError ?? spotError;
   return (
-    <fieldset id={`${idPrefix}-${spot.id}-group`} tabIndex={-1} className="rounded border border-paper-300 bg-white p-3">
+    <fieldset data-field={base} tabIndex={-1} className="rounded border border-paper-300 bg-white p-3">
       <legend className="px-1 font-serif text-base font-semibold">{spot.name}</legend>
       <p className="mb-2 text-xs text-ink-700">{SPOT_PURPOSE_LABELS[spot.purpose]}</p>
       {groupError ? <p className="mb-2 text-xs font-medium text-danger-700">{groupError}</p> : null}
       <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
         <div className="flex flex-col gap-2">
           <ol className="flex flex-col gap-2">
-            {entry.readings.map((row, index) => (
+            {fields.map((row, index) => (
               // a* and b* are lower case in CIELAB: the usual upper-case field labels would misname them.
-              <li key={row.key} className="flex flex-wrap items-end gap-2 [&_label]:normal-case">
+              <li key={row.id} className="flex flex-wrap items-end gap-2 [&_label]:normal-case">
                 <span className="w-6 pb-2 text-xs text-ink-700" aria-hidden="true">
                   {index + 1}.
                 </span>
                 {(['L', 'a', 'b'] as const).map((channel) => (
-                  <TextField
-                    key={channel}
-                    id={`${idPrefix}-${row.key}-${channel}`}
-                    label={`${channel}*`}
-                    inputMode="decimal"
-                    value={row[channel]}
-                    onChange={(e) => onRowChange(row.key, channel, e.target.value)}
-                    error={errors[`reading:${row.key}:${channel}`]}
-                    fieldClassName="w-24"
-                    autoComplete="off"
-                  />
+                  <NumberInput key={channel} name={`${base}.readings.${index}.${channel}`} label={`${channel}*`} fieldClassName="w-24" />
                 ))}
-                {entry.readings.length > 1 ? (
-                  <Button size="sm" variant="quiet" onClick={() => onRemoveRow(row.key)} aria-label={`Remove reading ${index + 1} at ${spot.name}`}>
+                {fields.length > 1 ? (
+                  <Button size="sm" variant="quiet" onClick={() => remove(index)} aria-label={`Remove reading ${index + 1} at ${spot.name}`}>
                     Remove
                   </Button>
                 ) : null}
@@ -98,42 +88,17 @@ export function SpotReadings(props: SpotReadingsProps) {
             ))}
           </ol>
           <div>
-            <Button size="sm" onClick={onAddRow}>
+            <Button size="sm" onClick={() => append(newRow(), { shouldFocus: false })}>
               Add reading
             </Button>
           </div>
           <div className="mt-1 flex flex-wrap items-end gap-2">
-            <TextField
-              id={`${idPrefix}-${spot.id}-density`}
-              label="Density"
-              inputMode="decimal"
-              value={entry.density}
-              onChange={(e) => onFieldChange('density', e.target.value)}
-              error={errors[`spot:${spot.id}:density`]}
-              fieldClassName="w-24"
-            />
-            <SelectField
-              label="Density type"
-              value={entry.densityType}
-              onChange={(e) => onFieldChange('densityType', e.target.value)}
-              error={errors[`spot:${spot.id}:densityType`]}
-              fieldClassName="w-36"
-            >
-              <option value="">Not stated</option>
-              {DENSITY_TYPES.map((t) => (
-                <option key={t} value={t}>
-                  {DENSITY_TYPE_LABELS[t]}
-                </option>
-              ))}
-            </SelectField>
-            <TextField
-              id={`${idPrefix}-${spot.id}-reflectance`}
+            <NumberInput name={`${base}.density`} label="Density" fieldClassName="w-24" />
+            <SelectInput name={`${base}.densityType`} label="Density type" empty="Not stated" options={DENSITY_TYPES_LIST} fieldClassName="w-36" />
+            <NumberInput
+              name={`${base}.reflectance`}
               label="Reflectance (0–1)"
-              hint={entry.density.trim() === '' ? 'Density is worked out from it' : undefined}
-              inputMode="decimal"
-              value={entry.reflectance}
-              onChange={(e) => onFieldChange('reflectance', e.target.value)}
-              error={errors[`spot:${spot.id}:reflectance`]}
+              hint={density.trim() === '' ? 'Density is worked out from it' : undefined}
               fieldClassName="w-36"
             />
           </div>

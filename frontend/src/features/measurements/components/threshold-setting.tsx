@@ -1,40 +1,44 @@
-import { useEffect, useState, type FormEvent } from 'react';
+import { useState } from 'react';
 import { measurementSettingsSchema } from '@toneledger/common/schemas/measurements';
+import { NumberInput } from '@/components/form/fields';
+import { SchemaForm } from '@/components/form/schema-form';
 import { Button } from '@/components/ui/button';
-import { TextField } from '@/components/ui/field';
-import { ErrorNotice } from '@/components/ui/notice';
-import { isApiError } from '@/lib/api-client';
+import { useSchemaForm } from '@/lib/forms/use-schema-form';
 import { useMeasurementSettings, useUpdateMeasurementSettings } from '@/features/measurements/api/measurement-settings';
 import { formatThreshold } from '@/features/measurements/utils/format';
+
+function ThresholdForm({ current, onDone }: { current: number; onDone: () => void }) {
+  const save = useUpdateMeasurementSettings();
+  const form = useSchemaForm({
+    schema: measurementSettingsSchema,
+    defaultValues: { noticeableDeltaE: String(current) },
+    // The body: the figure as typed, read as a number (an empty box is no figure).
+    toBody: (values: { noticeableDeltaE: string }) => ({ noticeableDeltaE: values.noticeableDeltaE.trim() === '' ? undefined : Number(values.noticeableDeltaE.trim()) }),
+  });
+  return (
+    <SchemaForm
+      form={form}
+      onValid={(body) => save.mutate(body, { onSuccess: onDone, onError: form.serverError })}
+      failureTitle="The threshold was not changed."
+      className="gap-2"
+    >
+      <div className="flex flex-wrap items-end gap-2">
+        <NumberInput name="noticeableDeltaE" label="Noticeable change (ΔE00)" fieldClassName="w-48" />
+        <Button type="submit" variant="primary" disabled={save.isPending}>
+          Save threshold
+        </Button>
+        <Button onClick={onDone}>Cancel</Button>
+      </div>
+    </SchemaForm>
+  );
+}
 
 /** The noticeable-change threshold; administrators may change it for the collection. */
 export function ThresholdSetting({ mayChange }: { mayChange: boolean }) {
   const settings = useMeasurementSettings();
-  const save = useUpdateMeasurementSettings();
-  const [text, setText] = useState('');
-  const [error, setError] = useState<string | undefined>();
   const [editing, setEditing] = useState(false);
   const current = settings.data?.noticeableDeltaE;
-  useEffect(() => {
-    if (current !== undefined && !editing) setText(String(current));
-  }, [current, editing]);
-
   if (current === undefined) return null;
-
-  function submit(event: FormEvent) {
-    event.preventDefault();
-    save.reset();
-    const checked = measurementSettingsSchema.safeParse({ noticeableDeltaE: text.trim() === '' ? NaN : Number(text) });
-    if (!checked.success) return setError('A ΔE00 from 0.1 to 20');
-    setError(undefined);
-    save.mutate(checked.data, {
-      onSuccess: () => setEditing(false),
-      onError: (e) => {
-        if (isApiError(e)) setError(e.fieldIssues[0]?.message);
-      },
-    });
-  }
-
   return (
     <div className="mb-4 text-sm text-ink-800">
       {!editing ? (
@@ -47,15 +51,8 @@ export function ThresholdSetting({ mayChange }: { mayChange: boolean }) {
           ) : null}
         </p>
       ) : (
-        <form onSubmit={submit} noValidate className="flex flex-wrap items-end gap-2">
-          <TextField label="Noticeable change (ΔE00)" inputMode="decimal" value={text} onChange={(e) => setText(e.target.value)} error={error} fieldClassName="w-48" />
-          <Button type="submit" variant="primary" disabled={save.isPending}>
-            Save threshold
-          </Button>
-          <Button onClick={() => setEditing(false)}>Cancel</Button>
-        </form>
+        <ThresholdForm current={current} onDone={() => setEditing(false)} />
       )}
-      {save.isError && !error ? <ErrorNotice error={save.error} title="The threshold was not changed." /> : null}
     </div>
   );
 }

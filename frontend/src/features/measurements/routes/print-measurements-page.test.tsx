@@ -99,7 +99,7 @@ describe('choosing a baseline', () => {
     fireEvent.click(within(card).getByRole('button', { name: 'Save baseline' }));
 
     const reason = within(card).getByLabelText('Reason');
-    expect(document.getElementById(reason.getAttribute('aria-describedby')!)?.textContent).toBe('Say why this session is the baseline');
+    await waitFor(() => expect(document.getElementById(reason.getAttribute('aria-describedby')!)?.textContent).toBe('Say why this session is the baseline'));
     expect(requests.some((r) => r.method === 'PUT')).toBe(false);
 
     fireEvent.change(reason, { target: { value: 'First reading after rehousing' } });

@@ -135,7 +135,7 @@ describe('recording a session: saving', () => {
     type(group, 'a*', '0');
     type(group, 'b*', '0');
     fireEvent.click(screen.getByRole('button', { name: 'Save session' }));
-    expect(errorOf(within(group).getByLabelText('L*'))).toBe('L* is between 0 and 100');
+    await waitFor(() => expect(errorOf(within(group).getByLabelText('L*'))).toBe('L* is between 0 and 100'));
     expect(requests.some((r) => r.method === 'POST')).toBe(false);
   });
 });

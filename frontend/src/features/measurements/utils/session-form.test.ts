@@ -13,7 +13,7 @@ function values(): SessionFormValues {
 describe('live preview of a spot', () => {
   it('gives CIEDE2000 against the baseline (Sharma, Wu & Dalal 2005, Table 1, pair 1: 2.0425)', () => {
     const entry = { ...values().spots[SPOT_ID]! };
-    entry.readings = [{ key: 'r1', L: '50', a: '2.6772', b: '-79.7751' }];
+    entry.readings = [{ L: '50', a: '2.6772', b: '-79.7751' }];
     const preview = previewSpot(entry, baseline, makeSession(), d50, 2);
     if (preview.kind !== 'readings' || preview.against.kind !== 'compared') throw new Error('expected a comparison');
     expect(preview.against.dE00).toBeCloseTo(2.0425, 4);
@@ -21,7 +21,7 @@ describe('live preview of a spot', () => {
   });
 
   it('refuses to compare readings taken under other conditions, with the reason', () => {
-    const entry = { ...values().spots[SPOT_ID]!, readings: [{ key: 'r1', L: '50', a: '2.6772', b: '-79.7751' }] };
+    const entry = { ...values().spots[SPOT_ID]!, readings: [{ L: '50', a: '2.6772', b: '-79.7751' }] };
     const preview = previewSpot(entry, baseline, makeSession(), { ...d50, illuminant: 'D65' }, 2);
     expect(preview.kind === 'readings' && preview.against).toEqual({
       kind: 'not_comparable',
@@ -33,9 +33,9 @@ describe('live preview of a spot', () => {
     const entry = {
       ...values().spots[SPOT_ID]!,
       readings: [
-        { key: 'r1', L: '50', a: '1', b: '-80' },
-        { key: 'r2', L: '52', a: '3', b: '-82' },
-        { key: 'r3', L: '51', a: '', b: '' },
+        { L: '50', a: '1', b: '-80' },
+        { L: '52', a: '3', b: '-82' },
+        { L: '51', a: '', b: '' },
       ],
     };
     const preview = previewSpot(entry, null, null, d50, 2);
@@ -50,27 +50,28 @@ describe('live preview of a spot', () => {
 describe('checking a session', () => {
   it('sends only spots with readings, with blank rows left out, and says which rows were sent', () => {
     const v = values();
-    v.spots[SPOT2_ID] = { ...v.spots[SPOT2_ID]!, readings: [{ key: 'x1', L: '', a: '', b: '' }, { key: 'x2', L: '40', a: '1', b: '2' }] };
+    v.spots[SPOT2_ID] = { ...v.spots[SPOT2_ID]!, readings: [{ L: '', a: '', b: '' }, { L: '40', a: '1', b: '2' }] };
     const checked = checkSession(v, [SPOT_ID, SPOT2_ID]);
     if (!checked.ok) throw new Error(JSON.stringify(checked.errors));
     expect(checked.data.readings).toEqual([{ spotId: SPOT2_ID, readings: [{ L: 40, a: 1, b: 2 }], density: null, densityType: null, reflectance: null }]);
-    expect(checked.order).toEqual([{ spotId: SPOT2_ID, rowKeys: ['x2'] }]);
+    expect(checked.order).toEqual([{ spotId: SPOT2_ID, rows: [1] }]);
   });
 
   it('never turns an empty box into zero', () => {
     const v = values();
-    v.spots[SPOT_ID] = { ...v.spots[SPOT_ID]!, readings: [{ key: 'k1', L: '50', a: '', b: '-3' }] };
+    v.spots[SPOT_ID] = { ...v.spots[SPOT_ID]!, readings: [{ L: '50', a: '', b: '-3' }] };
     const checked = checkSession(v, [SPOT_ID, SPOT2_ID]);
     expect(checked.ok).toBe(false);
-    if (!checked.ok) expect(checked.errors['reading:k1:a']).toBe('a* must be a number');
+    if (!checked.ok) expect(checked.errors[`spots.${SPOT_ID}.readings.0.a`]).toBe('a* must be a number');
   });
 
   it('maps the server’s paths to the row and spot they came from', () => {
-    const order = [{ spotId: SPOT_ID, rowKeys: ['k1', 'k2'] }, { spotId: SPOT2_ID, rowKeys: ['k7'] }];
+    // Spot 1 sent its form rows 0 and 2 (row 1 was left empty); spot 2 sent its row 4.
+    const order = [{ spotId: SPOT_ID, rows: [0, 2] }, { spotId: SPOT2_ID, rows: [4] }];
     expect(errorKey('measuredOn', order)).toBe('measuredOn');
-    expect(errorKey('readings.0.readings.1.L', order)).toBe('reading:k2:L');
-    expect(errorKey('readings.1.density', order)).toBe(`spot:${SPOT2_ID}:density`);
-    expect(errorKey('readings.1.spotId', order)).toBe(`spot:${SPOT2_ID}`);
-    expect(errorKey('readings', order)).toBe('readings');
+    expect(errorKey('readings.0.readings.1.L', order)).toBe(`spots.${SPOT_ID}.readings.2.L`);
+    expect(errorKey('readings.1.density', order)).toBe(`spots.${SPOT2_ID}.density`);
+    expect(errorKey('readings.1.spotId', order)).toBe(`spots.${SPOT2_ID}`);
+    expect(errorKey('readings', order)).toBe('spots');
   });
 });

@@ -6,10 +6,10 @@ import {
   type SessionInput,
   type SpotAnalysis,
 } from '@toneledger/common/schemas/measurements';
+import { issuesToFieldErrors, type FieldErrors } from '@/lib/forms/field-errors';
 
+/** One reading as typed: L*, a*, b*. */
 export interface ReadingRow {
-  /** Stable key of the row on screen (not sent). */
-  key: string;
   L: string;
   a: string;
   b: string;
@@ -34,37 +34,15 @@ export interface SessionFormValues {
   aperture: string;
   backing: string;
   notes: string;
-  /** One entry per spot of the print, by spot id. */
+  /** One entry per spot of the print, by spot id (form fields `spots.<spot id>.readings.<row>.L`). */
   spots: Record<string, SpotEntry>;
 }
 
 export const SESSION_FIELDS = ['measuredOn', 'instrument', 'serial', 'illuminant', 'observer', 'geometry', 'condition', 'aperture', 'backing', 'notes'] as const;
 export type SessionField = (typeof SESSION_FIELDS)[number];
 
-export const SESSION_FIELD_LABELS: Record<SessionField, string> = {
-  measuredOn: 'Measured on',
-  instrument: 'Instrument',
-  serial: 'Serial number',
-  illuminant: 'Illuminant',
-  observer: 'Observer',
-  geometry: 'Geometry',
-  condition: 'Measurement condition',
-  aperture: 'Aperture',
-  backing: 'Backing',
-  notes: 'Notes',
-};
-
-/**
- * Errors are kept by where they show: a session field by its name, a reading cell as
- * `reading:<row key>:<L|a|b>`, a spot's own fields as `spot:<spot id>:<field>` (`spot:<id>` for
- * the spot as a whole), and `readings` for the session's list of spots.
- */
-export type FieldErrors = Partial<Record<string, string>>;
-
-let rowCounter = 0;
-export function newRow(values: Partial<Omit<ReadingRow, 'key'>> = {}): ReadingRow {
-  rowCounter += 1;
-  return { key: `row${rowCounter}`, L: '', a: '', b: '', ...values };
+export function newRow(values: Partial<ReadingRow> = {}): ReadingRow {
+  return { L: '', a: '', b: '', ...values };
 }
 
 export function emptySpotEntry(): SpotEntry {
@@ -107,76 +85,68 @@ function figure(text: string): string | undefined {
   return blank(text) ? undefined : text.trim();
 }
 
-/** Which spot and which rows each entry of the sent `readings` array came from. */
-export type SentOrder = { spotId: string; rowKeys: string[] }[];
+/** Which spot, and which of its rows (by their place in the form), each entry of the sent `readings` came from. */
+export type SentOrder = { spotId: string; rows: number[] }[];
 
-/** The request body as typed (before the schema), and the order its readings were taken from the form. */
+/**
+ * The request body as typed (before the schema): only spots with something typed, and of those
+ * only the rows with something typed; an empty box is left out, never read as zero. With it, the
+ * order its readings were taken from the form, to put the schema's and the server's problems back.
+ */
 export function rawSessionBody(values: SessionFormValues, spotOrder: string[]): { body: Record<string, unknown>; order: SentOrder } {
   const order: SentOrder = [];
   const readings: Record<string, unknown>[] = [];
   for (const spotId of spotOrder) {
     const entry = values.spots[spotId];
     if (!entry || isBlankEntry(entry)) continue;
-    const rows = entry.readings.filter((row) => !isBlankRow(row));
-    order.push({ spotId, rowKeys: rows.map((row) => row.key) });
+    const rows = entry.readings.flatMap((row, index) => (isBlankRow(row) ? [] : [index]));
+    order.push({ spotId, rows });
     readings.push({
       spotId,
-      readings: rows.map((row) => ({ L: figure(row.L), a: figure(row.a), b: figure(row.b) })),
+      readings: rows.map((index) => {
+        const row = entry.readings[index]!;
+        return { L: figure(row.L), a: figure(row.a), b: figure(row.b) };
+      }),
       density: figure(entry.density) ?? null,
       densityType: entry.densityType === '' ? null : entry.densityType,
       reflectance: figure(entry.reflectance) ?? null,
     });
   }
-  const text = (field: SessionField) => values[field];
+  const { spots: _spots, ...session } = values;
   return {
-    body: {
-      measuredOn: text('measuredOn'),
-      instrument: text('instrument'),
-      serial: text('serial'),
-      illuminant: text('illuminant'),
-      observer: text('observer'),
-      geometry: text('geometry') === '' ? undefined : text('geometry'),
-      condition: text('condition') === '' ? null : text('condition'),
-      aperture: text('aperture'),
-      backing: text('backing'),
-      notes: text('notes'),
-      readings,
-    },
+    body: { ...session, geometry: values.geometry === '' ? undefined : values.geometry, condition: values.condition === '' ? null : values.condition, readings },
     order,
   };
 }
 
-/** Where an issue at a path of the request body shows on the form. */
+/**
+ * The form field that shows a problem at a path of the request body: a session field by its name,
+ * a reading at its row (`spots.<id>.readings.<row>.L`), a spot's own fields at the spot, and the
+ * list of spots as a whole at `spots`.
+ */
 export function errorKey(path: string, order: SentOrder): string {
   const parts = path.split('.');
-  if (parts[0] !== 'readings' || parts.length === 1) return path || 'form';
-  const sent = order[Number(parts[1])];
-  if (!sent) return 'readings';
+  if (parts[0] !== 'readings') return path;
+  const sent = parts.length > 1 ? order[Number(parts[1])] : undefined;
+  if (!sent) return 'spots';
+  const spot = `spots.${sent.spotId}`;
   if (parts[2] === 'readings' && parts.length >= 5) {
-    const rowKey = sent.rowKeys[Number(parts[3])];
-    if (rowKey) return `reading:${rowKey}:${parts[4]}`;
+    const row = sent.rows[Number(parts[3])];
+    if (row !== undefined) return `${spot}.readings.${row}.${parts[4]}`;
   }
-  if (parts[2] === 'readings' || parts[2] === 'density' || parts[2] === 'reflectance' || parts[2] === 'densityType') {
-    return `spot:${sent.spotId}:${parts[2]}`;
-  }
-  return `spot:${sent.spotId}`;
+  if (parts[2] === 'density' || parts[2] === 'reflectance' || parts[2] === 'densityType') return `${spot}.${parts[2]}`;
+  return spot;
 }
 
-export function issuesToErrors(issues: { path: string; message: string }[], order: SentOrder): FieldErrors {
-  const errors: FieldErrors = {};
-  for (const issue of issues) errors[errorKey(issue.path, order)] ??= issue.message;
-  return errors;
-}
-
-export type Checked = { ok: true; data: SessionInput; order: SentOrder } | { ok: false; errors: FieldErrors; order: SentOrder };
-
-/** The form checked with the schema the server uses. */
+/** The form checked with the schema the server uses, problems at the fields that show them. */
 export function checkSession(values: SessionFormValues, spotOrder: string[]): Checked {
   const { body, order } = rawSessionBody(values, spotOrder);
   const result = sessionInputSchema.safeParse(body);
   if (result.success) return { ok: true, data: result.data, order };
-  return { ok: false, errors: issuesToErrors(result.error.issues.map((i) => ({ path: i.path.map(String).join('.'), message: i.message })), order), order };
+  return { ok: false, errors: issuesToFieldErrors(result.error.issues, (path) => errorKey(path, order)), order };
 }
+
+export type Checked = { ok: true; data: SessionInput; order: SentOrder } | { ok: false; errors: FieldErrors; order: SentOrder };
 
 /** The rows of a spot that are complete, valid readings. */
 export function validReadings(entry: SpotEntry): Lab[] {
