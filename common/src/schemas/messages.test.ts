@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { catalogueSettingsSchema, makerInputSchema, printInputSchema, processStepInputSchema } from './catalogue';
+import { reportInputSchema } from './condition';
 import { productMessage } from './messages';
 
 /** The messages a schema gives for a value, by path. */
@@ -44,6 +45,10 @@ describe('zod messages in the product’s words', () => {
   it('refuses a date that does not exist with one message', () => {
     expect(messages(z.object({ on: z.iso.date() }), { on: '2024-02-31' })).toEqual({ on: ['Enter a real date, as YYYY-MM-DD'] });
     expect(messages(z.object({ on: z.iso.date() }), { on: '2024-02-29' })).toEqual({});
+    expect(messages(reportInputSchema, { examinedOn: '2024-02-31', context: 'routine', nextCheckOn: '2025-13-01' })).toEqual({
+      examinedOn: ['Enter a real date, as YYYY-MM-DD'],
+      nextCheckOn: ['Enter a real date, as YYYY-MM-DD'],
+    });
   });
 
   it('words wrong types and missing values plainly', () => {

@@ -4,15 +4,11 @@ import { z } from 'zod';
 export const id = z.string().uuid({ message: 'Not a record id' });
 /** `:id` in a path. */
 export const idParamsSchema = z.object({ id });
-function isRealDate(text: string): boolean {
-  const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(text);
-  if (!m) return false;
-  const [y, mo, d] = [Number(m[1]), Number(m[2]), Number(m[3])];
-  const date = new Date(Date.UTC(y, mo - 1, d));
-  return date.getUTCFullYear() === y && date.getUTCMonth() === mo - 1 && date.getUTCDate() === d;
-}
-/** A calendar date that exists, as YYYY-MM-DD (2024-02-31 is refused, with one message). */
-export const isoDate = z.string().refine(isRealDate, 'A date as YYYY-MM-DD');
+/**
+ * A calendar date that exists, as YYYY-MM-DD: 2024-02-31 is refused, with one message, worded by
+ * the product's error map ("Enter a real date, as YYYY-MM-DD").
+ */
+export const isoDate = z.iso.date();
 /** `?version=N` on a delete: the version the user saw. */
 export const versionQuerySchema = z.object({ version: z.coerce.number().int().min(1) });
 /** `{ version }`: the version the user saw, for an action on a record. */
