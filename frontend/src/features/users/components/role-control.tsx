@@ -1,8 +1,11 @@
-import { useEffect, useId, useState } from 'react';
+import { useEffect, useState } from 'react';
 import { ROLE_LABELS, ROLES, type Role } from '@toneledger/common/domain/roles';
-import type { User } from '@toneledger/common/schemas/users';
-import { isApiError } from '@/lib/api-client';
+import { roleChangeSchema, type User } from '@toneledger/common/schemas/users';
+import { TextInput } from '@/components/form/fields';
+import { SchemaForm } from '@/components/form/schema-form';
 import { Button } from '@/components/ui/button';
+import { fieldIssuesOf } from '@/lib/forms/field-errors';
+import { useSchemaForm } from '@/lib/forms/use-schema-form';
 import { useChangeRole } from '@/features/users/api/change-role';
 
 /**
@@ -12,9 +15,13 @@ import { useChangeRole } from '@/features/users/api/change-role';
 export function RoleControl({ user }: { user: User }) {
   const change = useChangeRole();
   const [pending, setPending] = useState<Role | null>(null);
-  const [reason, setReason] = useState('');
-  const reasonId = useId();
   const { reset } = change;
+  const form = useSchemaForm({
+    schema: roleChangeSchema,
+    defaultValues: { reason: '' },
+    // The body: the role chosen in the list above, and the reason only when one is given.
+    toBody: (values: { reason: string }) => ({ role: pending, reason: values.reason.trim() === '' ? undefined : values.reason }),
+  });
 
   // A fresh role from the server supersedes whatever this control last did.
   useEffect(() => {
@@ -23,22 +30,12 @@ export function RoleControl({ user }: { user: User }) {
 
   const saved = change.isSuccess && change.data.id === user.id ? change.data.role : user.role;
   const shown = pending ?? saved;
+  const refused = change.isError && fieldIssuesOf(change.error).length === 0;
 
-  function confirm() {
-    if (!pending) return;
-    const trimmed = reason.trim();
-    change.mutate(
-      { id: user.id, change: { role: pending, ...(trimmed ? { reason: trimmed } : {}) } },
-      { onSettled: () => { setPending(null); setReason(''); } },
-    );
-  }
-
-  function cancel() {
+  function close() {
     setPending(null);
-    setReason('');
+    form.reset({ reason: '' });
   }
-
-  const issues = isApiError(change.error) ? change.error.fieldIssues : [];
 
   return (
     <div className="flex min-w-52 flex-col gap-2">
@@ -61,48 +58,40 @@ export function RoleControl({ user }: { user: User }) {
       </select>
 
       {pending ? (
-        <div
+        <SchemaForm
+          form={form}
+          onValid={(body) =>
+            change.mutate(
+              { id: user.id, change: body },
+              {
+                onSuccess: close,
+                // A problem with the reason stays in the form to be put right; any other refusal is said below.
+                onError: (error) => (fieldIssuesOf(error).length > 0 ? form.serverError(error) : close()),
+              },
+            )
+          }
           role="group"
           aria-label={`Confirm role change for ${user.name}`}
-          className="flex flex-col gap-2 rounded border border-sepia-200 bg-sepia-50 p-2.5 text-sm"
+          className="gap-2 rounded border border-sepia-200 bg-sepia-50 p-2.5 text-sm"
         >
           <p className="text-ink-900">
             Change {user.name} from <strong>{ROLE_LABELS[saved]}</strong> to <strong>{ROLE_LABELS[pending]}</strong>?
           </p>
-          <label htmlFor={reasonId} className="text-xs font-semibold text-ink-700">
-            Reason (optional, kept in the audit trail)
-          </label>
-          <input
-            id={reasonId}
-            value={reason}
-            maxLength={500}
-            onChange={(event) => setReason(event.target.value)}
-            className="h-8 rounded border border-paper-400 bg-white px-2 text-sm"
-          />
+          <TextInput name="reason" label="Reason (optional, kept in the audit trail)" />
           <div className="flex gap-2">
-            <Button size="sm" variant="primary" onClick={confirm} disabled={change.isPending}>
+            <Button type="submit" size="sm" variant="primary" disabled={change.isPending}>
               {change.isPending ? 'Changing…' : 'Change role'}
             </Button>
-            <Button size="sm" onClick={cancel} disabled={change.isPending}>
+            <Button size="sm" onClick={close} disabled={change.isPending}>
               Cancel
             </Button>
           </div>
-        </div>
+        </SchemaForm>
       ) : null}
 
-      {change.isError ? (
+      {refused ? (
         <div role="alert" className="rounded border border-danger-200 bg-danger-50 px-2.5 py-1.5 text-sm text-danger-700">
           <p>{change.error.message}</p>
-          {issues.length > 0 ? (
-            <ul className="mt-1 list-disc pl-4 text-xs">
-              {issues.map((issue) => (
-                <li key={`${issue.path}-${issue.code}`}>
-                  {issue.path ? `${issue.path}: ` : ''}
-                  {issue.message}
-                </li>
-              ))}
-            </ul>
-          ) : null}
         </div>
       ) : null}
       {change.isSuccess && !pending ? (
