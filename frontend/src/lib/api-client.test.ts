@@ -1,6 +1,30 @@
-import { describe, expect, it } from 'vitest';
-import { ApiError, apiRequest, requestData, requestPage, toQueryString } from '@/lib/api-client';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { z } from 'zod';
+import { endpoint } from '@toneledger/common/api/endpoint';
+import { devMailApi } from '@toneledger/common/api/dev-mail';
+import { imagesApi } from '@toneledger/common/api/images';
+import { importsApi } from '@toneledger/common/api/imports';
+import { printsApi } from '@toneledger/common/api/prints';
+import { systemApi } from '@toneledger/common/api/system';
+import { auditApi, meApi, usersApi } from '@toneledger/common/api/users';
+import { dataEnvelope } from '@toneledger/common/schemas/envelope';
+import { ApiError, call, callData, toQueryString, uploadWithProgress, urlOf } from '@/lib/api-client';
+import { FakeXhr } from '@/test/fake-xhr';
 import { errorResponse, json, mockFetch } from '@/test/fetch-mock';
+import { makeMe, makeUser } from '@/test/fixtures';
+
+const USER_ID = '5d0c0f5e-8a7b-4c2d-9e1f-112233445566';
+const PRINT_ID = '11111111-2222-4333-8444-555555555555';
+
+/** Test endpoints: a path parameter that is not an id, to see it encoded; a multipart upload with a small answer. */
+const byName = endpoint({
+  method: 'get', path: '/api/things/:name', summary: 'A thing by name', tags: ['test'], access: 'public',
+  params: z.object({ name: z.string() }), response: { description: 'The thing', schema: dataEnvelope(z.object({ name: z.string() })) },
+});
+const uploadFile = endpoint({
+  method: 'post', path: '/api/files', summary: 'Takes a file', tags: ['test'], access: 'public', requestContentType: 'multipart/form-data',
+  status: 202, response: { description: 'Accepted', schema: dataEnvelope(z.object({ id: z.string() })) },
+});
 
 describe('toQueryString', () => {
   it('leaves out undefined, null and empty values and encodes the rest', () => {
@@ -15,63 +39,103 @@ describe('toQueryString', () => {
   });
 });
 
-describe('requestData / requestPage', () => {
+describe('urlOf', () => {
+  it('puts each path parameter in its place, URL-encoded', () => {
+    expect(urlOf(byName, { params: { name: 'a/b c?&' } })).toBe('/api/things/a%2Fb%20c%3F%26');
+    expect(urlOf(imagesApi.file, { params: { id: PRINT_ID, variant: 'thumb' } })).toBe(`/api/images/${PRINT_ID}/file/thumb`);
+  });
+
+  it('adds the query without its empty values', () => {
+    expect(urlOf(printsApi.exportCsv, { query: { q: 'harbour wall', sort: '-dateMade', tonerClass: undefined, locationId: '' } })).toBe(
+      '/api/prints/export.csv?q=harbour+wall&sort=-dateMade',
+    );
+    expect(urlOf(printsApi.exportCsv, { query: {} })).toBe('/api/prints/export.csv');
+    expect(urlOf(importsApi.template)).toBe('/api/imports/template.csv');
+  });
+
+  it('refuses to build a path with a parameter missing', () => {
+    expect(() => urlOf(printsApi.exportJson, { params: { id: '' } })).toThrow(/Missing path parameter "id"/);
+  });
+});
+
+describe('call / callData', () => {
   it('returns the data of a { data } envelope and sends JSON with same-origin credentials', async () => {
-    const { requests, fetchMock } = mockFetch({
-      'PATCH /api/users/u1/role': () => json({ data: { id: 'u1', role: 'viewer' } }),
-    });
-    const data = await requestData<{ id: string; role: string }>('/api/users/u1/role', {
-      method: 'PATCH',
-      body: { role: 'viewer' },
-    });
-    expect(data).toEqual({ id: 'u1', role: 'viewer' });
+    const user = makeUser({ id: USER_ID, role: 'viewer' });
+    const { requests, fetchMock } = mockFetch({ [`PATCH /api/users/${USER_ID}/role`]: () => json({ data: user }) });
+    const data = await callData(usersApi.changeRole, { params: { id: USER_ID }, body: { role: 'viewer' } });
+    expect(data).toEqual(user);
+    expect(requests[0]?.method).toBe('PATCH');
     expect(requests[0]?.body).toEqual({ role: 'viewer' });
     expect(requests[0]?.headers['content-type']).toBe('application/json');
+    expect(requests[0]?.headers.accept).toBe('application/json');
     expect(fetchMock.mock.calls[0]?.[1]?.credentials).toBe('same-origin');
   });
 
+  it('builds the URL from the endpoint, its encoded params and its query', async () => {
+    const { requests } = mockFetch({ 'GET /api/things/a%2Fb%20c': () => json({ data: { name: 'a/b c' } }) });
+    expect(await callData(byName, { params: { name: 'a/b c' } })).toEqual({ name: 'a/b c' });
+    expect(requests[0]?.url).toBe('/api/things/a%2Fb%20c');
+  });
+
   it('sends a FormData body as it is, leaving the multipart content type to the browser', async () => {
-    const { fetchMock } = mockFetch({ 'POST /api/imports': () => json({ data: { id: 'job1' } }, 202) });
+    const { fetchMock } = mockFetch({ 'POST /api/files': () => json({ data: { id: 'job1' } }, 202) });
     const form = new FormData();
     form.append('file', new Blob(['accession_number\n'], { type: 'text/csv' }), 'prints.csv');
-    const data = await requestData<{ id: string }>('/api/imports', { method: 'POST', body: form });
-    expect(data).toEqual({ id: 'job1' });
+    expect(await callData(uploadFile, { body: form })).toEqual({ id: 'job1' });
     const init = fetchMock.mock.calls[0]?.[1];
+    expect(init?.method).toBe('POST');
     expect(init?.body).toBe(form);
     expect((init?.headers as Record<string, string>)['content-type']).toBeUndefined();
   });
 
   it('sends no content-type and no body on a GET', async () => {
-    const { requests } = mockFetch({ 'GET /api/health': () => json({ data: { status: 'ok' } }) });
-    await requestData('/api/health');
+    const { requests } = mockFetch({ 'GET /api/me': () => json({ data: makeMe('viewer') }) });
+    await callData(meApi.get);
+    expect(requests[0]?.method).toBe('GET');
     expect(requests[0]?.headers['content-type']).toBeUndefined();
     expect(requests[0]?.body).toBeUndefined();
   });
 
-  it('returns a page envelope with its pagination, passing the query through', async () => {
+  it('returns a page envelope with its pagination, passing the query through without empty values', async () => {
     const { requests } = mockFetch({
-      'GET /api/users': () => json({ data: [{ id: 'a' }], pagination: { page: 3, pageSize: 25, total: 51 } }),
+      'GET /api/users': () => json({ data: [makeUser()], pagination: { page: 3, pageSize: 25, total: 51 } }),
     });
-    const page = await requestPage('/api/users', { query: { page: 3, pageSize: 25, sort: '-name' } });
+    const page = await call(usersApi.list, { query: { page: 3, pageSize: 25, sort: '-name', q: '' } });
     expect(page.pagination).toEqual({ page: 3, pageSize: 25, total: 51 });
     expect(page.data).toHaveLength(1);
-    expect(requests[0]?.search.get('sort')).toBe('-name');
-    expect(requests[0]?.search.get('page')).toBe('3');
+    expect(Object.fromEntries(requests[0]!.search)).toEqual({ page: '3', pageSize: '25', sort: '-name' });
   });
 
   it('rejects a list answer that has no pagination', async () => {
     mockFetch({ 'GET /api/users': () => json({ data: [] }) });
-    await expect(requestPage('/api/users')).rejects.toMatchObject({ code: 'internal_error' });
+    await expect(call(usersApi.list, { query: {} })).rejects.toMatchObject({ name: 'ApiError', code: 'internal_error', status: 200 });
+  });
+
+  it('rejects an answer that does not match the endpoint’s response schema, keeping its request id', async () => {
+    mockFetch({ 'GET /api/me': () => json({ data: { id: 'not-a-user' } }, 200, { 'x-request-id': 'req-drift' }) });
+    const error = await callData(meApi.get).catch((e: unknown) => e);
+    expect(error).toBeInstanceOf(ApiError);
+    expect(error).toMatchObject({ code: 'internal_error', status: 200, requestId: 'req-drift', message: 'The server sent an answer this page cannot read.' });
+  });
+
+  it('rejects a successful answer that is not JSON at all', async () => {
+    mockFetch({ 'GET /api/me': () => new Response('<!doctype html><title>app</title>', { status: 200 }) });
+    await expect(callData(meApi.get)).rejects.toMatchObject({ code: 'internal_error', status: 200 });
+  });
+
+  it('returns an answer as it is when the endpoint has no envelope (the OpenAPI document)', async () => {
+    mockFetch({ 'GET /api/openapi.json': () => json({ openapi: '3.1.0' }) });
+    expect(await call(systemApi.openapi)).toEqual({ openapi: '3.1.0' });
   });
 });
 
 describe('error envelopes', () => {
   it('throws an ApiError carrying code, status, message and request id', async () => {
     mockFetch({
-      'PATCH /api/users/u1/role': () =>
+      [`PATCH /api/users/${USER_ID}/role`]: () =>
         errorResponse(409, 'conflict', 'At least one administrator must remain.', { requestId: 'req-42' }),
     });
-    const error = await requestData('/api/users/u1/role', { method: 'PATCH', body: { role: 'viewer' } }).catch((e: unknown) => e);
+    const error = await callData(usersApi.changeRole, { params: { id: USER_ID }, body: { role: 'viewer' } }).catch((e: unknown) => e);
     expect(error).toBeInstanceOf(ApiError);
     expect(error).toMatchObject({
       code: 'conflict',
@@ -84,7 +148,7 @@ describe('error envelopes', () => {
   it('exposes the field issues of a validation error', async () => {
     const details = [{ path: 'to', message: 'Enter an e-mail address', code: 'invalid_format' }];
     mockFetch({ 'POST /api/dev/mail/test': () => errorResponse(400, 'validation_failed', 'Check the form', { details }) });
-    const error = (await apiRequest('/api/dev/mail/test', { method: 'POST', body: { to: 'x' } }).catch((e: unknown) => e)) as ApiError;
+    const error = (await callData(devMailApi.sendTest, { body: { to: 'x' } }).catch((e: unknown) => e)) as ApiError;
     expect(error.code).toBe('validation_failed');
     expect(error.details).toEqual(details);
     expect(error.fieldIssues).toEqual(details);
@@ -100,8 +164,8 @@ describe('error envelopes', () => {
       'GET /api/me': () => new Response('<html>Bad gateway</html>', { status: 502, statusText: 'Bad Gateway', headers: { 'x-request-id': 'edge-7' } }),
       'GET /api/audit': () => new Response('', { status: 401 }),
     });
-    await expect(requestData('/api/me')).rejects.toMatchObject({ code: 'internal_error', status: 502, requestId: 'edge-7' });
-    await expect(requestData('/api/audit')).rejects.toMatchObject({ code: 'unauthenticated', status: 401, requestId: null });
+    await expect(callData(meApi.get)).rejects.toMatchObject({ code: 'internal_error', status: 502, requestId: 'edge-7' });
+    await expect(call(auditApi.list, { query: {} })).rejects.toMatchObject({ code: 'unauthenticated', status: 401, requestId: null });
   });
 
   it('turns a network failure into service_unavailable with status 0', async () => {
@@ -110,12 +174,7 @@ describe('error envelopes', () => {
         throw new TypeError('Failed to fetch');
       },
     });
-    await expect(requestData('/api/me')).rejects.toMatchObject({ name: 'ApiError', code: 'service_unavailable', status: 0 });
-  });
-
-  it('rejects a successful answer that is not an envelope', async () => {
-    mockFetch({ 'GET /api/me': () => new Response('<!doctype html><title>app</title>', { status: 200 }) });
-    await expect(requestData('/api/me')).rejects.toMatchObject({ code: 'internal_error', status: 200 });
+    await expect(callData(meApi.get)).rejects.toMatchObject({ name: 'ApiError', code: 'service_unavailable', status: 0 });
   });
 
   it('passes an abort through untouched', async () => {
@@ -124,6 +183,74 @@ describe('error envelopes', () => {
         throw new DOMException('aborted', 'AbortError');
       },
     });
-    await expect(requestData('/api/users')).rejects.toMatchObject({ name: 'AbortError' });
+    await expect(call(usersApi.list, { query: {}, signal: new AbortController().signal })).rejects.toMatchObject({ name: 'AbortError' });
+  });
+});
+
+describe('uploadWithProgress', () => {
+  afterEach(() => {
+    FakeXhr.sent = [];
+  });
+
+  const image = {
+    id: 'b1111111-2222-4333-8444-555555555555', printId: PRINT_ID, viewType: 'recto', capturedOn: null, notes: null, fileName: 'recto.tif',
+    contentType: 'image/tiff', sizeBytes: 1000, width: 40, height: 30, sha256: 'a'.repeat(64),
+    exif: { capturedAt: null, make: null, model: null, lens: null, exposureTime: null, fNumber: null, iso: null, focalLength: null },
+    derivatives: 'pending', urls: { thumb: null, screen: null, original: null }, lastFixity: null, uploadedAt: '2024-01-02T10:00:00.000Z',
+    uploadedBy: null, withdrawn: null, version: 1,
+  };
+
+  function upload(signal?: AbortSignal) {
+    vi.stubGlobal('XMLHttpRequest', FakeXhr);
+    const form = new FormData();
+    form.append('viewType', 'recto');
+    const progress: number[] = [];
+    const done = uploadWithProgress(imagesApi.upload, { params: { id: PRINT_ID }, body: form, signal }, (f) => progress.push(f));
+    return { done, progress, form };
+  }
+
+  it('posts the form to the endpoint’s URL, reports progress and resolves with the parsed data', async () => {
+    FakeXhr.answer = () => ({ status: 201, body: { data: image } });
+    const { done, progress, form } = upload();
+    expect(await done).toEqual(image);
+    expect(progress).toEqual([0.4, 1]);
+    const sent = FakeXhr.sent[0]!;
+    expect(sent.method).toBe('POST');
+    expect(sent.url).toBe(`/api/prints/${PRINT_ID}/images`);
+    expect(sent.body).toBe(form);
+    expect(sent.headers.accept).toBe('application/json');
+  });
+
+  it('rejects with an ApiError from the error envelope', async () => {
+    FakeXhr.answer = () => ({
+      status: 413,
+      body: { error: { code: 'payload_too_large', message: 'Too large', status: 413, requestId: 'req-413' } },
+    });
+    await expect(upload().done).rejects.toMatchObject({ name: 'ApiError', code: 'payload_too_large', status: 413, requestId: 'req-413', message: 'Too large' });
+  });
+
+  it('maps an answer without an envelope to a code from its status', async () => {
+    FakeXhr.answer = () => ({ status: 415, text: '<html>no</html>', requestId: 'edge-9' });
+    await expect(upload().done).rejects.toMatchObject({ code: 'unsupported_media_type', status: 415, requestId: 'edge-9' });
+  });
+
+  it('rejects a successful answer that does not match the schema', async () => {
+    FakeXhr.answer = () => ({ status: 201, body: { data: { id: 'x' } } });
+    const { done, progress } = upload();
+    await expect(done).rejects.toMatchObject({ code: 'internal_error', status: 201 });
+    expect(progress).not.toContain(1);
+  });
+
+  it('turns a network failure into service_unavailable with status 0', async () => {
+    FakeXhr.answer = () => 'network-error';
+    await expect(upload().done).rejects.toMatchObject({ name: 'ApiError', code: 'service_unavailable', status: 0 });
+  });
+
+  it('aborts the request when its signal is aborted', async () => {
+    FakeXhr.answer = () => ({ status: 201, body: { data: image } });
+    const controller = new AbortController();
+    const { done } = upload(controller.signal);
+    controller.abort();
+    await expect(done).rejects.toMatchObject({ name: 'AbortError' });
   });
 });

@@ -8,7 +8,6 @@ import {
   fieldIssueSchema,
   type ErrorCode,
   type FieldIssue,
-  type Pagination,
 } from '@toneledger/common/schemas/envelope';
 
 /** A failed request, carrying the server's error envelope. */
@@ -38,14 +37,6 @@ export function isApiError(error: unknown): error is ApiError {
   return error instanceof ApiError;
 }
 
-export interface DataEnvelope<T> {
-  data: T;
-}
-export interface PageEnvelope<T> {
-  data: T[];
-  pagination: Pagination;
-}
-
 export type QueryValue = string | number | boolean | null | undefined;
 
 /** Builds `?a=1&b=x` from an object, leaving out empty values. Returns '' when nothing is left. */
@@ -60,8 +51,10 @@ export function toQueryString(query: Record<string, QueryValue> | undefined): st
   return text ? `?${text}` : '';
 }
 
-export interface RequestOptions {
-  method?: 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
+const METHODS = { get: 'GET', post: 'POST', put: 'PUT', patch: 'PATCH', delete: 'DELETE' } as const;
+
+interface RequestOptions {
+  method: (typeof METHODS)[Endpoint['method']];
   query?: Record<string, QueryValue>;
   /** Sent as JSON, or as multipart/form-data when it is a FormData (file uploads). */
   body?: unknown;
@@ -79,12 +72,7 @@ const STATUS_CODES: Record<number, ErrorCode> = {
   503: 'service_unavailable',
 };
 
-function codeForStatus(status: number): ErrorCode {
-  return STATUS_CODES[status] ?? 'internal_error';
-}
-
-async function readJson(response: Response): Promise<unknown> {
-  const text = await response.text();
+function parseJson(text: string): unknown {
   if (!text) return undefined;
   try {
     return JSON.parse(text);
@@ -93,13 +81,33 @@ async function readJson(response: Response): Promise<unknown> {
   }
 }
 
+/** A failed answer as an ApiError: from the server's error envelope, or, when there is none, from the HTTP status. */
+function errorFrom(json: unknown, status: number, statusText: string, requestId: string | null): ApiError {
+  const envelope = errorEnvelopeSchema.safeParse(json);
+  if (envelope.success) {
+    const { code, status: envelopeStatus, message, requestId: envelopeRequestId, details } = envelope.data.error;
+    return new ApiError({ code, status: envelopeStatus, message, requestId: envelopeRequestId, details });
+  }
+  return new ApiError({
+    code: STATUS_CODES[status] ?? 'internal_error',
+    status,
+    message: `The server answered ${status}${statusText ? ` ${statusText}` : ''}.`,
+    requestId,
+  });
+}
+
+const unreachable = () =>
+  new ApiError({ code: 'service_unavailable', status: 0, message: 'Could not reach the server. Check the connection and try again.' });
+
+const unreadable = (status: number, requestId: string | null) =>
+  new ApiError({ code: 'internal_error', status, message: 'The server sent an answer this page cannot read.', requestId });
+
 /**
- * Sends a request to our own server and returns the parsed JSON body (the envelope).
- * Any non-2xx answer becomes an ApiError built from the error envelope; an answer that is
- * not an envelope still becomes an ApiError with a code derived from the HTTP status.
+ * Sends a request to our own server and returns its JSON answer (undefined when there is none) with
+ * its status and request id. Any non-2xx answer becomes an ApiError; so does a failure to reach the server.
  */
-export async function apiRequest<T>(path: string, options: RequestOptions = {}): Promise<T> {
-  const { method = 'GET', query, body, signal } = options;
+async function send(path: string, options: RequestOptions): Promise<{ json: unknown; status: number; requestId: string | null }> {
+  const { method, query, body, signal } = options;
   const headers: Record<string, string> = { accept: 'application/json' };
   const isForm = typeof FormData !== 'undefined' && body instanceof FormData;
   // The browser sets a multipart content type, with its boundary, for a FormData body.
@@ -116,59 +124,13 @@ export async function apiRequest<T>(path: string, options: RequestOptions = {}):
     });
   } catch (cause) {
     if (cause instanceof DOMException && cause.name === 'AbortError') throw cause;
-    throw new ApiError({
-      code: 'service_unavailable',
-      status: 0,
-      message: 'Could not reach the server. Check the connection and try again.',
-    });
+    throw unreachable();
   }
 
-  const json = await readJson(response);
-  const headerRequestId = response.headers.get('x-request-id');
-
-  if (!response.ok) {
-    const envelope = errorEnvelopeSchema.safeParse(json);
-    if (envelope.success) {
-      const { code, status, message, requestId, details } = envelope.data.error;
-      throw new ApiError({ code, status, message, requestId, details });
-    }
-    throw new ApiError({
-      code: codeForStatus(response.status),
-      status: response.status,
-      message: `The server answered ${response.status}${response.statusText ? ` ${response.statusText}` : ''}.`,
-      requestId: headerRequestId,
-    });
-  }
-
-  if (response.status === 204) return undefined as T;
-  if (json === undefined || json === null || typeof json !== 'object' || !('data' in json)) {
-    throw new ApiError({
-      code: 'internal_error',
-      status: response.status,
-      message: 'The server sent an answer this page cannot read.',
-      requestId: headerRequestId,
-    });
-  }
-  return json as T;
-}
-
-/** GET/POST/PATCH returning the `data` of a `{ data }` envelope. */
-export async function requestData<T>(path: string, options?: RequestOptions): Promise<T> {
-  const envelope = await apiRequest<DataEnvelope<T>>(path, options);
-  return envelope.data;
-}
-
-/** GET returning a `{ data: [...], pagination }` envelope as it is. */
-export async function requestPage<T>(path: string, options?: RequestOptions): Promise<PageEnvelope<T>> {
-  const envelope = await apiRequest<PageEnvelope<T>>(path, options);
-  if (!Array.isArray(envelope.data) || typeof envelope.pagination !== 'object' || envelope.pagination === null) {
-    throw new ApiError({
-      code: 'internal_error',
-      status: 200,
-      message: 'The server sent a list this page cannot read.',
-    });
-  }
-  return envelope;
+  const json = parseJson(await response.text());
+  const requestId = response.headers.get('x-request-id');
+  if (!response.ok) throw errorFrom(json, response.status, response.statusText, requestId);
+  return { json, status: response.status, requestId };
 }
 
 export { ERROR_CODES };
@@ -185,16 +147,15 @@ export function urlOf<E extends Endpoint>(e: E, input: { params?: ParamsIn<E>; q
   return `${pathOf(e, input.params as Record<string, unknown> | undefined)}${toQueryString(input.query as Record<string, QueryValue> | undefined)}`;
 }
 
-const METHODS = { get: 'GET', post: 'POST', put: 'PUT', patch: 'PATCH', delete: 'DELETE' } as const;
-
-/** The success answer checked against the endpoint's response schema: a drifted answer is an error, never a wrong screen. */
-function parseAnswer<E extends Endpoint>(e: E, json: unknown): ResponseOf<E> {
+/**
+ * The success answer checked against the endpoint's response schema: a drifted answer (or a page
+ * that is not JSON at all) is an error, never a wrong screen.
+ */
+function parseAnswer<E extends Endpoint>(e: E, json: unknown, status: number, requestId: string | null): ResponseOf<E> {
   const schema = e.response.schema;
   if (!schema) return json as ResponseOf<E>;
   const parsed = schema.safeParse(json);
-  if (!parsed.success) {
-    throw new ApiError({ code: 'internal_error', status: 200, message: 'The server sent an answer this page cannot read.' });
-  }
+  if (!parsed.success) throw unreadable(status, requestId);
   return parsed.data as ResponseOf<E>;
 }
 
@@ -204,8 +165,8 @@ function parseAnswer<E extends Endpoint>(e: E, json: unknown): ResponseOf<E> {
  */
 export async function call<E extends Endpoint>(e: E, ...[input]: OptionalIfEmpty<E>): Promise<ResponseOf<E>> {
   const { params, query, body, signal } = (input ?? {}) as { params?: Record<string, unknown>; query?: Record<string, QueryValue>; body?: unknown; signal?: AbortSignal };
-  const json = await apiRequest<unknown>(pathOf(e, params), { method: METHODS[e.method], query, body, signal });
-  return parseAnswer(e, json);
+  const { json, status, requestId } = await send(pathOf(e, params), { method: METHODS[e.method], query, body, signal });
+  return parseAnswer(e, json, status, requestId);
 }
 
 /** `call`, returning the `data` of the envelope. */
@@ -220,50 +181,31 @@ export async function callData<E extends Endpoint>(e: E, ...args: OptionalIfEmpt
  */
 export function uploadWithProgress<E extends Endpoint & { requestContentType: 'multipart/form-data' }>(
   e: E,
-  input: { params: ParamsIn<E>; body: FormData; signal?: AbortSignal },
+  input: Pick<CallInput<E>, 'params'> & { body: FormData; signal?: AbortSignal },
   onProgress?: (fraction: number) => void,
 ): Promise<DataOf<E>> {
   return new Promise((resolve, reject) => {
     const xhr = new XMLHttpRequest();
-    xhr.open(METHODS[e.method], pathOf(e, input.params as Record<string, unknown>));
+    xhr.open(METHODS[e.method], pathOf(e, input.params as Record<string, unknown> | undefined));
     xhr.setRequestHeader('accept', 'application/json');
     xhr.upload.onprogress = (event) => {
       if (event.lengthComputable && event.total > 0) onProgress?.(event.loaded / event.total);
     };
     xhr.onload = () => {
-      let json: unknown;
-      try {
-        json = xhr.responseText ? JSON.parse(xhr.responseText) : undefined;
-      } catch {
-        json = undefined;
-      }
-      if (xhr.status >= 200 && xhr.status < 300) {
-        try {
-          const data = (parseAnswer(e, json) as { data: DataOf<E> }).data;
-          onProgress?.(1);
-          resolve(data);
-        } catch (err) {
-          reject(err);
-        }
+      const json = parseJson(xhr.responseText);
+      if (xhr.status < 200 || xhr.status >= 300) {
+        reject(errorFrom(json, xhr.status, xhr.statusText, xhr.getResponseHeader('x-request-id')));
         return;
       }
-      const envelope = errorEnvelopeSchema.safeParse(json);
-      if (envelope.success) {
-        const { code, status, message, requestId, details } = envelope.data.error;
-        reject(new ApiError({ code, status, message, requestId, details }));
-      } else {
-        reject(
-          new ApiError({
-            code: codeForStatus(xhr.status),
-            status: xhr.status,
-            message: `The server answered ${xhr.status}.`,
-            requestId: xhr.getResponseHeader('x-request-id'),
-          }),
-        );
+      try {
+        const data = (parseAnswer(e, json, xhr.status, xhr.getResponseHeader('x-request-id')) as { data: DataOf<E> }).data;
+        onProgress?.(1);
+        resolve(data);
+      } catch (err) {
+        reject(err);
       }
     };
-    xhr.onerror = () =>
-      reject(new ApiError({ code: 'service_unavailable', status: 0, message: 'Could not reach the server. Check the connection and try again.' }));
+    xhr.onerror = () => reject(unreachable());
     xhr.onabort = () => reject(new DOMException('The upload was cancelled.', 'AbortError'));
     input.signal?.addEventListener('abort', () => xhr.abort(), { once: true });
     xhr.send(input.body);

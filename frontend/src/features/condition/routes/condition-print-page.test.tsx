@@ -1,46 +1,12 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import type { Role } from '@toneledger/common/domain/roles';
+import { FakeXhr } from '@/test/fake-xhr';
 import { json, mockFetch } from '@/test/fetch-mock';
 import { makeMe } from '@/test/fixtures';
 import { renderRoutes } from '@/test/render';
 import { ConditionPrintPage } from '@/features/condition/routes/condition-print-page';
 import { IMAGE_NEW, IMAGE_OLD, PRINT_ID, conditionHandlers, makeImage, makeReport } from '@/features/condition/testing/fixtures';
-
-/** A stand-in for XMLHttpRequest: reports some progress, then answers with what `answer` gives for the request. */
-class FakeXhr {
-  static sent: FakeXhr[] = [];
-  static answer: (xhr: FakeXhr) => { status: number; body: unknown } = () => ({ status: 201, body: { data: makeImage() } });
-  upload: { onprogress: ((event: { lengthComputable: boolean; loaded: number; total: number }) => void) | null } = { onprogress: null };
-  onload: (() => void) | null = null;
-  onerror: (() => void) | null = null;
-  onabort: (() => void) | null = null;
-  status = 0;
-  responseText = '';
-  method = '';
-  url = '';
-  body: FormData | null = null;
-  open(method: string, url: string) {
-    this.method = method;
-    this.url = url;
-  }
-  setRequestHeader() {}
-  getResponseHeader() {
-    return null;
-  }
-  abort() {}
-  send(body: FormData) {
-    this.body = body;
-    FakeXhr.sent.push(this);
-    setTimeout(() => {
-      this.upload.onprogress?.({ lengthComputable: true, loaded: 40, total: 100 });
-      const { status, body: answer } = FakeXhr.answer(this);
-      this.status = status;
-      this.responseText = JSON.stringify(answer);
-      this.onload?.();
-    }, 5);
-  }
-}
 
 afterEach(() => {
   FakeXhr.sent = [];

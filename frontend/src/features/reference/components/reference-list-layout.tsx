@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import type { UseQueryResult } from '@tanstack/react-query';
-import type { PageEnvelope } from '@/lib/api-client';
+import type { Pagination as PageCounts } from '@toneledger/common/schemas/envelope';
 import { Button } from '@/components/ui/button';
 import { Loading } from '@/components/ui/loading';
 import { ErrorNotice, Notice } from '@/components/ui/notice';
@@ -24,7 +24,8 @@ export interface ReferenceListLayoutProps<T> {
   searchLabel: string;
   query: ReferenceListQueryState;
   setQuery: (patch: Partial<ReferenceListQueryState>) => void;
-  list: UseQueryResult<PageEnvelope<T>>;
+  /** A page of the resource's list, as its contract answers it. */
+  list: UseQueryResult<{ data: T[]; pagination: PageCounts }>;
   what: string;
   renderTable: (rows: T[], busy: boolean) => ReactNode;
   /** The create/edit panel, when open. */
