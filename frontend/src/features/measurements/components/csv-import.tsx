@@ -3,6 +3,7 @@ import { csvMappingSchema, type SpotAnalysis } from '@toneledger/common/schemas/
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/field';
 import { ErrorNotice, Notice } from '@/components/ui/notice';
+import { issuesToFieldErrors } from '@/lib/forms/field-errors';
 import { usePreviewCsv, type CsvPreview } from '@/features/measurements/api/preview-csv';
 import {
   MAPPING_LABELS,
@@ -66,9 +67,7 @@ export function CsvImport({ printId, spots, onUse }: CsvImportProps) {
     setUsed(null);
     const parsed = csvMappingSchema.safeParse(toCsvMapping(mapping));
     if (!parsed.success) {
-      const found: Partial<Record<MappingField, string>> = {};
-      for (const issue of parsed.error.issues) found[issue.path[0] as MappingField] ??= issue.message;
-      setMappingErrors(found);
+      setMappingErrors(issuesToFieldErrors(parsed.error.issues) as Partial<Record<MappingField, string>>);
       return;
     }
     setMappingErrors({});
