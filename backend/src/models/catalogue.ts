@@ -164,6 +164,16 @@ export class ImportJobModel extends Model<Attrs<ImportJobModel>, Create<ImportJo
   declare errors: CreationOptional<unknown[]>;
   declare newMakers: CreationOptional<string[]>;
   declare createdPrints: CreationOptional<number>;
+  declare stepsFileName: CreationOptional<string | null>;
+  declare stepsSource: CreationOptional<string | null>;
+  declare stepRows: CreationOptional<number>;
+  declare toCreate: CreationOptional<number>;
+  declare toUpdate: CreationOptional<number>;
+  declare unchangedRows: CreationOptional<number>;
+  declare ignoredColumns: CreationOptional<string[]>;
+  declare planHash: CreationOptional<string | null>;
+  declare mode: CreationOptional<'create_only' | 'create_or_update' | null>;
+  declare updatedPrints: CreationOptional<number>;
   declare message: string | null;
   declare createdBy: string | null;
   declare createdAt: CreationOptional<Date>;
@@ -322,6 +332,16 @@ export function initCatalogueModels(sequelize: Sequelize): void {
       errors: { type: DataTypes.JSONB, defaultValue: [] },
       newMakers: { type: DataTypes.JSONB, defaultValue: [] },
       createdPrints: { type: DataTypes.INTEGER, defaultValue: 0 },
+      stepsFileName: DataTypes.TEXT,
+      stepsSource: DataTypes.TEXT,
+      stepRows: { type: DataTypes.INTEGER, defaultValue: 0 },
+      toCreate: { type: DataTypes.INTEGER, defaultValue: 0 },
+      toUpdate: { type: DataTypes.INTEGER, defaultValue: 0 },
+      unchangedRows: { type: DataTypes.INTEGER, defaultValue: 0 },
+      ignoredColumns: { type: DataTypes.JSONB, defaultValue: [] },
+      planHash: DataTypes.TEXT,
+      mode: DataTypes.TEXT,
+      updatedPrints: { type: DataTypes.INTEGER, defaultValue: 0 },
       message: DataTypes.TEXT,
       createdBy: DataTypes.UUID,
       createdAt: DataTypes.DATE,

@@ -4,7 +4,9 @@ import type {
 } from '@toneledger/common/schemas/catalogue';
 import { normaliseRecipe, recipeCautions, type Recipe as DomainRecipe } from '@toneledger/common/domain/recipes';
 import { parseEdtf } from '@toneledger/common/domain/edtf';
-import { can, type Role } from '@toneledger/common/domain/roles';
+import type { Role } from '@toneledger/common/domain/roles';
+import { mayRead } from '@toneledger/common/fields/field';
+import { PRINT_FIELDS } from '@toneledger/common/fields/print';
 import type { BathRecipe, EnclosureType, ImportJobModel, Location, Maker, Movement, Paper, Print, ProcessStep } from '../models';
 import { warningsOf } from '../services/print-derive';
 
@@ -72,33 +74,42 @@ export type LoadedPrint = Print & {
   steps?: (ProcessStep & { recipe?: BathRecipe | null })[];
 };
 
-/** The full print. Locations, valuation and staff notes leave the server only for roles that may read them. */
+type EnclosureFacts = { name: string; alkalineBuffered: boolean | null; patResult: 'passed' | 'failed' | 'not_tested' };
+
+/** How each kind of reference leaves the server (the output schemas in fields/print.ts). */
+const REFERENCES: Record<string, (p: LoadedPrint) => unknown> = {
+  maker: (p) => (p.maker ? { id: p.maker.id, name: p.maker.name } : null),
+  paper: (p) => (p.paper ? { id: p.paper.id, label: paperLabel(p.paper) } : null),
+  location: (p) => (p.location ? { id: p.location.id, pathLabel: p.location.pathLabel } : null),
+  enclosure: (p) => (p.enclosure ? { id: p.enclosure.id, name: p.enclosure.name, alkalineBuffered: p.enclosure.alkalineBuffered, patResult: p.enclosure.patResult } : null),
+};
+
+/**
+ * The full print: every field of the print field table that the role may read (locations,
+ * valuation and staff notes only for roles with `catalogue.read_restricted`), then what the screen
+ * needs beside them. A field's value is the model attribute of the same name, unless it is a
+ * reference or computed.
+ */
 export function presentPrint(p: LoadedPrint, role: Role | null): PrintDto {
   const steps = [...(p.steps ?? [])].sort((a, b) => a.position - b.position);
-  const enclosure = p.enclosure ? { name: p.enclosure.name, alkalineBuffered: p.enclosure.alkalineBuffered, patResult: p.enclosure.patResult } : null;
-  const dto: PrintDto = {
-    id: p.id, accessionNumber: p.accessionNumber, title: p.title,
-    maker: p.maker ? { id: p.maker.id, name: p.maker.name } : null,
-    dateMade: p.dateMade, dateDisplay: p.dateDisplay, dateEarliest: p.dateEarliest, dateLatest: p.dateLatest,
-    imageWidthMm: p.imageWidthMm, imageHeightMm: p.imageHeightMm, sheetWidthMm: p.sheetWidthMm, sheetHeightMm: p.sheetHeightMm,
-    mountWidthMm: p.mountWidthMm, mountHeightMm: p.mountHeightMm,
-    process: p.process as PrintDto['process'], support: p.support as PrintDto['support'],
-    paper: p.paper ? { id: p.paper.id, label: paperLabel(p.paper) } : null,
-    inscriptions: p.inscriptions, provenance: p.provenance, creditLine: p.creditLine, status: p.status as PrintDto['status'],
-    enclosure: p.enclosure ? { id: p.enclosure.id, ...enclosure! } : null,
-    lightResponsivity: p.lightResponsivity as PrintDto['lightResponsivity'],
-    tonerClasses: p.tonerClasses as PrintDto['tonerClasses'],
-    warnings: warningsOf(p.process, steps, enclosure),
-    steps: steps.map(presentStep),
-    version: p.version, createdAt: iso(p.createdAt), updatedAt: iso(p.updatedAt),
+  const enclosure: EnclosureFacts | null = p.enclosure ? { name: p.enclosure.name, alkalineBuffered: p.enclosure.alkalineBuffered, patResult: p.enclosure.patResult } : null;
+  const computed: Record<string, () => unknown> = {
+    warnings: () => warningsOf(p.process, steps, enclosure),
+    updatedAt: () => iso(p.updatedAt),
   };
-  if (can(role, 'catalogue.read_restricted')) {
-    dto.location = p.location ? { id: p.location.id, pathLabel: p.location.pathLabel } : null;
-    dto.staffNotes = p.staffNotes;
-    dto.valuationAmount = p.valuationAmount;
-    dto.valuationCurrency = p.valuationCurrency;
+  const dto: Record<string, unknown> = {};
+  for (const f of PRINT_FIELDS) {
+    if (!mayRead(role, f)) continue;
+    if (f.type.kind === 'reference') dto[f.key] = REFERENCES[f.type.to](p);
+    else if (computed[f.key]) dto[f.key] = computed[f.key]();
+    else dto[f.key] = p.get(f.key as keyof Print) ?? null;
   }
-  return dto;
+  return {
+    ...dto,
+    dateDisplay: p.dateDisplay, dateEarliest: p.dateEarliest, dateLatest: p.dateLatest,
+    steps: steps.map(presentStep),
+    version: p.version, createdAt: iso(p.createdAt),
+  } as PrintDto;
 }
 
 export function presentMovement(m: Movement & { from?: Location | null; to?: Location | null }): MovementDto {
@@ -110,10 +121,14 @@ export function presentMovement(m: Movement & { from?: Location | null; to?: Loc
   };
 }
 
+/** A job checked before files could carry steps has issues without a `file`: they were all in the prints file. */
 export function presentImport(j: ImportJobModel): ImportJob {
   return {
-    id: j.id, fileName: j.fileName, status: j.status as ImportJob['status'], totalRows: j.totalRows, processedRows: j.processedRows,
-    errorCount: j.errorCount, errors: j.errors as ImportJob['errors'], newMakers: j.newMakers, createdPrints: j.createdPrints,
+    id: j.id, fileName: j.fileName, stepsFileName: j.stepsFileName ?? null, status: j.status as ImportJob['status'],
+    totalRows: j.totalRows, processedRows: j.processedRows, stepRows: j.stepRows ?? 0,
+    errorCount: j.errorCount, errors: (j.errors as Omit<ImportJob['errors'][number], 'file'>[]).map((e) => ({ file: 'prints' as const, ...e })), newMakers: j.newMakers,
+    toCreate: j.toCreate ?? 0, toUpdate: j.toUpdate ?? 0, unchanged: j.unchangedRows ?? 0, ignoredColumns: j.ignoredColumns ?? [],
+    mode: j.mode ?? null, createdPrints: j.createdPrints, updatedPrints: j.updatedPrints ?? 0,
     message: j.message, createdAt: iso(j.createdAt), finishedAt: j.finishedAt ? iso(j.finishedAt) : null,
   };
 }

@@ -19,6 +19,11 @@ export const printsApi = {
     method: 'get', path: '/api/prints/export.csv', summary: 'The current filtered list as CSV (same query as the list; page ignored)', tags: ['prints'],
     access: 'catalogue.read', query: printListQuerySchema, response: { description: 'CSV, UTF-8, one row per print', contentType: 'text/csv' },
   }),
+  exportStepsCsv: endpoint({
+    method: 'get', path: '/api/prints/export-steps.csv',
+    summary: 'The process histories of the current filtered list as CSV, one row per step keyed by accession number and step (same query as the list)', tags: ['prints'],
+    access: 'catalogue.read', query: printListQuerySchema, response: { description: 'CSV, UTF-8, one row per step', contentType: 'text/csv' },
+  }),
   create: endpoint({
     method: 'post', path: '/api/prints', summary: 'Catalogues a print (409 if the accession number is taken)', tags: ['prints'],
     access: 'catalogue.write', body: printInputSchema, status: 201, response: { description: 'The new print', schema: printEnvelope },

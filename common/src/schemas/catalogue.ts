@@ -1,21 +1,19 @@
 import { z } from 'zod';
 import { id, idParamsSchema } from './primitives';
 export { idParamsSchema };
-import { parseDuration } from '../domain/duration';
+import { inputShape, listShape, outputShape, sortKeys } from '../fields/field';
+import { PRINT_FIELDS } from '../fields/print';
+import { STEP_FIELDS } from '../fields/step';
 import { pageQuerySchema } from './envelope';
 import {
-  INGREDIENT_UNIT, LIGHT_RESPONSIVITY, LOCATION_KIND, PAPER_BASE, PAT_RESULT, PROCESS, STATUS, STEP_TYPE, SUPPORT,
-  THIOSULFATE_METHOD, TONER_CLASS, TONING_EXTENT, YES_NO_UNKNOWN,
+  INGREDIENT_UNIT, LIGHT_RESPONSIVITY, LOCATION_KIND, PAPER_BASE, PAT_RESULT, PROCESS, STATUS, STEP_TYPE, SUPPORT, TONER_CLASS,
+  YES_NO_UNKNOWN,
 } from './vocab';
 
 const text = (max: number) => z.string().trim().max(max, `At most ${max} characters`);
 const optionalText = (max: number) =>
   z.preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), text(max).nullable()).optional();
 const optionalId = z.preprocess((v) => (v === '' ? null : v), id.nullable()).optional();
-const mm = z.preprocess(
-  (v) => (v === '' ? null : v),
-  z.coerce.number({ message: 'Enter a number of millimetres' }).positive('Must be more than 0 mm').max(5000, 'At most 5000 mm').nullable(),
-).optional();
 const version = z.number({ message: 'The record version is required' }).int().min(1);
 
 export const processSchema = z.enum(PROCESS.codes);
@@ -133,35 +131,9 @@ export const referenceListQuerySchema = pageQuerySchema.extend({
 });
 
 // ── Process steps ────────────────────────────────────────────────────────────
-/** A step's time: seconds, or text as m:ss (`1:30`) or whole seconds (`90`); empty text is none. */
-const seconds = z
-  .preprocess(
-    (v) => {
-      if (typeof v !== 'string') return v;
-      const read = parseDuration(v);
-      return read === undefined ? v : read;
-    },
-    z.number({ message: 'Enter a time as m:ss or seconds, e.g. 1:30 or 90' }).int('Whole seconds').min(0).max(7 * 24 * 3600, 'At most a week (10080:00)').nullable(),
-  )
-  .optional();
-const celsius = z.preprocess((v) => (v === '' ? null : v), z.coerce.number({ message: 'Enter °C' }).min(-10).max(100).nullable()).optional();
+/** A step of the process history: its fields are the step field table's (fields/step.ts). */
 export const processStepInputSchema = z
-  .object({
-    type: stepTypeSchema,
-    agent: optionalText(200).describe('Developer, fixer, wash or solution as used'),
-    tonerClass: tonerClassSchema.nullable().optional(),
-    recipeId: optionalId,
-    dilution: optionalText(50),
-    timeSeconds: seconds,
-    temperatureC: celsius,
-    extent: z.enum(TONING_EXTENT.codes).nullable().optional(),
-    concentration: optionalText(100),
-    alkaline: z.boolean().nullable().optional(),
-    method: z.enum(THIOSULFATE_METHOD.codes).nullable().optional(),
-    value: z.preprocess((v) => (v === '' ? null : v), z.coerce.number().nullable()).optional(),
-    unit: optionalText(50),
-    notes: optionalText(2000),
-  })
+  .object(inputShape(STEP_FIELDS))
   .superRefine((s, ctx) => {
     if (s.type === 'toning' && !s.tonerClass) ctx.addIssue({ code: 'custom', path: ['tonerClass'], message: 'A toning step needs its toner class' });
     if (s.type !== 'toning' && (s.tonerClass || s.extent)) ctx.addIssue({ code: 'custom', path: ['tonerClass'], message: 'Toner class and extent belong to toning steps' });
@@ -171,70 +143,28 @@ export const processStepInputSchema = z
     } else if (s.method) ctx.addIssue({ code: 'custom', path: ['method'], message: 'A method belongs to a residual-thiosulfate test' });
   });
 export type ProcessStepInput = z.infer<typeof processStepInputSchema>;
-export const processStepSchema = z.object({
-  id, position: z.number().int(), type: stepTypeSchema, agent: z.string().nullable(), tonerClass: tonerClassSchema.nullable(),
-  recipe: z.object({ id, name: z.string() }).nullable(), dilution: z.string().nullable(), timeSeconds: z.number().int().nullable(),
-  temperatureC: z.number().nullable(), extent: z.enum(TONING_EXTENT.codes).nullable(), concentration: z.string().nullable(),
-  alkaline: z.boolean().nullable(), method: z.enum(THIOSULFATE_METHOD.codes).nullable(), value: z.number().nullable(),
-  unit: z.string().nullable(), notes: z.string().nullable(),
-});
+export const processStepSchema = z.object({ id, ...outputShape(STEP_FIELDS) });
 export type ProcessStep = z.infer<typeof processStepSchema>;
 export const stepsReplaceSchema = z.object({ version, steps: z.array(processStepInputSchema).max(60) });
 
 // ── Prints ───────────────────────────────────────────────────────────────────
-const dimensions = {
-  imageWidthMm: mm, imageHeightMm: mm, sheetWidthMm: mm, sheetHeightMm: mm, mountWidthMm: mm, mountHeightMm: mm,
-};
-export const printInputSchema = z.object({
-  accessionNumber: text(60).min(1, 'Enter the accession number'),
-  title: text(500).min(1, 'Enter a title (or a descriptive title in square brackets)'),
-  makerId: optionalId,
-  dateMade: optionalText(100).describe('EDTF, e.g. 1968, 1968-04~, 196X, 1971?, 1964/1969'),
-  ...dimensions,
-  process: processSchema,
-  support: supportSchema.nullable().optional(),
-  paperId: optionalId,
-  inscriptions: optionalText(5000),
-  provenance: optionalText(5000),
-  creditLine: optionalText(500),
-  status: statusSchema.default('in_store'),
-  enclosureId: optionalId,
-  lightResponsivity: lightResponsivitySchema.nullable().optional(),
-  staffNotes: optionalText(10000),
-  valuationAmount: z.preprocess((v) => (v === '' ? null : v), z.coerce.number().min(0).max(1e12).nullable()).optional(),
-  valuationCurrency: z.preprocess((v) => (v === '' ? null : v), z.string().regex(/^[A-Z]{3}$/, 'A three-letter currency code (ISO 4217)').nullable()).optional(),
-  /** Only on create: where the print is placed first (recorded as a movement). */
-  locationId: optionalId,
-});
+/** The fields of a print come from the print field table (fields/print.ts): label, CSV column, who may read it, input and output. */
+export const printInputSchema = z.object(inputShape(PRINT_FIELDS));
 export type PrintInput = z.infer<typeof printInputSchema>;
 export const printUpdateSchema = printInputSchema.omit({ locationId: true }).partial().extend({ version });
 export type PrintUpdate = z.infer<typeof printUpdateSchema>;
 
 export const printSchema = z.object({
-  id, accessionNumber: z.string(), title: z.string(),
-  maker: z.object({ id, name: z.string() }).nullable(),
-  dateMade: z.string().nullable(), dateDisplay: z.string().nullable(), dateEarliest: z.string().nullable(), dateLatest: z.string().nullable(),
-  imageWidthMm: z.number().nullable(), imageHeightMm: z.number().nullable(), sheetWidthMm: z.number().nullable(),
-  sheetHeightMm: z.number().nullable(), mountWidthMm: z.number().nullable(), mountHeightMm: z.number().nullable(),
-  process: processSchema, support: supportSchema.nullable(),
-  paper: z.object({ id, label: z.string() }).nullable(),
-  inscriptions: z.string().nullable(), provenance: z.string().nullable(), creditLine: z.string().nullable(),
-  status: statusSchema,
-  enclosure: z.object({ id, name: z.string(), alkalineBuffered: z.boolean().nullable(), patResult: z.enum(PAT_RESULT.codes) }).nullable(),
-  lightResponsivity: lightResponsivitySchema.nullable(),
-  tonerClasses: z.array(tonerClassSchema),
+  ...outputShape(PRINT_FIELDS),
+  dateDisplay: z.string().nullable(), dateEarliest: z.string().nullable(), dateLatest: z.string().nullable(),
   warnings: z.array(warningSchema),
   steps: z.array(processStepSchema),
-  /** Omitted for roles that may not see locations, valuations or staff notes. */
-  location: z.object({ id, pathLabel: z.string() }).nullable().optional(),
-  staffNotes: z.string().nullable().optional(),
-  valuationAmount: z.number().nullable().optional(),
-  valuationCurrency: z.string().nullable().optional(),
-  version: z.number().int(), createdAt: z.string().datetime(), updatedAt: z.string().datetime(),
+  version: z.number().int(), createdAt: z.string().datetime(),
 });
 export type Print = z.infer<typeof printSchema>;
 
-export const PRINT_SORTS = ['accessionNumber', 'title', 'maker', 'dateMade', 'status', 'updatedAt'] as const;
+/** Sort orders of the list: the fields the table marks `sort`. */
+export const PRINT_SORTS = sortKeys(PRINT_FIELDS);
 export const printSortSchema = z.enum([...PRINT_SORTS, ...PRINT_SORTS.map((s) => `-${s}` as const)] as [string, ...string[]]);
 
 export const printListQuerySchema = pageQuerySchema.extend({
@@ -256,10 +186,9 @@ export const printListQuerySchema = pageQuerySchema.extend({
 export type PrintListQuery = z.infer<typeof printListQuerySchema>;
 
 export const printListItemSchema = z.object({
-  id, accessionNumber: z.string(), title: z.string(), makerName: z.string().nullable(),
-  dateMade: z.string().nullable(), dateDisplay: z.string().nullable(), process: processSchema, support: supportSchema.nullable(),
-  status: statusSchema, tonerClasses: z.array(tonerClassSchema), paperLabel: z.string().nullable(),
-  enclosureName: z.string().nullable(), warningCodes: z.array(z.string()), updatedAt: z.string().datetime(),
+  ...listShape(PRINT_FIELDS),
+  makerName: z.string().nullable(), dateDisplay: z.string().nullable(), paperLabel: z.string().nullable(),
+  enclosureName: z.string().nullable(), warningCodes: z.array(z.string()),
   locationLabel: z.string().nullable().optional(),
 });
 export type PrintListItem = z.infer<typeof printListItemSchema>;
@@ -292,19 +221,41 @@ export const catalogueSettingsSchema = z.object({
 export type CatalogueSettings = z.infer<typeof catalogueSettingsSchema>;
 
 // ── Imports ──────────────────────────────────────────────────────────────────
-export const IMPORT_COLUMNS = [
-  'accession_number', 'title', 'maker', 'date_made', 'process', 'support', 'paper', 'status', 'location', 'enclosure',
-  'light_responsivity', 'image_width_mm', 'image_height_mm', 'sheet_width_mm', 'sheet_height_mm', 'mount_width_mm',
-  'mount_height_mm', 'inscriptions', 'provenance', 'credit_line', 'staff_notes', 'toner_classes',
-] as const;
+/** create_only: every row must be a new print. create_or_update: a row whose accession number is in the catalogue updates that print. */
+export const importModeSchema = z.enum(['create_only', 'create_or_update']);
+export type ImportMode = z.infer<typeof importModeSchema>;
+/** The two files of an import: the prints, and (optionally) their process histories, one step per row. */
+export const importFileSchema = z.enum(['prints', 'steps']);
 export const importStatusSchema = z.enum(['validating', 'ready', 'invalid', 'committing', 'committed', 'failed']);
-export const importIssueSchema = z.object({ row: z.number().int(), column: z.string(), value: z.string().nullable(), message: z.string() });
+export const importIssueSchema = z.object({
+  file: importFileSchema, row: z.number().int(), column: z.string(), value: z.string().nullable(), message: z.string(),
+});
 export const importSchema = z.object({
-  id, fileName: z.string(), status: importStatusSchema, totalRows: z.number().int(), processedRows: z.number().int(),
+  id, fileName: z.string(), stepsFileName: z.string().nullable(), status: importStatusSchema,
+  totalRows: z.number().int(), processedRows: z.number().int(), stepRows: z.number().int(),
   errorCount: z.number().int(), errors: z.array(importIssueSchema), newMakers: z.array(z.string()),
-  createdPrints: z.number().int(), message: z.string().nullable(), createdAt: z.string().datetime(), finishedAt: z.string().datetime().nullable(),
+  /** What the checked file would do: rows that create a print, update one, or match one exactly. */
+  toCreate: z.number().int(), toUpdate: z.number().int(), unchanged: z.number().int(),
+  /** Columns read but not imported: computed or kept by the server (see the data dictionary). */
+  ignoredColumns: z.array(z.string()),
+  /** The mode chosen when the import was confirmed. */
+  mode: importModeSchema.nullable(),
+  createdPrints: z.number().int(), updatedPrints: z.number().int(),
+  message: z.string().nullable(), createdAt: z.string().datetime(), finishedAt: z.string().datetime().nullable(),
 });
 export type ImportJob = z.infer<typeof importSchema>;
+
+export const importRowActionSchema = z.enum(['create', 'update', 'unchanged']);
+export const importChangeSchema = z.object({ field: z.string(), label: z.string(), before: z.string(), after: z.string() });
+/** One row of a checked file: what it does, and for an update each field that changes (as CSV text). */
+export const importRowSchema = z.object({
+  row: z.number().int(), accessionNumber: z.string(), action: importRowActionSchema, changes: z.array(importChangeSchema),
+});
+export type ImportRow = z.infer<typeof importRowSchema>;
+export const importRowsQuerySchema = pageQuerySchema.extend({ action: importRowActionSchema.optional() });
+export type ImportRowsQuery = z.infer<typeof importRowsQuerySchema>;
+export const importCommitSchema = z.object({ mode: importModeSchema.default('create_only') });
+export const importTemplateQuerySchema = z.object({ file: importFileSchema.default('prints') });
 
 export const historyEventSchema = z.object({
   id: z.string(), at: z.string().datetime(), actorName: z.string().nullable(), action: z.string(),
