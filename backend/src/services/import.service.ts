@@ -1,210 +1,77 @@
-import { parse } from 'csv-parse/sync';
-import { QueryTypes, type Transaction } from 'sequelize';
-import { checkAccession } from '@toneledger/common/domain/accession';
-import { IMPORT_COLUMNS, printInputSchema } from '@toneledger/common/schemas/catalogue';
-import { LIGHT_RESPONSIVITY, PROCESS, STATUS, SUPPORT, TONER_CLASS } from '@toneledger/common/schemas/vocab';
+import { QueryTypes } from 'sequelize';
+import type { ImportMode, ImportRow, ImportRowsQuery } from '@toneledger/common/schemas/catalogue';
 import { db } from '../db';
-import { EnclosureType, ImportJobModel, Location, Maker, Paper, Print } from '../models';
-import { conflict, notFound, validationFailed } from '../errors';
-import { getCatalogueSettings } from './settings.service';
-import { recordAudit, type AuditActor } from './audit.service';
-import { accessionSortKey, deriveDate, warningsOf } from './print-derive';
-import { paperLabel, presentImport } from '../presenters/catalogue.presenter';
+import { ImportJobModel } from '../models';
+import { conflict, notFound } from '../errors';
+import { presentImport } from '../presenters/catalogue.presenter';
+import type { AuditActor } from './audit.service';
+import { readCsv, type ReadFile } from './import-csv';
+import { checkImport, type Plan } from './import-check.service';
+import { writePlan } from './import-commit.service';
+import { loadExisting, loadLookups } from './import-lookups';
+
+export { MAX_IMPORT_ROWS } from './import-csv';
 
 /**
- * CSV import of prints, in two steps: validate every row and show the errors (nothing written),
- * then commit all rows in one transaction. Both run in the background with progress on the job
- * row, which the client polls. A restart marks unfinished jobs as failed; a commit interrupted
- * half-way has written nothing, because it is one transaction.
+ * CSV import of prints (and, in a second file, their process histories), as a job in two steps:
+ * check every row and show what it would do — create, update with its changes, or nothing — with
+ * the problems by row and column (nothing written); then, once a person has chosen the mode,
+ * write every row in one transaction. Both steps run in the background with progress on the job
+ * row, which the client polls. A restart marks unfinished jobs as failed; a commit interrupted half-way
+ * has written nothing, because it is one transaction.
  */
 
 export const MAX_IMPORT_BYTES = 20 * 1024 * 1024;
-export const MAX_IMPORT_ROWS = 100_000;
 const MAX_REPORTED_ERRORS = 1000;
-const PROGRESS_EVERY = 500;
-
-type Row = Record<string, string>;
-interface Issue { row: number; column: string; value: string | null; message: string }
-
-/** Accepts a controlled value by its code or its label, case-insensitively. */
-function vocab<T extends string>(list: { codes: readonly T[]; labels: Record<T, string> }, raw: string): T | null {
-  const v = raw.trim().toLowerCase();
-  if (!v) return null;
-  for (const c of list.codes) if (c === v || list.labels[c].toLowerCase() === v) return c;
-  return undefined as never;
-}
-
-interface Lookups {
-  makers: Map<string, string>;
-  papers: Map<string, string>;
-  locations: Map<string, string>;
-  enclosures: Map<string, { id: string; name: string; alkalineBuffered: boolean | null; patResult: 'passed' | 'failed' | 'not_tested' }>;
-  accessions: Set<string>;
-  pattern: string;
-}
-
-async function lookups(t?: Transaction): Promise<Lookups> {
-  const [makers, papers, locations, enclosures, accessions, settings] = await Promise.all([
-    Maker.findAll({ attributes: ['id', 'name'], transaction: t }),
-    Paper.findAll({ attributes: ['id', 'manufacturer', 'product', 'surface'], transaction: t }),
-    Location.findAll({ attributes: ['id', 'pathLabel', 'code'], transaction: t }),
-    EnclosureType.findAll({ transaction: t }),
-    db().query<{ a: string }>('SELECT lower(accession_number) AS a FROM prints', { type: QueryTypes.SELECT, transaction: t }),
-    getCatalogueSettings(),
-  ]);
-  const loc = new Map<string, string>();
-  for (const l of locations) {
-    loc.set(l.pathLabel.toLowerCase(), l.id);
-    loc.set(l.pathLabel.toLowerCase().replace(/\s*›\s*/g, ' > '), l.id);
-    if (l.code) loc.set(l.code.toLowerCase(), l.id);
-  }
-  return {
-    makers: new Map(makers.map((m) => [m.name.toLowerCase(), m.id])),
-    papers: new Map(papers.map((p) => [paperLabel(p).toLowerCase(), p.id])),
-    locations: loc,
-    enclosures: new Map(enclosures.map((e) => [e.name.toLowerCase(), { id: e.id, name: e.name, alkalineBuffered: e.alkalineBuffered, patResult: e.patResult }])),
-    accessions: new Set(accessions.map((r) => r.a)),
-    pattern: settings.accessionPattern,
-  };
-}
-
-function readCsv(source: string): { header: string[]; rows: Row[] } {
-  const records = parse(source, { bom: true, skip_empty_lines: true, relax_column_count: false, trim: false }) as string[][];
-  if (!records.length) throw validationFailed([{ path: 'file', message: 'The file is empty', code: 'empty' }]);
-  const header = records[0].map((h) => h.trim().toLowerCase());
-  const unknown = header.filter((h) => !(IMPORT_COLUMNS as readonly string[]).includes(h));
-  const issues = [];
-  if (unknown.length) issues.push({ path: 'file', message: `Unknown columns: ${unknown.join(', ')}. Known: ${IMPORT_COLUMNS.join(', ')}`, code: 'columns' });
-  for (const need of ['accession_number', 'title', 'process']) if (!header.includes(need)) issues.push({ path: 'file', message: `The column ${need} is required`, code: 'columns' });
-  if (records.length - 1 > MAX_IMPORT_ROWS) issues.push({ path: 'file', message: `At most ${MAX_IMPORT_ROWS} rows per file`, code: 'too_many' });
-  if (issues.length) throw validationFailed(issues, 'The file cannot be imported.');
-  return { header, rows: records.slice(1).map((r) => Object.fromEntries(header.map((h, i) => [h, r[i] ?? '']))) };
-}
-
-export interface PreparedRow {
-  values: Record<string, unknown>;
-  makerName: string | null;
-  tonerClasses: string[];
-  locationId: string | null;
-}
-
-/** Checks one row; returns the values to insert or the row's issues. Row numbers count the header as row 1. */
-export function prepareRow(row: Row, rowNumber: number, l: Lookups, seen: Map<string, number>): { ok: PreparedRow | null; issues: Issue[] } {
-  const issues: Issue[] = [];
-  const add = (column: string, message: string) => issues.push({ row: rowNumber, column, value: row[column] ?? null, message });
-  const s = (k: string) => (row[k] ?? '').trim();
-
-  const accession = s('accession_number');
-  if (accession) {
-    const check = checkAccession(l.pattern, accession);
-    if (!check.ok) add('accession_number', check.message);
-    const key = accession.toLowerCase();
-    if (l.accessions.has(key)) add('accession_number', 'A print with this accession number is in the catalogue already');
-    else if (seen.has(key)) add('accession_number', `Repeats the accession number of row ${seen.get(key)}`);
-    else seen.set(key, rowNumber);
-  }
-  const pick = <T extends string>(col: string, list: { codes: readonly T[]; labels: Record<T, string> }) => {
-    const raw = s(col);
-    const v = raw ? vocab(list, raw) : null;
-    if (raw && v === undefined) add(col, `Not one of: ${list.codes.join(', ')}`);
-    return v ?? null;
-  };
-  const process = pick('process', PROCESS);
-  const support = pick('support', SUPPORT);
-  const status = pick('status', STATUS);
-  const light = pick('light_responsivity', LIGHT_RESPONSIVITY);
-  const toners: string[] = [];
-  for (const part of s('toner_classes').split(';').map((x) => x.trim()).filter(Boolean)) {
-    const v = vocab(TONER_CLASS, part);
-    if (v === undefined) add('toner_classes', `"${part}" is not one of: ${TONER_CLASS.codes.join(', ')}`);
-    else if (v && !toners.includes(v)) toners.push(v);
-  }
-  let paperId: string | null = null;
-  if (s('paper')) {
-    paperId = l.papers.get(s('paper').toLowerCase()) ?? null;
-    if (!paperId) add('paper', 'No paper with this name: add it under Papers first (manufacturer product, surface)');
-  }
-  let locationId: string | null = null;
-  if (s('location')) {
-    locationId = l.locations.get(s('location').toLowerCase()) ?? null;
-    if (!locationId) add('location', 'No place with this path or code: add it under Locations first');
-  }
-  let enclosure: Lookups['enclosures'] extends Map<string, infer V> ? V | null : never = null;
-  if (s('enclosure')) {
-    enclosure = l.enclosures.get(s('enclosure').toLowerCase()) ?? null;
-    if (!enclosure) add('enclosure', 'No enclosure type with this name');
-  }
-  let date = null;
-  try {
-    date = deriveDate(s('date_made') || null);
-  } catch (err) {
-    add('date_made', ((err as { details?: { message: string }[] }).details?.[0]?.message) ?? 'Not an EDTF date');
-  }
-  const candidate = {
-    accessionNumber: accession, title: s('title'), process: process ?? undefined, support, status: status ?? undefined,
-    lightResponsivity: light, inscriptions: s('inscriptions'), provenance: s('provenance'), creditLine: s('credit_line'), staffNotes: s('staff_notes'),
-    imageWidthMm: s('image_width_mm'), imageHeightMm: s('image_height_mm'), sheetWidthMm: s('sheet_width_mm'),
-    sheetHeightMm: s('sheet_height_mm'), mountWidthMm: s('mount_width_mm'), mountHeightMm: s('mount_height_mm'),
-  };
-  const parsed = printInputSchema.safeParse(candidate);
-  const columnOf: Record<string, string> = {
-    accessionNumber: 'accession_number', title: 'title', process: 'process', imageWidthMm: 'image_width_mm', imageHeightMm: 'image_height_mm',
-    sheetWidthMm: 'sheet_width_mm', sheetHeightMm: 'sheet_height_mm', mountWidthMm: 'mount_width_mm', mountHeightMm: 'mount_height_mm',
-    creditLine: 'credit_line', staffNotes: 'staff_notes',
-  };
-  if (!parsed.success) {
-    for (const i of parsed.error.issues) {
-      const col = columnOf[String(i.path[0])] ?? String(i.path[0]);
-      if (!issues.some((x) => x.column === col)) add(col, i.message);
-    }
-  }
-  if (issues.length || !parsed.success) return { ok: null, issues };
-  const v = parsed.data;
-  const steps = toners.map((tc) => ({ type: 'toning', tonerClass: tc, agent: null, alkaline: null }));
-  return {
-    ok: {
-      makerName: s('maker') || null,
-      tonerClasses: toners,
-      locationId,
-      values: {
-        ...v, accessionSort: accessionSortKey(v.accessionNumber), ...date, paperId, paperLabel: paperId ? s('paper') : null,
-        enclosureId: enclosure?.id ?? null, tonerClasses: toners,
-        warningCodes: warningsOf(v.process, steps, enclosure).map((w) => w.code), locationId,
-      },
-    },
-    issues: [],
-  };
-}
 
 async function progress(id: string, values: Record<string, unknown>) {
   // Outside any transaction, so a poller sees it while a commit is still open.
   await ImportJobModel.update(values, { where: { id } });
 }
 
+function readFiles(job: ImportJobModel): { prints: ReadFile; steps: ReadFile | null } {
+  return { prints: readCsv(job.source, 'prints'), steps: job.stepsSource ? readCsv(job.stepsSource, 'steps') : null };
+}
+
+const accessionsOf = (prints: ReadFile) => [...new Set(prints.rows.map((r) => (r.cells.accession_number ?? '').trim().toLowerCase()).filter(Boolean))];
+
+async function saveRows(id: string, plan: Plan) {
+  const BATCH = 1000;
+  for (let i = 0; i < plan.rows.length; i += BATCH) {
+    await db().getQueryInterface().bulkInsert(
+      'import_rows',
+      plan.rows.slice(i, i + BATCH).map((r) => ({ import_id: id, row: r.row, accession_number: r.accessionNumber, action: r.action, changes: JSON.stringify(r.changes) })),
+    );
+  }
+}
+
+function summary(plan: Plan): string {
+  const count = (action: string) => plan.rows.filter((r) => r.action === action).length;
+  const [create, update, same] = [count('create'), count('update'), count('unchanged')];
+  const parts = [`${create} new ${create === 1 ? 'print' : 'prints'}`, `${update} ${update === 1 ? 'update' : 'updates'}`];
+  if (same) parts.push(`${same} unchanged`);
+  return `Ready: ${parts.join(', ')}.`;
+}
+
 async function validateJob(id: string) {
   const job = await ImportJobModel.findByPk(id);
   if (!job) return;
   try {
-    const { rows } = readCsv(job.source);
-    await progress(id, { totalRows: rows.length });
-    const l = await lookups();
-    const seen = new Map<string, number>();
-    const errors: Issue[] = [];
-    let errorCount = 0;
-    const newMakers = new Set<string>();
-    for (let i = 0; i < rows.length; i++) {
-      const r = prepareRow(rows[i], i + 2, l, seen);
-      errorCount += r.issues.length;
-      for (const issue of r.issues) if (errors.length < MAX_REPORTED_ERRORS) errors.push(issue);
-      if (r.ok?.makerName && !l.makers.has(r.ok.makerName.toLowerCase())) newMakers.add(r.ok.makerName);
-      if ((i + 1) % PROGRESS_EVERY === 0) {
-        await progress(id, { processedRows: i + 1 });
-        await new Promise((resolve) => setImmediate(resolve));
-      }
-    }
+    const files = readFiles(job);
+    await progress(id, { totalRows: files.prints.rows.length, stepRows: files.steps?.rows.length ?? 0 });
+    const [lookups, existing] = await Promise.all([loadLookups(), loadExisting(accessionsOf(files.prints))]);
+    const plan = checkImport(files.prints, files.steps, lookups, existing);
+    const errorCount = plan.issues.length;
+    const counts = {
+      toCreate: plan.rows.filter((r) => r.action === 'create').length,
+      toUpdate: plan.rows.filter((r) => r.action === 'update').length,
+      unchangedRows: plan.rows.filter((r) => r.action === 'unchanged').length,
+    };
+    if (!errorCount) await saveRows(id, plan);
     await progress(id, {
-      processedRows: rows.length, errors, errorCount, newMakers: [...newMakers].sort(), status: errorCount ? 'invalid' : 'ready',
-      message: errorCount ? `${errorCount} problem(s) in the file. Nothing was written.` : `${rows.length} prints are ready to import.`,
+      processedRows: files.prints.rows.length, errors: plan.issues.slice(0, MAX_REPORTED_ERRORS), errorCount, newMakers: plan.newMakers,
+      ignoredColumns: plan.ignoredColumns, planHash: plan.hash, ...counts, status: errorCount ? 'invalid' : 'ready',
+      message: errorCount ? `${errorCount} problem(s) in the files. Nothing was written.` : summary(plan),
       finishedAt: errorCount ? new Date() : null,
     });
   } catch (err) {
@@ -213,53 +80,24 @@ async function validateJob(id: string) {
   }
 }
 
-async function commitJob(id: string, actor: AuditActor, requestId: string | null) {
+async function commitJob(id: string, mode: ImportMode, actor: AuditActor, requestId: string | null) {
   const job = await ImportJobModel.findByPk(id);
   if (!job) return;
   try {
-    const created = await db().transaction(async (t) => {
+    const done = await db().transaction(async (t) => {
       // One import at a time, and no two commits of the same file.
       await db().query('SELECT pg_advisory_xact_lock(727003)', { transaction: t });
-      const { rows } = readCsv(job.source);
-      const l = await lookups(t);
-      const seen = new Map<string, number>();
-      const prepared: PreparedRow[] = [];
-      for (let i = 0; i < rows.length; i++) {
-        const r = prepareRow(rows[i], i + 2, l, seen);
-        if (!r.ok) throw new Error(`Row ${i + 2} no longer passes its checks (${r.issues[0]?.message}). Validate the file again.`);
-        prepared.push(r.ok);
-      }
-      for (const name of new Set(prepared.map((p) => p.makerName).filter(Boolean) as string[])) {
-        if (!l.makers.has(name.toLowerCase())) {
-          const m = await Maker.create({ name, lifeDates: null, notes: null }, { transaction: t });
-          l.makers.set(name.toLowerCase(), m.id);
-          await recordAudit({ actor, action: 'maker.created', entityType: 'maker', entityId: m.id, after: { name, via: `import ${id}` }, requestId }, t);
-        }
-      }
-      const BATCH = 1000;
-      for (let i = 0; i < prepared.length; i += BATCH) {
-        const batch = prepared.slice(i, i + BATCH);
-        const inserted = await Print.bulkCreate(
-          batch.map((p) => ({ ...(p.values as Record<string, unknown>), makerId: p.makerName ? l.makers.get(p.makerName.toLowerCase()) : null, makerName: p.makerName }) as never),
-          { transaction: t, returning: true },
-        );
-        const steps = inserted.flatMap((row, k) => batch[k].tonerClasses.map((tc, n) => ({ print_id: row.id, position: n + 1, type: 'toning', toner_class: tc, notes: 'Toner class from CSV import' })));
-        if (steps.length) await db().getQueryInterface().bulkInsert('process_steps', steps, { transaction: t });
-        const moves = inserted.flatMap((row, k) => (batch[k].locationId ? [{ print_id: row.id, to_location_id: batch[k].locationId, moved_by: actor.id, moved_by_name: actor.name, reason: `Placed by CSV import ${job.fileName}` }] : []));
-        if (moves.length) await db().getQueryInterface().bulkInsert('movements', moves, { transaction: t });
-        await db().getQueryInterface().bulkInsert(
-          'audit_events',
-          inserted.map((row, k) => ({
-            actor_id: actor.id, actor_name: actor.name, action: 'print.imported', entity_type: 'print', entity_id: row.id,
-            after: JSON.stringify({ ...batch[k].values, maker: batch[k].makerName, importId: id }), request_id: requestId,
-          })),
-          { transaction: t },
-        );
-        await progress(id, { processedRows: Math.min(i + BATCH, prepared.length) });
-      }
-      return prepared.length;
+      const files = readFiles(job);
+      const [lookups, existing] = await Promise.all([loadLookups(t), loadExisting(accessionsOf(files.prints), t, true)]);
+      const plan = checkImport(files.prints, files.steps, lookups, existing);
+      const first = plan.issues[0];
+      if (first) throw new Error(`Row ${first.row} of the ${first.file} file no longer passes its checks (${first.message}). Check the file again.`);
+      if (plan.hash !== job.planHash) throw new Error('The catalogue has changed since the file was checked. Upload the file again to see what it would do now.');
+      if (mode === 'create_only' && plan.rows.some((r) => r.action !== 'create')) throw new Error('Some rows match prints already in the catalogue.');
+      return writePlan(plan, { importId: id, fileName: job.fileName, actor, requestId, progress: (n) => progress(id, { processedRows: n }) }, t);
     });
-    await progress(id, { status: 'committed', createdPrints: created, message: `${created} prints imported.`, finishedAt: new Date() });
+    const message = `${done.created} ${done.created === 1 ? 'print' : 'prints'} created, ${done.updated} updated.`;
+    await progress(id, { status: 'committed', createdPrints: done.created, updatedPrints: done.updated, message, finishedAt: new Date() });
   } catch (err) {
     await progress(id, { status: 'failed', message: `Nothing was imported: ${(err as Error).message}`, finishedAt: new Date() });
   }
@@ -275,14 +113,22 @@ export async function settleImports(): Promise<void> {
   await Promise.all([...running]);
 }
 
-export async function startImport(fileName: string, source: string, actor: AuditActor) {
-  const job = await ImportJobModel.create({ fileName, source, status: 'validating', createdBy: actor.id, message: null, finishedAt: null });
+export interface ImportFiles {
+  prints: { name: string; text: string };
+  steps: { name: string; text: string } | null;
+}
+
+export async function startImport(files: ImportFiles, actor: AuditActor) {
+  const job = await ImportJobModel.create({
+    fileName: files.prints.name, source: files.prints.text, stepsFileName: files.steps?.name ?? null, stepsSource: files.steps?.text ?? null,
+    status: 'validating', createdBy: actor.id, message: null, finishedAt: null,
+  });
   background(validateJob(job.id));
   return presentImport(job);
 }
 
 async function findImport(id: string) {
-  const job = await ImportJobModel.findByPk(id, { attributes: { exclude: ['source'] } });
+  const job = await ImportJobModel.findByPk(id, { attributes: { exclude: ['source', 'stepsSource'] } });
   if (!job) throw notFound('The import');
   return job;
 }
@@ -291,13 +137,37 @@ export async function getImport(id: string) {
   return presentImport(await findImport(id));
 }
 
-export async function commitImport(id: string, actor: AuditActor, requestId: string | null) {
-  const [n] = await ImportJobModel.update({ status: 'committing', processedRows: 0 }, { where: { id, status: 'ready' } });
-  if (n === 0) {
-    const job = await getImport(id);
-    throw conflict(`This import is ${job.status}; only a validated file that is ready can be imported.`);
+/** A page of what the checked file's rows would do, in file order (optionally only creates, updates or unchanged rows). */
+export async function listImportRows(id: string, query: ImportRowsQuery): Promise<{ rows: ImportRow[]; total: number }> {
+  await findImport(id);
+  const filter = query.action ? 'AND action = $2' : '';
+  const bind = query.action ? [id, query.action] : [id];
+  const [rows, [{ n }]] = await Promise.all([
+    db().query<{ row: number; accession_number: string; action: ImportRow['action']; changes: ImportRow['changes'] }>(
+      `SELECT row, accession_number, action, changes FROM import_rows WHERE import_id = $1 ${filter} ORDER BY row LIMIT ${query.pageSize} OFFSET ${(query.page - 1) * query.pageSize}`,
+      { bind, type: QueryTypes.SELECT },
+    ),
+    db().query<{ n: number }>(`SELECT count(*)::int AS n FROM import_rows WHERE import_id = $1 ${filter}`, { bind, type: QueryTypes.SELECT }),
+  ]);
+  return { rows: rows.map((r) => ({ row: r.row, accessionNumber: r.accession_number, action: r.action, changes: r.changes })), total: n };
+}
+
+/**
+ * Starts writing a checked file. `create_only` refuses a file with rows that match prints already
+ * in the catalogue (409, nothing written); `create_or_update` updates them.
+ */
+export async function commitImport(id: string, mode: ImportMode, actor: AuditActor, requestId: string | null) {
+  const job = await findImport(id);
+  if (job.status === 'ready' && mode === 'create_only' && job.toUpdate + job.unchangedRows > 0) {
+    const n = job.toUpdate + job.unchangedRows;
+    throw conflict(`${n} ${n === 1 ? 'row matches a print' : 'rows match prints'} already in the catalogue. Choose "create or update", or take ${n === 1 ? 'it' : 'them'} out of the file.`);
   }
-  background(commitJob(id, actor, requestId));
+  const [n] = await ImportJobModel.update({ status: 'committing', processedRows: 0, mode }, { where: { id, status: 'ready' } });
+  if (n === 0) {
+    const now = await getImport(id);
+    throw conflict(`This import is ${now.status}; only a checked file that is ready can be imported.`);
+  }
+  background(commitJob(id, mode, actor, requestId));
   return getImport(id);
 }
 

@@ -3,53 +3,62 @@ import { stringify } from 'csv-stringify/sync';
 import type { Writable } from 'node:stream';
 import type { PrintListQuery } from '@toneledger/common/schemas/catalogue';
 import { can, type Role } from '@toneledger/common/domain/roles';
+import { mayRead } from '@toneledger/common/fields/field';
+import { PRINT_FIELDS } from '@toneledger/common/fields/print';
+import { STEP_FIELDS } from '@toneledger/common/fields/step';
 import { db } from '../db';
 import { buildListSql, listMovements, loadPrint, printHistory } from './print.service';
 import { presentPrint } from '../presenters/catalogue.presenter';
-
-/** Export columns: the import columns (so an export can be read back in) plus the record id and warnings. */
-const PUBLIC_COLUMNS = [
-  'accession_number', 'title', 'maker', 'date_made', 'process', 'support', 'paper', 'status', 'enclosure', 'light_responsivity',
-  'image_width_mm', 'image_height_mm', 'sheet_width_mm', 'sheet_height_mm', 'mount_width_mm', 'mount_height_mm',
-  'inscriptions', 'provenance', 'credit_line', 'toner_classes', 'warnings', 'id', 'updated_at',
-] as const;
-const RESTRICTED_COLUMNS = ['location', 'staff_notes'] as const;
+import { PRINT_ROWS_SQL, STEP_ROWS_SQL, cellInRow, type DbRow } from './print-csv';
 
 const CHUNK = 2000;
 
-/** Writes the filtered list as CSV (RFC 4180, UTF-8), page by page so memory stays flat. */
-export async function writePrintsCsv(query: PrintListQuery, role: Role | null, out: Writable): Promise<number> {
-  const restricted = can(role, 'catalogue.read_restricted');
-  const columns = restricted ? [...PUBLIC_COLUMNS.slice(0, 8), 'location', ...PUBLIC_COLUMNS.slice(8, 19), 'staff_notes', ...PUBLIC_COLUMNS.slice(19)] : [...PUBLIC_COLUMNS];
-  out.write(stringify([columns]));
-  let written = 0;
+/** The ids of the filtered list, in its order, a chunk at a time. */
+async function* listedIds(query: PrintListQuery, role: Role | null): AsyncGenerator<string[]> {
   for (let page = 1; ; page++) {
     const sql = buildListSql({ ...query, page, pageSize: CHUNK }, role);
-    const ids = await db().query<{ id: string }>(sql.select, { bind: sql.params, type: QueryTypes.SELECT });
-    if (!ids.length) break;
-    const rows = await db().query<Record<string, unknown>>(
-      `SELECT p.*, e.name AS enclosure_name, l.path_label AS location_label
-         FROM prints p LEFT JOIN enclosure_types e ON e.id = p.enclosure_id LEFT JOIN locations l ON l.id = p.location_id
-        WHERE p.id = ANY($1)`,
-      { bind: [ids.map((r) => r.id)], type: QueryTypes.SELECT },
-    );
+    const ids = (await db().query<{ id: string }>(sql.select, { bind: sql.params, type: QueryTypes.SELECT })).map((r) => r.id);
+    if (!ids.length) return;
+    yield ids;
+    if (ids.length < CHUNK) return;
+  }
+}
+
+async function write(out: Writable, rows: string[][]) {
+  if (!out.write(stringify(rows))) await new Promise((resolve) => out.once('drain', resolve));
+}
+
+/**
+ * Writes the filtered list as CSV (RFC 4180, UTF-8), page by page so memory stays flat: one column
+ * per print field the role may read (fields/print.ts), in table order. Computed and system columns
+ * (toner classes, warnings, id, last changed) come last; an import reads the same file and ignores them.
+ */
+export async function writePrintsCsv(query: PrintListQuery, role: Role | null, out: Writable): Promise<number> {
+  const fields = PRINT_FIELDS.filter((f) => mayRead(role, f));
+  out.write(stringify([fields.map((f) => f.column)]));
+  let written = 0;
+  for await (const ids of listedIds(query, role)) {
+    const rows = await db().query<DbRow>(`${PRINT_ROWS_SQL} WHERE p.id = ANY($1)`, { bind: [ids], type: QueryTypes.SELECT });
     const byId = new Map(rows.map((r) => [r.id as string, r]));
-    const records = ids.map(({ id }) => {
-      const r = byId.get(id)!;
-      const value: Record<string, unknown> = {
-        accession_number: r.accession_number, title: r.title, maker: r.maker_name, date_made: r.date_made, process: r.process,
-        support: r.support, paper: r.paper_label, status: r.status, location: r.location_label, enclosure: r.enclosure_name,
-        light_responsivity: r.light_responsivity, image_width_mm: r.image_width_mm, image_height_mm: r.image_height_mm,
-        sheet_width_mm: r.sheet_width_mm, sheet_height_mm: r.sheet_height_mm, mount_width_mm: r.mount_width_mm, mount_height_mm: r.mount_height_mm,
-        inscriptions: r.inscriptions, provenance: r.provenance, credit_line: r.credit_line, staff_notes: r.staff_notes,
-        toner_classes: (r.toner_classes as string[]).join(';'), warnings: (r.warning_codes as string[]).join(';'), id: r.id,
-        updated_at: new Date(r.updated_at as string).toISOString(),
-      };
-      return columns.map((c) => value[c] ?? '');
-    });
-    if (!out.write(stringify(records))) await new Promise((resolve) => out.once('drain', resolve));
-    written += records.length;
-    if (ids.length < CHUNK) break;
+    await write(out, ids.map((id) => fields.map((f) => cellInRow(f, byId.get(id)!))));
+    written += ids.length;
+  }
+  return written;
+}
+
+/**
+ * Writes the process histories of the filtered list as CSV: one row per step, keyed by the print's
+ * accession number and the step's place (fields/step.ts), prints in the list's order.
+ */
+export async function writeStepsCsv(query: PrintListQuery, role: Role | null, out: Writable): Promise<number> {
+  out.write(stringify([STEP_FIELDS.map((f) => f.column)]));
+  let written = 0;
+  for await (const ids of listedIds(query, role)) {
+    const rows = await db().query<DbRow>(`${STEP_ROWS_SQL} WHERE s.print_id = ANY($1)`, { bind: [ids], type: QueryTypes.SELECT });
+    const order = new Map(ids.map((id, i) => [id, i]));
+    rows.sort((a, b) => order.get(a.print_id as string)! - order.get(b.print_id as string)! || (a.position as number) - (b.position as number));
+    await write(out, rows.map((r) => STEP_FIELDS.map((f) => cellInRow(f, r))));
+    written += rows.length;
   }
   return written;
 }

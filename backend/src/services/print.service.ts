@@ -34,7 +34,7 @@ export async function loadPrint(id: string, transaction?: Transaction): Promise<
 }
 
 /** What the audit trail keeps of a print: every field a person entered, as the API shows it. */
-function snapshot(p: LoadedPrint) {
+export function snapshot(p: LoadedPrint) {
   const { warnings: _w, steps: _s, createdAt: _c, updatedAt: _u, tonerClasses: _t, version: _v, ...rest } = presentPrint(p, 'admin');
   return rest as Record<string, unknown>;
 }
@@ -74,7 +74,7 @@ async function derived(values: Partial<PrintInput>, t: Transaction) {
   return out;
 }
 
-async function storeWarnings(p: LoadedPrint, t: Transaction) {
+export async function storeWarnings(p: LoadedPrint, t: Transaction) {
   const steps = p.steps ?? [];
   const enclosure = p.enclosure ?? null;
   const codes = warningsOf(p.process, steps, enclosure).map((w) => w.code);
@@ -158,7 +158,7 @@ export async function deletePrint(id: string, version: number, actor: Actor, req
   });
 }
 
-function stepRow(printId: string, position: number, s: ProcessStepInput) {
+export function stepRow(printId: string, position: number, s: ProcessStepInput) {
   return {
     printId, position, type: s.type, agent: s.agent ?? null, tonerClass: s.tonerClass ?? null, recipeId: s.recipeId ?? null,
     dilution: s.dilution ?? null, timeSeconds: s.timeSeconds ?? null, temperatureC: s.temperatureC ?? null, extent: s.extent ?? null,

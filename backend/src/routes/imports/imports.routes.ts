@@ -1,24 +1,36 @@
 import { importsApi } from '@toneledger/common/api/imports';
-import { IMPORT_COLUMNS } from '@toneledger/common/schemas/catalogue';
 import { implement, type RouteDef } from '../../http/route';
-import { singleUpload, uploadedText } from '../../middleware/single-upload';
-import { MAX_IMPORT_BYTES, commitImport, getImport, startImport } from '../../services/import.service';
+import { fileUploads, uploadedText, uploadedTextOf } from '../../middleware/single-upload';
+import { templateCsv } from '../../services/import-csv';
+import { MAX_IMPORT_BYTES, commitImport, getImport, listImportRows, startImport } from '../../services/import.service';
+
+const SAVE_AS = 'Save the spreadsheet as "CSV UTF-8".';
 
 export function importsRoutes(): RouteDef[] {
   return implement(importsApi, {
-    template: ({ res }) => {
+    template: ({ query, res }) => {
       res.setHeader('Content-Type', 'text/csv; charset=utf-8');
-      res.setHeader('Content-Disposition', 'attachment; filename="prints-import-template.csv"');
-      res.send(`${IMPORT_COLUMNS.join(',')}\r\n`);
+      res.setHeader('Content-Disposition', `attachment; filename="${query.file}-import-template.csv"`);
+      res.send(templateCsv(query.file));
     },
     start: {
-      before: [singleUpload('file', MAX_IMPORT_BYTES)],
+      before: [fileUploads(['file', 'steps'], MAX_IMPORT_BYTES)],
       handler: async ({ req, actor }) => {
-        const { name, text } = uploadedText(req, 'Save the spreadsheet as "CSV UTF-8".');
-        return { data: await startImport(name || 'upload.csv', text, actor) };
+        const prints = uploadedText(req, SAVE_AS);
+        const steps = uploadedTextOf(req, 'steps', SAVE_AS);
+        return {
+          data: await startImport(
+            { prints: { name: prints.name || 'prints.csv', text: prints.text }, steps: steps ? { name: steps.name || 'steps.csv', text: steps.text } : null },
+            actor,
+          ),
+        };
       },
     },
     get: async ({ params }) => ({ data: await getImport(params.id) }),
-    commit: async ({ params, actor, requestId }) => ({ data: await commitImport(params.id, actor, requestId) }),
+    rows: async ({ params, query }) => {
+      const { rows, total } = await listImportRows(params.id, query);
+      return { data: rows, pagination: { page: query.page, pageSize: query.pageSize, total } };
+    },
+    commit: async ({ params, body, actor, requestId }) => ({ data: await commitImport(params.id, body.mode, actor, requestId) }),
   });
 }

@@ -1,5 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import supertest from 'supertest';
+import { parse } from 'csv-parse/sync';
+import { ENTERED_PRINT_FIELDS } from '@toneledger/common/fields/print';
 import { testApp, sessionFor } from '../../../test/app';
 import { createEnclosure, createLocation, createPaper } from '../../../test/factories';
 import { Maker, Print } from '../../models';
@@ -101,8 +103,53 @@ describe('CSV import of prints', () => {
     expect(binary.status).toBe(415);
   });
 
-  it('the template lists the import columns', async () => {
+  it('the template has a note on every column (type, codes, default, who may read it), the header and an example row; file=steps gives the steps template', async () => {
     const res = await supertest(t.app).get('/api/imports/template.csv').set('Cookie', registrar);
-    expect(res.text.trim().split(',')).toContain('accession_number');
+    expect(res.status).toBe(200);
+    expect(res.headers['content-disposition']).toMatch(/prints-import-template\.csv/);
+    const records = parse(res.text, { relax_column_count: true }) as string[][];
+    const notes = records.filter((r) => r[0].startsWith('#')).map((r) => r[0]);
+    const [header, example] = records.filter((r) => !r[0].startsWith('#'));
+    const entered = ENTERED_PRINT_FIELDS.map((f) => f.column);
+    expect(header).toEqual(entered);
+    expect(example).toHaveLength(entered.length);
+    expect(example[header.indexOf('process')]).toBe('gelatin_silver_developing_out');
+    for (const column of entered) expect(notes.some((n) => n.startsWith(`# ${column}:`)), column).toBe(true);
+    expect(notes.find((n) => n.startsWith('# process:'))).toContain('cyanotype | albumen');
+    expect(notes.find((n) => n.startsWith('# status:'))).toContain('Empty: in_store.');
+    expect(notes.find((n) => n.startsWith('# staff_notes:'))).toMatch(/Read only by: Administrator \| Registrar \| Conservator \| Researcher\./);
+
+    const steps = await supertest(t.app).get('/api/imports/template.csv?file=steps').set('Cookie', registrar);
+    const stepRecords = (parse(steps.text, { relax_column_count: true }) as string[][]).filter((r) => !r[0].startsWith('#'));
+    expect(stepRecords[0].slice(0, 3)).toEqual(['accession_number', 'step', 'type']);
+    expect(stepRecords[1].slice(0, 3)).toEqual(['1987.14.3', '1', 'toning']);
+
+    expect((await supertest(t.app).get('/api/imports/template.csv?file=colours').set('Cookie', registrar)).status).toBe(400);
+    expect((await supertest(t.app).get('/api/imports/template.csv').set('Cookie', researcher)).status).toBe(403);
+  });
+
+  it('the template, filled in, imports: notes above the header are skipped', async () => {
+    const template = (await supertest(t.app).get('/api/imports/template.csv').set('Cookie', registrar)).text;
+    const records = parse(template, { relax_column_count: true }) as string[][];
+    const header = records.find((r) => !r[0].startsWith('#'))!;
+    const notes = template.split('\r\n').filter((line) => line.startsWith('#') || line.startsWith('"#'));
+    const b = base();
+    const row = header.map((c) => (c === 'accession_number' ? `${b}.1` : c === 'title' ? 'From the template' : ''));
+    const res = await upload([...notes, header.join(','), row.join(',')].join('\r\n'));
+    const job = await finished(res.body.data.id);
+    expect(job.errors).toEqual([]);
+    expect(job).toMatchObject({ status: 'ready', totalRows: 1, toCreate: 1 });
+  });
+
+  it('accession number and title alone import: every other field takes its default', async () => {
+    const b = base();
+    const res = await upload(`accession_number,title\n${b}.1,Only the essentials\n`);
+    const job = await finished(res.body.data.id);
+    expect(job.errors).toEqual([]);
+    const commit = await supertest(t.app).post(`/api/imports/${job.id}/commit`).set('Cookie', registrar).set('Origin', t.origin).send({ mode: 'create_only' });
+    expect(commit.status).toBe(202);
+    expect(await finished(job.id)).toMatchObject({ status: 'committed', createdPrints: 1 });
+    const p = await Print.findOne({ where: { accessionNumber: `${b}.1` } });
+    expect(p).toMatchObject({ title: 'Only the essentials', process: 'gelatin_silver_developing_out', status: 'in_store', makerId: null, locationId: null });
   });
 });

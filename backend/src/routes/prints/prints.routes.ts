@@ -3,7 +3,7 @@ import { implement, type RouteDef } from '../../http/route';
 import {
   createPrint, deletePrint, getPrint, listMovements, listPrints, movePrint, printHistory, replaceSteps, updatePrint,
 } from '../../services/print.service';
-import { printJson, writePrintsCsv } from '../../services/print-export.service';
+import { printJson, writePrintsCsv, writeStepsCsv } from '../../services/print-export.service';
 import { printTimeline } from '../../services/timeline.service';
 
 export function printsRoutes(): RouteDef[] {
@@ -16,6 +16,12 @@ export function printsRoutes(): RouteDef[] {
       res.setHeader('Content-Type', 'text/csv; charset=utf-8');
       res.setHeader('Content-Disposition', `attachment; filename="prints-${new Date().toISOString().slice(0, 10)}.csv"`);
       await writePrintsCsv(query, actor.role, res);
+      res.end();
+    },
+    exportStepsCsv: async ({ query, actor, res }) => {
+      res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+      res.setHeader('Content-Disposition', `attachment; filename="prints-steps-${new Date().toISOString().slice(0, 10)}.csv"`);
+      await writeStepsCsv(query, actor.role, res);
       res.end();
     },
     create: async ({ body, actor, requestId }) => ({ data: await createPrint(body, actor, requestId) }),
