@@ -26,17 +26,23 @@ describe('catalogue area', () => {
   it('opens the print list with the sub-navigation a registrar may use', async () => {
     signedIn('registrar', '/catalogue');
     expect(await screen.findByRole('heading', { level: 1, name: 'Prints' })).toBeTruthy();
-    expect(await sections()).toEqual(['Prints', 'Import', 'Makers', 'Papers', 'Bath recipes', 'Locations', 'Enclosures']);
+    expect(await sections()).toEqual(['Prints', 'Import', 'Makers', 'Papers', 'Bath recipes', 'Locations', 'Enclosures', 'Data dictionary']);
   });
 
   it('shows an administrator the settings as well', async () => {
     signedIn('admin', '/catalogue');
-    expect(await sections()).toEqual(['Prints', 'Import', 'Makers', 'Papers', 'Bath recipes', 'Locations', 'Enclosures', 'Settings']);
+    expect(await sections()).toEqual(['Prints', 'Import', 'Makers', 'Papers', 'Bath recipes', 'Locations', 'Enclosures', 'Data dictionary', 'Settings']);
   });
 
   it('gives a viewer neither Import nor Locations', async () => {
     signedIn('viewer', '/catalogue');
-    expect(await sections()).toEqual(['Prints', 'Makers', 'Papers', 'Bath recipes', 'Enclosures']);
+    expect(await sections()).toEqual(['Prints', 'Makers', 'Papers', 'Bath recipes', 'Enclosures', 'Data dictionary']);
+  });
+
+  it('opens the data dictionary to a viewer, without asking the server for anything', async () => {
+    const { requests } = signedIn('viewer', '/catalogue/fields');
+    expect(await screen.findByRole('heading', { level: 1, name: 'Data dictionary' })).toBeTruthy();
+    expect(requests.map((r) => r.path)).toEqual(['/api/me']);
   });
 
   it.each([

@@ -95,6 +95,7 @@ function catalogueRoute(area: Area): RouteObject {
           what: 'Importing prints',
         }),
       },
+      { path: 'fields', lazy: page(() => import('@/features/catalogue/routes/fields-page').then((m) => m.FieldsPage)) },
       { path: 'makers', lazy: page(() => import('@/features/reference/routes/makers-page').then((m) => m.MakersPage)) },
       { path: 'papers', lazy: page(() => import('@/features/reference/routes/papers-page').then((m) => m.PapersPage)) },
       { path: 'recipes', lazy: page(() => import('@/features/reference/routes/recipes-page').then((m) => m.RecipesPage)) },

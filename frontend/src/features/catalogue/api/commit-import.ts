@@ -1,10 +1,12 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { importsApi } from '@toneledger/common/api/imports';
+import type { ImportMode } from '@toneledger/common/schemas/catalogue';
 import { callData } from '@/lib/api-client';
 import { importKeys } from '@/features/catalogue/api/keys';
 
-export function commitImport(id: string) {
-  return callData(importsApi.commit, { params: { id }, body: {} });
+/** Writes a checked file: `create_only` refuses rows that match prints in the catalogue, `create_or_update` updates them. */
+export function commitImport({ id, mode }: { id: string; mode: ImportMode }) {
+  return callData(importsApi.commit, { params: { id }, body: { mode } });
 }
 
 export function useCommitImport() {

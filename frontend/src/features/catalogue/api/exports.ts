@@ -8,13 +8,24 @@ export function printJsonHref(id: string): string {
   return urlOf(printsApi.exportJson, { params: { id } });
 }
 
-/** Download address of the whole filtered list as CSV: the list's filters and sort, without paging. */
-export function printsCsvHref(query: PrintListQuery): string {
+function withoutPaging(query: PrintListQuery): Partial<PrintListQuery> {
   const filters: Partial<PrintListQuery> = { ...query };
   delete filters.page;
   delete filters.pageSize;
-  return urlOf(printsApi.exportCsv, { query: filters });
+  return filters;
 }
 
-/** A header-only CSV with the import columns. */
-export const IMPORT_TEMPLATE_HREF = urlOf(importsApi.template);
+/** Download address of the whole filtered list as CSV: the list's filters and sort, without paging. */
+export function printsCsvHref(query: PrintListQuery): string {
+  return urlOf(printsApi.exportCsv, { query: withoutPaging(query) });
+}
+
+/** Download address of the process histories of the filtered list as CSV, one row per step. */
+export function stepsCsvHref(query: PrintListQuery): string {
+  return urlOf(printsApi.exportStepsCsv, { query: withoutPaging(query) });
+}
+
+/** The import templates: notes on every column, the header and an example row. */
+export function importTemplateHref(file: 'prints' | 'steps'): string {
+  return urlOf(importsApi.template, { query: { file } });
+}

@@ -18,6 +18,7 @@ export const CATALOGUE_SECTIONS: Item[] = [
   { to: '/catalogue/recipes', label: 'Bath recipes' },
   { to: '/catalogue/locations', label: 'Locations', permission: 'catalogue.read_restricted' },
   { to: '/catalogue/enclosures', label: 'Enclosures' },
+  { to: '/catalogue/fields', label: 'Data dictionary' },
   { to: '/catalogue/settings', label: 'Settings', permission: 'settings.manage' },
 ];
 

@@ -4,56 +4,86 @@ import { Button } from '@/components/ui/button';
 import { ErrorNotice } from '@/components/ui/notice';
 import { useCreateImport } from '@/features/catalogue/api/create-import';
 
-/** Choose a CSV file and send it to be checked. Nothing is written until the check has passed and the import is confirmed. */
+interface FileInputProps {
+  label: string;
+  hint: string;
+  problem: string | null;
+  onChange: (file: File | null) => void;
+}
+
+function FileInput({ label, hint, problem, onChange }: FileInputProps) {
+  const id = useId();
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor={id} className="text-xs font-semibold tracking-wide text-ink-700 uppercase">
+        {label}
+      </label>
+      <p id={`${id}-hint`} className="text-xs text-ink-700">
+        {hint}
+      </p>
+      <input
+        id={id}
+        type="file"
+        accept=".csv,text/csv"
+        aria-invalid={problem ? true : undefined}
+        aria-describedby={problem ? `${id}-hint ${id}-error` : `${id}-hint`}
+        onChange={(event) => onChange(event.target.files?.[0] ?? null)}
+        className="text-sm file:mr-3 file:h-9 file:rounded file:border file:border-paper-400 file:bg-white file:px-3 file:text-sm file:font-medium"
+      />
+      {problem ? (
+        <p id={`${id}-error`} className="text-xs font-medium text-danger-700">
+          {problem}
+        </p>
+      ) : null}
+    </div>
+  );
+}
+
+const notCsv = (file: File | null) => (file && !/\.csv$/i.test(file.name) ? `“${file.name}” is not a .csv file.` : null);
+
+/**
+ * Choose the prints file (and, if the process histories come too, the steps file) and send them to
+ * be checked. Nothing is written until the check has passed and the import is confirmed.
+ */
 export function ImportUploadForm({ onStarted }: { onStarted: (job: ImportJob) => void }) {
-  const [file, setFile] = useState<File | null>(null);
-  const [problem, setProblem] = useState<string | null>(null);
+  const [prints, setPrints] = useState<File | null>(null);
+  const [steps, setSteps] = useState<File | null>(null);
+  const [problems, setProblems] = useState<{ prints: string | null; steps: string | null }>({ prints: null, steps: null });
   const upload = useCreateImport();
-  const inputId = useId();
 
   function submit(event: FormEvent) {
     event.preventDefault();
     upload.reset();
-    if (!file) {
-      setProblem('Choose a CSV file first.');
-      return;
-    }
-    if (!/\.csv$/i.test(file.name)) {
-      setProblem(`“${file.name}” is not a .csv file.`);
-      return;
-    }
-    setProblem(null);
-    upload.mutate(file, { onSuccess: onStarted });
+    const found = { prints: prints ? notCsv(prints) : 'Choose the CSV file of prints first.', steps: notCsv(steps) };
+    setProblems(found);
+    if (found.prints || found.steps || !prints) return;
+    upload.mutate({ prints, steps }, { onSuccess: onStarted });
   }
 
   return (
-    <form onSubmit={submit} aria-label="Upload a CSV file" className="flex flex-col gap-3 rounded border border-paper-300 bg-white p-4" noValidate>
-      <div className="flex flex-col gap-1">
-        <label htmlFor={inputId} className="text-xs font-semibold tracking-wide text-ink-700 uppercase">
-          CSV file
-        </label>
-        <input
-          id={inputId}
-          type="file"
-          accept=".csv,text/csv"
-          aria-invalid={problem ? true : undefined}
-          aria-describedby={problem ? `${inputId}-error` : undefined}
-          onChange={(event) => {
-            setFile(event.target.files?.[0] ?? null);
-            setProblem(null);
-          }}
-          className="text-sm file:mr-3 file:h-9 file:rounded file:border file:border-paper-400 file:bg-white file:px-3 file:text-sm file:font-medium"
-        />
-        {problem ? (
-          <p id={`${inputId}-error`} className="text-xs font-medium text-danger-700">
-            {problem}
-          </p>
-        ) : null}
-      </div>
-      {upload.isError ? <ErrorNotice error={upload.error} title="The file was not accepted." /> : null}
+    <form onSubmit={submit} aria-label="Upload CSV files" className="flex flex-col gap-4 rounded border border-paper-300 bg-white p-4" noValidate>
+      <FileInput
+        label="Prints (CSV)"
+        hint="One row per print. A row whose accession number is already in the catalogue can update that print; you choose before anything is written."
+        problem={problems.prints}
+        onChange={(file) => {
+          setPrints(file);
+          setProblems((p) => ({ ...p, prints: null }));
+        }}
+      />
+      <FileInput
+        label="Process steps (CSV, optional)"
+        hint="One row per step, by accession number and step number. A print with rows here gets exactly these steps; a print without keeps its history."
+        problem={problems.steps}
+        onChange={(file) => {
+          setSteps(file);
+          setProblems((p) => ({ ...p, steps: null }));
+        }}
+      />
+      {upload.isError ? <ErrorNotice error={upload.error} title="The files were not accepted." /> : null}
       <div>
         <Button type="submit" variant="primary" disabled={upload.isPending}>
-          {upload.isPending ? 'Uploading…' : 'Import'}
+          {upload.isPending ? 'Uploading…' : 'Check the files'}
         </Button>
       </div>
     </form>
