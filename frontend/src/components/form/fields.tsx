@@ -18,32 +18,35 @@ interface Common {
 
 type Native<T> = Omit<T, 'name' | 'value' | 'defaultValue' | 'onChange' | 'onBlur' | 'id' | 'form'>;
 
+/** What every bound control takes from the form: its id, name, value, error and the contract's limits. */
+function useBound(name: string, label: string, given: { id?: string; hint?: string; fieldClassName?: string; liveError?: string }) {
+  const setup = useFieldSetup(name);
+  const { field, fieldState } = useController({ name });
+  return {
+    limits: setup.limits,
+    onChange: field.onChange,
+    props: {
+      id: given.id ?? setup.id,
+      label,
+      hint: given.hint,
+      fieldClassName: given.fieldClassName,
+      error: fieldState.error?.message ?? given.liveError,
+      name: field.name,
+      value: (field.value as string | null | undefined) ?? '',
+      onBlur: field.onBlur,
+    },
+  };
+}
+
 export interface TextInputProps extends Common, Native<InputHTMLAttributes<HTMLInputElement>> {
   /** Rewrites what is typed as it is typed (e.g. upper case for a currency code). */
   transform?: (text: string) => string;
 }
 
 /** A text box bound to a schema form: label, hint or error below, and the contract's length limit. */
-export function TextInput({ name, id: givenId, label, hint, fieldClassName, liveError, transform, ...rest }: TextInputProps) {
-  const setup = useFieldSetup(name);
-  const { limits } = setup;
-  const id = givenId ?? setup.id;
-  const { field, fieldState } = useController({ name });
-  return (
-    <TextField
-      id={id}
-      label={label}
-      hint={hint}
-      error={fieldState.error?.message ?? liveError}
-      fieldClassName={fieldClassName}
-      maxLength={limits.maxLength}
-      {...rest}
-      name={field.name}
-      value={(field.value as string | null | undefined) ?? ''}
-      onChange={(event) => field.onChange(transform ? transform(event.target.value) : event.target.value)}
-      onBlur={field.onBlur}
-    />
-  );
+export function TextInput({ name, id, label, hint, fieldClassName, liveError, transform, ...rest }: TextInputProps) {
+  const { limits, onChange, props } = useBound(name, label, { id, hint, fieldClassName, liveError });
+  return <TextField maxLength={limits.maxLength} {...rest} {...props} onChange={(event) => onChange(transform ? transform(event.target.value) : event.target.value)} />;
 }
 
 /** A number typed as text (the schema reads it): decimal keyboard, figures aligned. */
@@ -59,26 +62,9 @@ export function DateInput(props: TextInputProps) {
 export interface TextAreaInputProps extends Common, Native<TextareaHTMLAttributes<HTMLTextAreaElement>> {}
 
 /** Multi-line text bound to a schema form, with the contract's length limit. */
-export function TextAreaInput({ name, id: givenId, label, hint, fieldClassName, liveError, ...rest }: TextAreaInputProps) {
-  const setup = useFieldSetup(name);
-  const { limits } = setup;
-  const id = givenId ?? setup.id;
-  const { field, fieldState } = useController({ name });
-  return (
-    <TextAreaField
-      id={id}
-      label={label}
-      hint={hint}
-      error={fieldState.error?.message ?? liveError}
-      fieldClassName={fieldClassName}
-      maxLength={limits.maxLength}
-      {...rest}
-      name={field.name}
-      value={(field.value as string | null | undefined) ?? ''}
-      onChange={(event) => field.onChange(event.target.value)}
-      onBlur={field.onBlur}
-    />
-  );
+export function TextAreaInput({ name, id, label, hint, fieldClassName, liveError, ...rest }: TextAreaInputProps) {
+  const { limits, onChange, props } = useBound(name, label, { id, hint, fieldClassName, liveError });
+  return <TextAreaField maxLength={limits.maxLength} {...rest} {...props} onChange={(event) => onChange(event.target.value)} />;
 }
 
 export interface SelectInputProps extends Common, Native<SelectHTMLAttributes<HTMLSelectElement>> {
@@ -92,22 +78,10 @@ export interface SelectInputProps extends Common, Native<SelectHTMLAttributes<HT
 }
 
 /** A choice bound to a schema form. Controlled, so a value whose option loads later still shows. */
-export function SelectInput({ name, id: givenId, label, hint, fieldClassName, liveError, options, empty, onChangeValue, children, ...rest }: SelectInputProps) {
-  const id = givenId ?? useFieldSetup(name).id;
-  const { field, fieldState } = useController({ name });
+export function SelectInput({ name, id, label, hint, fieldClassName, liveError, options, empty, onChangeValue, children, ...rest }: SelectInputProps) {
+  const { onChange, props } = useBound(name, label, { id, hint, fieldClassName, liveError });
   return (
-    <SelectField
-      id={id}
-      label={label}
-      hint={hint}
-      error={fieldState.error?.message ?? liveError}
-      fieldClassName={fieldClassName}
-      {...rest}
-      name={field.name}
-      value={(field.value as string | null | undefined) ?? ''}
-      onChange={(event) => (onChangeValue ? onChangeValue(event.target.value) : field.onChange(event.target.value))}
-      onBlur={field.onBlur}
-    >
+    <SelectField {...rest} {...props} onChange={(event) => (onChangeValue ? onChangeValue(event.target.value) : onChange(event.target.value))}>
       {empty !== undefined ? <option value="">{empty}</option> : null}
       {options?.map((o) => (
         <option key={o.value} value={o.value}>
