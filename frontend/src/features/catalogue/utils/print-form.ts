@@ -1,82 +1,41 @@
-import type { Print } from '@toneledger/common/schemas/catalogue';
-import { LIGHT_RESPONSIVITY, PROCESS, STATUS, SUPPORT } from '@toneledger/common/schemas/vocab';
+import type { Print, PrintInput } from '@toneledger/common/schemas/catalogue';
+import { toCell } from '@toneledger/common/fields/field';
+import { ENTERED_PRINT_FIELDS, labelOf, printField } from '@toneledger/common/fields/print';
 import { fieldList } from '@/lib/forms/stale-edit';
 
-/** The fields of a print that the form edits (location is set on create, and moved afterwards). */
-export const PRINT_FIELDS = [
-  'accessionNumber', 'title', 'makerId', 'dateMade', 'process', 'support', 'paperId', 'status', 'lightResponsivity',
-  'imageWidthMm', 'imageHeightMm', 'sheetWidthMm', 'sheetHeightMm', 'mountWidthMm', 'mountHeightMm', 'enclosureId',
-  'inscriptions', 'provenance', 'creditLine', 'staffNotes', 'valuationAmount', 'valuationCurrency',
-] as const;
-export type PrintField = (typeof PRINT_FIELDS)[number];
+/**
+ * The print form's fields, labels, defaults and values, read from the print field table
+ * (common/src/fields/print.ts): a field added there is in the form's state, its stale-edit review and
+ * its defaults without a change here. The form's controls are laid out by hand in print-form-fields.tsx.
+ */
+
+/** A field the form edits, by its input key (location is set on create, and moved afterwards). */
+export type PrintField = Exclude<keyof PrintInput, 'locationId'>;
+
+/** The fields of a print that the form edits, in table order. */
+export const PRINT_FIELDS = ENTERED_PRINT_FIELDS.filter((f) => !f.createOnly).map((f) => f.inputKey as PrintField);
 
 /** What the form holds: every field as the text in its control. */
 export type PrintFormValues = Record<PrintField | 'locationId', string>;
 
-export const FIELD_LABELS: Record<PrintField | 'locationId', string> = {
-  accessionNumber: 'Accession number',
-  title: 'Title',
-  makerId: 'Maker',
-  dateMade: 'Date made',
-  process: 'Process',
-  support: 'Support',
-  paperId: 'Paper',
-  status: 'Status',
-  lightResponsivity: 'Light responsivity',
-  imageWidthMm: 'Image width (mm)',
-  imageHeightMm: 'Image height (mm)',
-  sheetWidthMm: 'Sheet width (mm)',
-  sheetHeightMm: 'Sheet height (mm)',
-  mountWidthMm: 'Mount width (mm)',
-  mountHeightMm: 'Mount height (mm)',
-  enclosureId: 'Enclosure',
-  inscriptions: 'Inscriptions',
-  provenance: 'Provenance',
-  creditLine: 'Credit line',
-  staffNotes: 'Staff notes',
-  valuationAmount: 'Valuation amount',
-  valuationCurrency: 'Valuation currency',
-  locationId: 'Location',
-};
+/** Labels as people read them, with units: "Image width (mm)". */
+/** The form's labels, from the print field table (label and unit), so every screen names a field alike. */
+export const FIELD_LABELS = Object.fromEntries([...PRINT_FIELDS, 'locationId'].map((key) => [key, labelOf(key)])) as Record<PrintField | 'locationId', string>;
 
 /** The edited fields with their labels, in form order (for the stale-edit review). */
 export const PRINT_FORM_FIELDS = fieldList(Object.fromEntries(PRINT_FIELDS.map((f) => [f, FIELD_LABELS[f]])) as Record<PrintField, string>);
 
+/** A new print: every field at the table's default (a process and a status; nothing else). */
 export function emptyPrintValues(): PrintFormValues {
-  const values = Object.fromEntries([...PRINT_FIELDS, 'locationId'].map((field) => [field, ''])) as PrintFormValues;
-  values.process = 'gelatin_silver_developing_out';
-  values.status = 'in_store';
-  return values;
+  return Object.fromEntries(ENTERED_PRINT_FIELDS.map((f) => [f.inputKey, f.default ?? ''])) as PrintFormValues;
 }
 
-const text = (value: string | number | null | undefined) => (value === null || value === undefined ? '' : String(value));
-
+/** A saved print as the form's text: a reference by its id, everything else as its CSV cell reads. */
 export function printToValues(print: Print): PrintFormValues {
-  return {
-    accessionNumber: print.accessionNumber,
-    title: print.title,
-    makerId: print.maker?.id ?? '',
-    dateMade: text(print.dateMade),
-    process: print.process,
-    support: text(print.support),
-    paperId: print.paper?.id ?? '',
-    status: print.status,
-    lightResponsivity: text(print.lightResponsivity),
-    imageWidthMm: text(print.imageWidthMm),
-    imageHeightMm: text(print.imageHeightMm),
-    sheetWidthMm: text(print.sheetWidthMm),
-    sheetHeightMm: text(print.sheetHeightMm),
-    mountWidthMm: text(print.mountWidthMm),
-    mountHeightMm: text(print.mountHeightMm),
-    enclosureId: print.enclosure?.id ?? '',
-    inscriptions: text(print.inscriptions),
-    provenance: text(print.provenance),
-    creditLine: text(print.creditLine),
-    staffNotes: text(print.staffNotes),
-    valuationAmount: text(print.valuationAmount),
-    valuationCurrency: text(print.valuationCurrency),
-    locationId: print.location?.id ?? '',
-  };
+  const record = print as unknown as Record<string, unknown>;
+  return Object.fromEntries(
+    ENTERED_PRINT_FIELDS.map((f) => [f.inputKey, f.type.kind === 'reference' ? ((record[f.key] as { id: string } | null | undefined)?.id ?? '') : toCell(record[f.key])]),
+  ) as PrintFormValues;
 }
 
 /**
@@ -86,23 +45,16 @@ export function printToValues(print: Print): PrintFormValues {
  */
 export function printValuesToBody(values: PrintFormValues): Record<string, unknown> {
   const body: Record<string, unknown> = { ...values };
-  for (const field of ['support', 'lightResponsivity'] as const) body[field] = values[field] === '' ? null : values[field];
-  for (const field of ['process', 'status'] as const) if (values[field] === '') delete body[field];
+  for (const f of ENTERED_PRINT_FIELDS) {
+    if (f.type.kind !== 'code' || values[f.inputKey as PrintField] !== '') continue;
+    if (f.default) delete body[f.inputKey];
+    else body[f.inputKey] = null;
+  }
   return body;
 }
 
-/** How a code field of the form reads to a person. */
+/** How a code field of the form reads to a person: its label. */
 export function describeCode(field: PrintField, value: string): string {
-  switch (field) {
-    case 'process':
-      return PROCESS.labels[value as keyof typeof PROCESS.labels] ?? value;
-    case 'support':
-      return SUPPORT.labels[value as keyof typeof SUPPORT.labels] ?? value;
-    case 'status':
-      return STATUS.labels[value as keyof typeof STATUS.labels] ?? value;
-    case 'lightResponsivity':
-      return LIGHT_RESPONSIVITY.labels[value as keyof typeof LIGHT_RESPONSIVITY.labels] ?? value;
-    default:
-      return value;
-  }
+  const type = printField(field)?.type;
+  return type?.kind === 'code' ? (type.labels[value] ?? value) : value;
 }
