@@ -118,8 +118,8 @@ describe('a registrar catalogues a print', () => {
       ].join('\n'),
     );
     await page.goto(`${BASE_URL}/catalogue/import`);
-    await page.locator('input[type="file"]').setInputFiles(file);
-    await page.getByRole('button', { name: 'Import' }).first().click();
+    await page.getByLabel('Prints (CSV)').setInputFiles(file);
+    await page.getByRole('button', { name: 'Check the files' }).click();
     await page.getByRole('region', { name: 'Ready to import' }).waitFor();
     await screenshot(page, 'catalogue-import-ready');
     await page.getByRole('button', { name: /Import 3 prints/ }).click();

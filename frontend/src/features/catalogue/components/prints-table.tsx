@@ -10,6 +10,7 @@ import {
 } from '@tanstack/react-table';
 import type { PrintListItem, PrintListQuery } from '@toneledger/common/schemas/catalogue';
 import { PROCESS, STATUS, SUPPORT, TONER_CLASS } from '@toneledger/common/schemas/vocab';
+import { labelOf } from '@toneledger/common/fields/print';
 import { DataTable } from '@/components/ui/data-table';
 import { formatDate } from '@/lib/format';
 import { sortingToSort, sortToSorting } from '@/features/catalogue/utils/prints-sort';
@@ -18,11 +19,11 @@ import { WarningIndicator } from '@/features/catalogue/components/warning-indica
 const column = createColumnHelper<PrintListItem>();
 const none = <span className="text-ink-600">—</span>;
 
-/** Every column of the list; `id` matches the API's sort names where the column sorts. */
+/** Every column of the list; `id` is the print field's key (fields/print.ts), which is also the API's sort name where the column sorts. */
 export const printColumns = [
   column.accessor('accessionNumber', {
     id: 'accessionNumber',
-    header: 'Accession no.',
+    header: labelOf('accessionNumber'),
     enableHiding: false,
     cell: (info) => (
       <Link to={`/catalogue/prints/${info.row.original.id}`} className="mono font-medium whitespace-nowrap">
@@ -32,14 +33,14 @@ export const printColumns = [
   }),
   column.accessor('title', {
     id: 'title',
-    header: 'Title',
+    header: labelOf('title'),
     enableHiding: false,
     cell: (info) => <span className="text-ink-900">{info.getValue()}</span>,
   }),
-  column.accessor('makerName', { id: 'maker', header: 'Maker', cell: (info) => info.getValue() ?? none }),
+  column.accessor('makerName', { id: 'maker', header: labelOf('maker'), cell: (info) => info.getValue() ?? none }),
   column.accessor('dateMade', {
     id: 'dateMade',
-    header: 'Date made',
+    header: labelOf('dateMade'),
     cell: (info) => {
       const row = info.row.original;
       if (!row.dateMade) return none;
@@ -50,10 +51,10 @@ export const printColumns = [
       );
     },
   }),
-  column.accessor('process', { id: 'process', header: 'Process', enableSorting: false, cell: (info) => PROCESS.labels[info.getValue()] }),
+  column.accessor('process', { id: 'process', header: labelOf('process'), enableSorting: false, cell: (info) => PROCESS.labels[info.getValue()] }),
   column.accessor('support', {
     id: 'support',
-    header: 'Support',
+    header: labelOf('support'),
     enableSorting: false,
     cell: (info) => {
       const value = info.getValue();
@@ -62,23 +63,23 @@ export const printColumns = [
   }),
   column.accessor('tonerClasses', {
     id: 'tonerClasses',
-    header: 'Toners',
+    header: labelOf('tonerClasses'),
     enableSorting: false,
     cell: (info) => (info.getValue().length ? info.getValue().map((t) => TONER_CLASS.labels[t]).join(', ') : none),
   }),
-  column.accessor('paperLabel', { id: 'paper', header: 'Paper', enableSorting: false, cell: (info) => info.getValue() ?? none }),
-  column.accessor('status', { id: 'status', header: 'Status', cell: (info) => <span className="whitespace-nowrap">{STATUS.labels[info.getValue()]}</span> }),
-  column.accessor('enclosureName', { id: 'enclosure', header: 'Enclosure', enableSorting: false, cell: (info) => info.getValue() ?? none }),
-  column.accessor((row) => row.locationLabel ?? null, { id: 'location', header: 'Location', enableSorting: false, cell: (info) => info.getValue() ?? none }),
+  column.accessor('paperLabel', { id: 'paper', header: labelOf('paper'), enableSorting: false, cell: (info) => info.getValue() ?? none }),
+  column.accessor('status', { id: 'status', header: labelOf('status'), cell: (info) => <span className="whitespace-nowrap">{STATUS.labels[info.getValue()]}</span> }),
+  column.accessor('enclosureName', { id: 'enclosure', header: labelOf('enclosure'), enableSorting: false, cell: (info) => info.getValue() ?? none }),
+  column.accessor((row) => row.locationLabel ?? null, { id: 'location', header: labelOf('location'), enableSorting: false, cell: (info) => info.getValue() ?? none }),
   column.accessor('warningCodes', {
     id: 'warnings',
-    header: 'Warnings',
+    header: labelOf('warnings'),
     enableSorting: false,
     cell: (info) => <WarningIndicator codes={info.getValue()} />,
   }),
   column.accessor('updatedAt', {
     id: 'updatedAt',
-    header: 'Updated',
+    header: labelOf('updatedAt'),
     cell: (info) => (
       <time dateTime={info.getValue()} className="whitespace-nowrap">
         {formatDate(info.getValue())}
@@ -87,20 +88,10 @@ export const printColumns = [
   }),
 ];
 
-/** Columns a person can show or hide, with their header text. */
-export const CHOOSABLE_COLUMNS: { id: string; label: string }[] = [
-  { id: 'maker', label: 'Maker' },
-  { id: 'dateMade', label: 'Date made' },
-  { id: 'process', label: 'Process' },
-  { id: 'support', label: 'Support' },
-  { id: 'tonerClasses', label: 'Toners' },
-  { id: 'paper', label: 'Paper' },
-  { id: 'status', label: 'Status' },
-  { id: 'enclosure', label: 'Enclosure' },
-  { id: 'location', label: 'Location' },
-  { id: 'warnings', label: 'Warnings' },
-  { id: 'updatedAt', label: 'Updated' },
-];
+/** Columns a person can show or hide, with their labels from the print field table. */
+export const CHOOSABLE_COLUMNS: { id: string; label: string }[] = printColumns
+  .filter((c) => c.enableHiding !== false)
+  .map((c) => ({ id: c.id!, label: labelOf(c.id!) }));
 
 export const DEFAULT_HIDDEN_COLUMNS: VisibilityState = { support: false, paper: false, updatedAt: false };
 

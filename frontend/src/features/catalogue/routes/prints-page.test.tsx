@@ -57,6 +57,9 @@ describe('PrintsPage', () => {
     expect(screen.getByRole('link', { name: 'Export CSV' }).getAttribute('href')).toBe(
       `/api/prints/export.csv?q=harbour&sort=-dateMade&tonerClass=iron_blue&locationId=${LOCATION_ID}&hasWarnings=true`,
     );
+    expect(screen.getByRole('link', { name: 'Export steps CSV' }).getAttribute('href')).toBe(
+      `/api/prints/export-steps.csv?q=harbour&sort=-dateMade&tonerClass=iron_blue&locationId=${LOCATION_ID}&hasWarnings=true`,
+    );
   });
 
   it('writes searches, filters and sorting to the URL, going back to page 1', async () => {

@@ -11,7 +11,7 @@ import { useMe } from '@/lib/auth';
 import { useSearchQuery } from '@/lib/search-query';
 import { useDocumentTitle } from '@/lib/use-document-title';
 import { usePrints } from '@/lib/prints-api';
-import { printsCsvHref } from '@/features/catalogue/api/exports';
+import { printsCsvHref, stepsCsvHref } from '@/features/catalogue/api/exports';
 import { ColumnChooser, useColumnVisibility } from '@/features/catalogue/components/column-chooser';
 import { PrintsFilters } from '@/features/catalogue/components/prints-filters';
 import { CHOOSABLE_COLUMNS, DEFAULT_HIDDEN_COLUMNS, PrintsTable } from '@/features/catalogue/components/prints-table';
@@ -38,6 +38,14 @@ export function PrintsPage() {
           <>
             <a href={printsCsvHref(query)} download className={buttonClasses('secondary', 'md', 'no-underline')}>
               Export CSV
+            </a>
+            <a
+              href={stepsCsvHref(query)}
+              download
+              title="The process histories of these prints, one row per step: the steps file of an import"
+              className={buttonClasses('secondary', 'md', 'no-underline')}
+            >
+              Export steps CSV
             </a>
             {mayWrite ? (
               <Button variant="primary" onClick={() => navigate('/catalogue/prints/new')}>

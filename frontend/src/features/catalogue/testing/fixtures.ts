@@ -1,3 +1,5 @@
+import { blankValues } from '@toneledger/common/fields/field';
+import { PRINT_FIELDS } from '@toneledger/common/fields/print';
 import type { Enclosure, Print, PrintListItem, ProcessStep, Recipe } from '@toneledger/common/schemas/catalogue';
 import { json } from '@/test/fetch-mock';
 
@@ -17,8 +19,10 @@ export function makeStep(overrides: Partial<ProcessStep> = {}): ProcessStep {
   };
 }
 
+/** A whole print; `blankValues` gives every public field that may be empty its null, so a new field needs no change here. */
 export function makePrint(overrides: Partial<Print> = {}): Print {
   return {
+    ...blankValues(PRINT_FIELDS),
     id: PRINT_ID,
     accessionNumber: '1987.14.3',
     title: 'Harbour wall, low tide',

@@ -1,4 +1,6 @@
 import { imagesApi } from '@toneledger/common/api/images';
+import { blankValues } from '@toneledger/common/fields/field';
+import { PRINT_FIELDS } from '@toneledger/common/fields/print';
 import type { Print } from '@toneledger/common/schemas/catalogue';
 import type { ConditionReport, ConditionTerm, Observation } from '@toneledger/common/schemas/condition';
 import type { PrintImage } from '@toneledger/common/schemas/images';
@@ -14,8 +16,10 @@ export const IMAGE_VERSO = 'b3111111-2222-4333-8444-555555555555';
 export const ME_ID = '5d0c0f5e-8a7b-4c2d-9e1f-112233445566';
 export const OTHER_ID = '6e0c0f5e-8a7b-4c2d-9e1f-112233445566';
 
+/** A whole print; `blankValues` gives every public field that may be empty its null, so a new field needs no change here. */
 export function makePrint(overrides: Partial<Print> = {}): Print {
   return {
+    ...blankValues(PRINT_FIELDS),
     id: PRINT_ID, accessionNumber: '1987.14.3', title: 'Harbour wall, low tide', maker: null, dateMade: null, dateDisplay: null, dateEarliest: null,
     dateLatest: null, imageWidthMm: null, imageHeightMm: null, sheetWidthMm: null, sheetHeightMm: null, mountWidthMm: null, mountHeightMm: null,
     process: 'gelatin_silver_developing_out', support: 'fibre_baryta', paper: null, inscriptions: null, provenance: null, creditLine: null,
