@@ -2,6 +2,7 @@ import { useEffect, useState, type FormEvent } from 'react';
 import { auditListQuerySchema, type AuditListQuery } from '@toneledger/common/schemas/audit';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
+import { limitsOf } from '@/lib/forms/limits';
 
 const FIELDS = ['action', 'entityType', 'entityId', 'actorId'] as const;
 type FilterField = (typeof FIELDS)[number];
@@ -61,7 +62,7 @@ export function AuditFilters({ query, onChange }: { query: AuditListQuery; onCha
           onChange={(event) => setDraft((current) => ({ ...current, [field]: event.target.value }))}
           className={field === 'entityId' || field === 'actorId' ? 'mono' : undefined}
           fieldClassName={field === 'actorId' ? 'w-72' : 'w-40'}
-          maxLength={100}
+          maxLength={limitsOf(auditListQuerySchema, field).maxLength}
           spellCheck={false}
         />
       ))}

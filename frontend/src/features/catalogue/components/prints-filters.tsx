@@ -1,8 +1,9 @@
 import { useEffect, useState, type FormEvent } from 'react';
-import type { PrintListQuery } from '@toneledger/common/schemas/catalogue';
+import { printListQuerySchema, type PrintListQuery } from '@toneledger/common/schemas/catalogue';
 import { LIGHT_RESPONSIVITY, PROCESS, STATUS, SUPPORT, TONER_CLASS } from '@toneledger/common/schemas/vocab';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
+import { limitsOf } from '@/lib/forms/limits';
 import { useEnclosures, useLocations, useMakers, usePapers } from '@/lib/reference-api';
 
 export interface PrintsFiltersProps {
@@ -80,7 +81,7 @@ export function PrintsFilters({ query, onChange, showLocation }: PrintsFiltersPr
           onChange={(event) => setText(event.target.value)}
           fieldClassName="w-full max-w-md"
           placeholder="Accession number, title, maker, inscriptions…"
-          maxLength={200}
+          maxLength={limitsOf(printListQuerySchema, 'q').maxLength}
         />
         <TextField
           label="Made from (year)"

@@ -1,9 +1,11 @@
 import { useState, type FormEvent } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
+import { printListQuerySchema } from '@toneledger/common/schemas/catalogue';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { ErrorNotice } from '@/components/ui/notice';
+import { limitsOf } from '@/lib/forms/limits';
 import { findPrintsQueryOptions, useFindPrints } from '@/lib/prints-api';
 
 const PAGE_SIZE = 10;
@@ -50,7 +52,7 @@ export function PrintFinder() {
           value={text}
           onChange={(e) => setText(e.target.value)}
           placeholder="For example 1979.3.12"
-          maxLength={200}
+          maxLength={limitsOf(printListQuerySchema, 'q').maxLength}
           fieldClassName="w-full max-w-sm"
         />
         <Button type="submit" variant="primary" disabled={searching}>

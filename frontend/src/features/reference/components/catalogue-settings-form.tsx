@@ -1,13 +1,14 @@
 import { useState } from 'react';
 import { useWatch } from 'react-hook-form';
 import { accessionRule, checkAccession } from '@toneledger/common/domain/accession';
-import { catalogueSettingsSchema, type CatalogueSettings } from '@toneledger/common/schemas/catalogue';
+import { catalogueSettingsSchema, printInputSchema, type CatalogueSettings } from '@toneledger/common/schemas/catalogue';
 import { TextInput } from '@/components/form/fields';
 import { SchemaForm } from '@/components/form/schema-form';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
 import type { FieldErrors } from '@/lib/forms/field-errors';
+import { limitsOf } from '@/lib/forms/limits';
 import { useSchemaForm } from '@/lib/forms/use-schema-form';
 import { useUpdateCatalogueSettings } from '@/features/reference/api/update-catalogue-settings';
 
@@ -81,7 +82,7 @@ function PatternFields({ canManage }: { canManage: boolean }) {
           className="mono"
           spellCheck={false}
           fieldClassName="max-w-sm"
-          maxLength={100}
+          maxLength={limitsOf(printInputSchema, 'accessionNumber').maxLength}
         />
         <div aria-live="polite">
           {result ? (

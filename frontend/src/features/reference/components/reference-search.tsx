@@ -1,6 +1,8 @@
 import { useEffect, useState, type FormEvent } from 'react';
+import { referenceListQuerySchema } from '@toneledger/common/schemas/catalogue';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
+import { limitsOf } from '@/lib/forms/limits';
 
 export interface ReferenceSearchProps {
   /** What is searched, e.g. "makers". */
@@ -22,7 +24,7 @@ export function ReferenceSearch({ what, label, q, onSearch }: ReferenceSearchPro
 
   return (
     <form role="search" aria-label={`Search ${what}`} onSubmit={submit} className="mb-4 flex flex-wrap items-end gap-3">
-      <TextField label={label} type="search" value={text} onChange={(event) => setText(event.target.value)} fieldClassName="w-72" maxLength={200} />
+      <TextField label={label} type="search" value={text} onChange={(event) => setText(event.target.value)} fieldClassName="w-72" maxLength={limitsOf(referenceListQuerySchema, 'q').maxLength} />
       <Button type="submit" variant="primary">
         Search
       </Button>

@@ -1,8 +1,9 @@
 import { useEffect, useState, type FormEvent } from 'react';
 import { ROLE_LABELS, ROLES, type Role } from '@toneledger/common/domain/roles';
-import type { UserListQuery } from '@toneledger/common/schemas/users';
+import { userListQuerySchema, type UserListQuery } from '@toneledger/common/schemas/users';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
+import { limitsOf } from '@/lib/forms/limits';
 
 export interface UsersFiltersProps {
   query: UserListQuery;
@@ -26,7 +27,7 @@ export function UsersFilters({ query, onChange }: UsersFiltersProps) {
         value={text}
         onChange={(event) => setText(event.target.value)}
         fieldClassName="w-64"
-        maxLength={200}
+        maxLength={limitsOf(userListQuerySchema, 'q').maxLength}
       />
       <SelectField
         label="Role"
