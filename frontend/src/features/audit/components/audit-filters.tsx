@@ -2,6 +2,7 @@ import { useEffect, useState, type FormEvent } from 'react';
 import { auditListQuerySchema, type AuditListQuery } from '@toneledger/common/schemas/audit';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
+import { issuesToFieldErrors } from '@/lib/forms/field-errors';
 import { limitsOf } from '@/lib/forms/limits';
 
 const FIELDS = ['action', 'entityType', 'entityId', 'actorId'] as const;
@@ -35,13 +36,9 @@ export function AuditFilters({ query, onChange }: { query: AuditListQuery; onCha
     for (const field of FIELDS) patch[field] = draft[field].trim() || undefined;
     const parsed = auditListQuerySchema.safeParse({ ...query, ...patch });
     if (!parsed.success) {
+      const found = issuesToFieldErrors(parsed.error.issues);
       const next: Partial<Record<FilterField, string>> = {};
-      for (const issue of parsed.error.issues) {
-        const field = issue.path[0];
-        if (typeof field === 'string' && (FIELDS as readonly string[]).includes(field)) {
-          next[field as FilterField] = field === 'actorId' ? 'A person id looks like 8-4-4-4-12 hexadecimal digits.' : issue.message;
-        }
-      }
+      for (const field of FIELDS) if (found[field]) next[field] = field === 'actorId' ? 'A person id looks like 8-4-4-4-12 hexadecimal digits.' : found[field];
       setErrors(next);
       return;
     }
