@@ -1,3 +1,5 @@
+import { blankValues } from '@toneledger/common/fields/field';
+import { PRINT_FIELDS } from '@toneledger/common/fields/print';
 import { printListItemSchema, type Print, type PrintListItem } from '@toneledger/common/schemas/catalogue';
 import type { PrintImage } from '@toneledger/common/schemas/images';
 import type { MeasurementSession, PrintMeasurements, Spot, SpotAnalysis } from '@toneledger/common/schemas/measurements';
@@ -10,8 +12,10 @@ export const SESSION2_ID = 'c2111111-2222-4333-8444-555555555555';
 export const SESSION3_ID = 'c3111111-2222-4333-8444-555555555555';
 export const IMAGE_ID = 'd1111111-2222-4333-8444-555555555555';
 
+/** A whole print; `blankValues` gives every public field that may be empty its null, so a new field needs no change here. */
 export function makePrint(overrides: Partial<Print> = {}): Print {
   return {
+    ...blankValues(PRINT_FIELDS),
     id: PRINT_ID,
     accessionNumber: '1979.3.12',
     title: 'Quay cranes in fog',
