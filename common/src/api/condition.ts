@@ -6,20 +6,15 @@ import {
 } from '../schemas/condition';
 import { deletedSchema, idParamsSchema, versionBodySchema, versionQuerySchema } from '../schemas/primitives';
 import { endpoint } from './endpoint';
+import { settingsSection } from './settings-section';
 
 const reportEnvelope = dataEnvelope(reportSchema);
 const termEnvelope = dataEnvelope(conditionTermSchema);
 
-export const conditionSettingsApi = {
-  get: endpoint({
-    method: 'get', path: '/api/settings/condition', summary: 'The written definition of each overall grade', tags: ['settings', 'condition'],
-    access: 'condition.read', response: { description: 'Condition settings', schema: dataEnvelope(conditionSettingsSchema) },
-  }),
-  put: endpoint({
-    method: 'put', path: '/api/settings/condition', summary: 'Changes the grade definitions shown to examiners', tags: ['settings', 'condition'],
-    access: 'settings.manage', body: conditionSettingsSchema, response: { description: 'Condition settings', schema: dataEnvelope(conditionSettingsSchema) },
-  }),
-};
+export const conditionSettingsApi = settingsSection({
+  name: 'condition', title: 'Condition settings', read: 'condition.read', schema: conditionSettingsSchema, tags: ['settings', 'condition'],
+  readSummary: 'The written definition of each overall grade', changeSummary: 'Changes the grade definitions shown to examiners',
+});
 
 export const conditionTermsApi = {
   list: endpoint({

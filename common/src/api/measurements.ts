@@ -5,19 +5,14 @@ import {
 } from '../schemas/measurements';
 import { idParamsSchema } from '../schemas/primitives';
 import { endpoint } from './endpoint';
+import { settingsSection } from './settings-section';
 
 const spotEnvelope = dataEnvelope(spotSchema);
 
-export const measurementSettingsApi = {
-  get: endpoint({
-    method: 'get', path: '/api/settings/measurements', summary: 'The ΔE00 taken as a noticeable change', tags: ['settings', 'measurements'],
-    access: 'measurements.read', response: { description: 'Measurement settings', schema: dataEnvelope(measurementSettingsSchema) },
-  }),
-  put: endpoint({
-    method: 'put', path: '/api/settings/measurements', summary: 'Changes the noticeable ΔE00 used for projections', tags: ['settings', 'measurements'],
-    access: 'settings.manage', body: measurementSettingsSchema, response: { description: 'Measurement settings', schema: dataEnvelope(measurementSettingsSchema) },
-  }),
-};
+export const measurementSettingsApi = settingsSection({
+  name: 'measurements', title: 'Measurement settings', read: 'measurements.read', schema: measurementSettingsSchema, tags: ['settings', 'measurements'],
+  readSummary: 'The ΔE00 taken as a noticeable change', changeSummary: 'Changes the noticeable ΔE00 used for projections',
+});
 
 export const measurementsApi = {
   forPrint: endpoint({

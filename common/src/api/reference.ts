@@ -8,6 +8,7 @@ import {
 import { idParamsSchema } from '../schemas/primitives';
 import type { Permission } from '../domain/roles';
 import { endpoint } from './endpoint';
+import { settingsSection } from './settings-section';
 
 /** The four endpoints of a reference record (list, create, get, edit), from its schemas. */
 function referenceRecord<
@@ -51,13 +52,7 @@ export const locationsApi = referenceRecord({
   read: 'catalogue.read_restricted',
 });
 
-export const catalogueSettingsApi = {
-  get: endpoint({
-    method: 'get', path: '/api/settings/catalogue', summary: "The institution's name and accession-number pattern", tags: ['settings'],
-    access: 'catalogue.read', response: { description: 'Catalogue settings', schema: dataEnvelope(catalogueSettingsSchema) },
-  }),
-  put: endpoint({
-    method: 'put', path: '/api/settings/catalogue', summary: 'Changes the catalogue settings (the pattern is checked)', tags: ['settings'],
-    access: 'settings.manage', body: catalogueSettingsSchema, response: { description: 'Catalogue settings', schema: dataEnvelope(catalogueSettingsSchema) },
-  }),
-};
+export const catalogueSettingsApi = settingsSection({
+  name: 'catalogue', title: 'Catalogue settings', read: 'catalogue.read', schema: catalogueSettingsSchema, tags: ['settings'],
+  readSummary: "The institution's name and accession-number pattern", changeSummary: 'Changes the catalogue settings (the pattern is checked)',
+});
