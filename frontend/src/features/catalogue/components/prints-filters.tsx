@@ -2,8 +2,9 @@ import { useEffect, useState, type FormEvent } from 'react';
 import { printListQuerySchema, type PrintListQuery } from '@toneledger/common/schemas/catalogue';
 import { LIGHT_RESPONSIVITY, PROCESS, STATUS, SUPPORT, TONER_CLASS } from '@toneledger/common/schemas/vocab';
 import { Button } from '@/components/ui/button';
-import { SelectField, TextField } from '@/components/ui/field';
-import { limitsOf } from '@/lib/forms/limits';
+import { ChoiceSelect } from '@/components/ui/choice-select';
+import { TextField } from '@/components/ui/field';
+import { SearchField } from '@/components/ui/search-field';
 import { useEnclosures, useLocations, useMakers, usePapers } from '@/lib/reference-api';
 
 export interface PrintsFiltersProps {
@@ -17,6 +18,11 @@ const FILTER_KEYS = [
   'q', 'process', 'support', 'status', 'tonerClass', 'lightResponsivity', 'makerId', 'paperId', 'enclosureId', 'locationId',
   'hasWarnings', 'madeFrom', 'madeTo',
 ] as const satisfies readonly (keyof PrintListQuery)[];
+
+const WARNINGS = [
+  { value: 'true', label: 'With warnings' },
+  { value: 'false', label: 'Without warnings' },
+];
 
 const YEAR_MIN = 1800;
 const YEAR_MAX = 2200;
@@ -67,21 +73,20 @@ export function PrintsFilters({ query, onChange, showLocation }: PrintsFiltersPr
     onChange(Object.fromEntries(FILTER_KEYS.map((key) => [key, undefined])) as Partial<PrintListQuery>);
   }
 
-  function select(key: keyof PrintListQuery) {
-    return (event: { target: { value: string } }) => onChange({ [key]: event.target.value || undefined } as Partial<PrintListQuery>);
+  function choose(key: keyof PrintListQuery) {
+    return (value: string | undefined) => onChange({ [key]: value } as Partial<PrintListQuery>);
   }
 
   return (
     <form role="search" aria-label="Search and filter prints" onSubmit={submit} className="mb-4 flex flex-col gap-3">
       <div className="flex flex-wrap items-end gap-3">
-        <TextField
+        <SearchField
           label="Search the catalogue"
-          type="search"
           value={text}
-          onChange={(event) => setText(event.target.value)}
+          onText={setText}
+          querySchema={printListQuerySchema}
           fieldClassName="w-full max-w-md"
           placeholder="Accession number, title, maker, inscriptions…"
-          maxLength={limitsOf(printListQuerySchema, 'q').maxLength}
         />
         <TextField
           label="Made from (year)"
@@ -111,84 +116,30 @@ export function PrintsFilters({ query, onChange, showLocation }: PrintsFiltersPr
         ) : null}
       </div>
       <div className="grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-4 xl:grid-cols-6">
-        <SelectField label="Process" value={query.process ?? ''} onChange={select('process')}>
-          <option value="">Any process</option>
-          {PROCESS.options.map((o) => (
-            <option key={o.value} value={o.value}>
-              {o.label}
-            </option>
-          ))}
-        </SelectField>
-        <SelectField label="Support" value={query.support ?? ''} onChange={select('support')}>
-          <option value="">Any support</option>
-          {SUPPORT.options.map((o) => (
-            <option key={o.value} value={o.value}>
-              {o.label}
-            </option>
-          ))}
-        </SelectField>
-        <SelectField label="Status" value={query.status ?? ''} onChange={select('status')}>
-          <option value="">Any status</option>
-          {STATUS.options.map((o) => (
-            <option key={o.value} value={o.value}>
-              {o.label}
-            </option>
-          ))}
-        </SelectField>
-        <SelectField label="Toner class" value={query.tonerClass ?? ''} onChange={select('tonerClass')}>
-          <option value="">Any toner</option>
-          {TONER_CLASS.options.map((o) => (
-            <option key={o.value} value={o.value}>
-              {o.label}
-            </option>
-          ))}
-        </SelectField>
-        <SelectField label="Light responsivity" value={query.lightResponsivity ?? ''} onChange={select('lightResponsivity')}>
-          <option value="">Any</option>
-          {LIGHT_RESPONSIVITY.options.map((o) => (
-            <option key={o.value} value={o.value}>
-              {o.label}
-            </option>
-          ))}
-        </SelectField>
-        <SelectField label="Warnings" value={query.hasWarnings ?? ''} onChange={select('hasWarnings')}>
-          <option value="">With or without</option>
-          <option value="true">With warnings</option>
-          <option value="false">Without warnings</option>
-        </SelectField>
-        <SelectField label="Maker" value={query.makerId ?? ''} onChange={select('makerId')}>
-          <option value="">Any maker</option>
-          {makers.data?.data.map((m) => (
-            <option key={m.id} value={m.id}>
-              {m.name}
-            </option>
-          ))}
-        </SelectField>
-        <SelectField label="Paper" value={query.paperId ?? ''} onChange={select('paperId')}>
-          <option value="">Any paper</option>
-          {papers.data?.data.map((p) => (
-            <option key={p.id} value={p.id}>
-              {p.label}
-            </option>
-          ))}
-        </SelectField>
-        <SelectField label="Enclosure" value={query.enclosureId ?? ''} onChange={select('enclosureId')}>
-          <option value="">Any enclosure</option>
-          {enclosures.data?.data.map((e) => (
-            <option key={e.id} value={e.id}>
-              {e.name}
-            </option>
-          ))}
-        </SelectField>
+        <ChoiceSelect label="Process" empty="Any process" options={PROCESS.options} value={query.process} onChoose={choose('process')} />
+        <ChoiceSelect label="Support" empty="Any support" options={SUPPORT.options} value={query.support} onChoose={choose('support')} />
+        <ChoiceSelect label="Status" empty="Any status" options={STATUS.options} value={query.status} onChoose={choose('status')} />
+        <ChoiceSelect label="Toner class" empty="Any toner" options={TONER_CLASS.options} value={query.tonerClass} onChoose={choose('tonerClass')} />
+        <ChoiceSelect label="Light responsivity" empty="Any" options={LIGHT_RESPONSIVITY.options} value={query.lightResponsivity} onChoose={choose('lightResponsivity')} />
+        <ChoiceSelect label="Warnings" empty="With or without" options={WARNINGS} value={query.hasWarnings} onChoose={choose('hasWarnings')} />
+        <ChoiceSelect label="Maker" empty="Any maker" options={makers.data?.data.map((m) => ({ value: m.id, label: m.name }))} value={query.makerId} onChoose={choose('makerId')} />
+        <ChoiceSelect label="Paper" empty="Any paper" options={papers.data?.data.map((p) => ({ value: p.id, label: p.label }))} value={query.paperId} onChoose={choose('paperId')} />
+        <ChoiceSelect
+          label="Enclosure"
+          empty="Any enclosure"
+          options={enclosures.data?.data.map((e) => ({ value: e.id, label: e.name }))}
+          value={query.enclosureId}
+          onChoose={choose('enclosureId')}
+        />
         {showLocation ? (
-          <SelectField label="Location" hint="Includes everything inside it" value={query.locationId ?? ''} onChange={select('locationId')}>
-            <option value="">Anywhere</option>
-            {locations.data?.data.map((l) => (
-              <option key={l.id} value={l.id}>
-                {l.pathLabel}
-              </option>
-            ))}
-          </SelectField>
+          <ChoiceSelect
+            label="Location"
+            hint="Includes everything inside it"
+            empty="Anywhere"
+            options={locations.data?.data.map((l) => ({ value: l.id, label: l.pathLabel }))}
+            value={query.locationId}
+            onChoose={choose('locationId')}
+          />
         ) : null}
       </div>
     </form>

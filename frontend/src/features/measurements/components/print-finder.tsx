@@ -3,9 +3,8 @@ import { Link, useNavigate } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import { printListQuerySchema } from '@toneledger/common/schemas/catalogue';
 import { Button } from '@/components/ui/button';
-import { TextField } from '@/components/ui/field';
 import { ErrorNotice } from '@/components/ui/notice';
-import { limitsOf } from '@/lib/forms/limits';
+import { SearchField } from '@/components/ui/search-field';
 import { findPrintsQueryOptions, useFindPrints } from '@/lib/prints-api';
 
 const PAGE_SIZE = 10;
@@ -46,15 +45,7 @@ export function PrintFinder() {
   return (
     <form role="search" aria-label="Open a print" onSubmit={submit} className="mb-6 flex flex-col gap-2">
       <div className="flex flex-wrap items-end gap-2">
-        <TextField
-          label="Accession number"
-          type="search"
-          value={text}
-          onChange={(e) => setText(e.target.value)}
-          placeholder="For example 1979.3.12"
-          maxLength={limitsOf(printListQuerySchema, 'q').maxLength}
-          fieldClassName="w-full max-w-sm"
-        />
+        <SearchField label="Accession number" value={text} onText={setText} querySchema={printListQuerySchema} placeholder="For example 1979.3.12" fieldClassName="w-full max-w-sm" />
         <Button type="submit" variant="primary" disabled={searching}>
           Open print
         </Button>

@@ -1,8 +1,7 @@
 import { useEffect, useState, type FormEvent } from 'react';
 import { referenceListQuerySchema } from '@toneledger/common/schemas/catalogue';
 import { Button } from '@/components/ui/button';
-import { TextField } from '@/components/ui/field';
-import { limitsOf } from '@/lib/forms/limits';
+import { SearchField } from '@/components/ui/search-field';
 
 export interface ReferenceSearchProps {
   /** What is searched, e.g. "makers". */
@@ -24,7 +23,7 @@ export function ReferenceSearch({ what, label, q, onSearch }: ReferenceSearchPro
 
   return (
     <form role="search" aria-label={`Search ${what}`} onSubmit={submit} className="mb-4 flex flex-wrap items-end gap-3">
-      <TextField label={label} type="search" value={text} onChange={(event) => setText(event.target.value)} fieldClassName="w-72" maxLength={limitsOf(referenceListQuerySchema, 'q').maxLength} />
+      <SearchField label={label} value={text} onText={setText} querySchema={referenceListQuerySchema} fieldClassName="w-72" />
       <Button type="submit" variant="primary">
         Search
       </Button>

@@ -2,13 +2,15 @@ import { useEffect, useState, type FormEvent } from 'react';
 import { ROLE_LABELS, ROLES, type Role } from '@toneledger/common/domain/roles';
 import { userListQuerySchema, type UserListQuery } from '@toneledger/common/schemas/users';
 import { Button } from '@/components/ui/button';
-import { SelectField, TextField } from '@/components/ui/field';
-import { limitsOf } from '@/lib/forms/limits';
+import { ChoiceSelect } from '@/components/ui/choice-select';
+import { SearchField } from '@/components/ui/search-field';
 
 export interface UsersFiltersProps {
   query: UserListQuery;
   onChange: (patch: Partial<UserListQuery>) => void;
 }
+
+const ROLE_OPTIONS = ROLES.map((role) => ({ value: role, label: ROLE_LABELS[role] }));
 
 export function UsersFilters({ query, onChange }: UsersFiltersProps) {
   const [text, setText] = useState(query.q ?? '');
@@ -21,27 +23,15 @@ export function UsersFilters({ query, onChange }: UsersFiltersProps) {
 
   return (
     <form role="search" aria-label="Filter people" onSubmit={submit} className="mb-4 flex flex-wrap items-end gap-3">
-      <TextField
-        label="Name or e-mail"
-        type="search"
-        value={text}
-        onChange={(event) => setText(event.target.value)}
-        fieldClassName="w-64"
-        maxLength={limitsOf(userListQuerySchema, 'q').maxLength}
-      />
-      <SelectField
+      <SearchField label="Name or e-mail" value={text} onText={setText} querySchema={userListQuerySchema} fieldClassName="w-64" />
+      <ChoiceSelect
         label="Role"
-        value={query.role ?? ''}
-        onChange={(event) => onChange({ role: (event.target.value || undefined) as Role | undefined })}
+        empty="Any role"
+        options={ROLE_OPTIONS}
+        value={query.role}
+        onChoose={(role) => onChange({ role: role as Role | undefined })}
         fieldClassName="w-44"
-      >
-        <option value="">Any role</option>
-        {ROLES.map((role) => (
-          <option key={role} value={role}>
-            {ROLE_LABELS[role]}
-          </option>
-        ))}
-      </SelectField>
+      />
       <Button type="submit" variant="primary">
         Search
       </Button>
