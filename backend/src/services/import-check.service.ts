@@ -115,6 +115,8 @@ export function checkImport(prints: ReadFile, stepsFile: ReadFile | null, l: Loo
   const rows: PlannedRow[] = [];
   const newMakers = new Map<string, string>();
   const has = (column: string) => prints.header.includes(column);
+  /** Whether a new print took toning steps from its toner_classes cell (the column is then not ignored). */
+  let tonerClassesRead = false;
 
   for (const { row, cells } of prints.rows) {
     const state: RowState = { add: (column, message) => issues.push({ file: 'prints', row, column, value: cells[column] ?? null, message }), names: {}, newMaker: null };
@@ -158,6 +160,7 @@ export function checkImport(prints: ReadFile, stepsFile: ReadFile | null, l: Loo
     const fileSteps = stepsByPrint.get(accession.toLowerCase());
     stepsByPrint.delete(accession.toLowerCase());
     const toning = !current && !fileSteps && has('toner_classes') ? toningFrom(s('toner_classes'), state) : [];
+    if (toning.length) tonerClassesRead = true;
     if (current?.row.location_id && parsed.success && !parsed.data.locationId) {
       state.add('location', 'A print in the catalogue cannot be left without a place: name the place it moves to');
     }
@@ -217,7 +220,9 @@ export function checkImport(prints: ReadFile, stepsFile: ReadFile | null, l: Loo
   for (const [, left] of stepsByPrint) {
     issues.push({ file: 'steps', row: left.row, column: 'accession_number', value: left.accessionNumber, message: 'No row of the prints file has this accession number' });
   }
-  const ignoredColumns = prints.header.filter((c) => PRINT_FIELDS.some((f) => f.column === c && f.origin !== 'entered'));
+  const ignoredColumns = prints.header.filter(
+    (c) => PRINT_FIELDS.some((f) => f.column === c && f.origin !== 'entered') && !(c === 'toner_classes' && tonerClassesRead),
+  );
   const plan = { rows, issues, newMakers: [...newMakers.values()].sort(), ignoredColumns, stepRows: stepsFile?.rows.length ?? 0 };
   const hash = createHash('sha256').update(JSON.stringify([plan.newMakers, rows.map((r) => [r.row, r.accessionNumber, r.action, r.changes])])).digest('hex');
   return { ...plan, hash };

@@ -114,7 +114,7 @@ function Ready({ job, onStartAgain }: { job: ImportJob; onStartAgain: () => void
       ) : null}
       {job.newMakers.length > 0 ? (
         <div className="text-sm">
-          <p>These {job.newMakers.length === 1 ? 'maker is' : `${job.newMakers.length} makers are`} not in the catalogue and will be created:</p>
+          <p>{job.newMakers.length === 1 ? 'This maker is' : `These ${job.newMakers.length} makers are`} not in the catalogue and will be created:</p>
           <ul className="mt-1 list-disc pl-6">
             {job.newMakers.map((name) => (
               <li key={name}>{name}</li>
