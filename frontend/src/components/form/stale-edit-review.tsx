@@ -1,5 +1,6 @@
 import type { ReactNode } from 'react';
 import { Button } from '@/components/ui/button';
+import { TableHead } from '@/components/ui/table-head';
 import { formatDateTime } from '@/lib/format';
 import type { ReviewValue, StaleRow } from '@/lib/forms/stale-edit';
 
@@ -46,14 +47,7 @@ export function StaleEditReview({ subject, rows, lastChangedBy, lastChangedAt, c
       {rows.length > 0 ? (
         <table className="mt-3 w-full border-collapse bg-white text-left text-sm">
           <caption className="mb-1 text-left font-semibold">Changed since you opened it</caption>
-          <thead className="bg-paper-100 text-xs text-ink-700 uppercase">
-            <tr>
-              <th scope="col" className="px-2 py-1.5">Field</th>
-              <th scope="col" className="px-2 py-1.5">When you opened it</th>
-              <th scope="col" className="px-2 py-1.5">Saved since</th>
-              <th scope="col" className="px-2 py-1.5">Yours</th>
-            </tr>
-          </thead>
+          <TableHead columns={['Field', 'When you opened it', 'Saved since', 'Yours']} />
           <tbody>
             {rows.map((row) => (
               <tr key={row.key} className="border-t border-paper-200 align-top">

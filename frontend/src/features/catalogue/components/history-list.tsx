@@ -2,6 +2,7 @@ import { useId } from 'react';
 import type { HistoryEvent } from '@toneledger/common/schemas/catalogue';
 import { ErrorNotice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/loading';
+import { TableHead } from '@/components/ui/table-head';
 import { formatDateTime } from '@/lib/format';
 import { useHistory } from '@/features/catalogue/api/get-history';
 
@@ -33,13 +34,7 @@ function Changes({ changes }: { changes: HistoryEvent['changes'] }) {
   if (changes.length === 0) return null;
   return (
     <table className="mt-1.5 w-full border-collapse text-left text-xs">
-      <thead>
-        <tr className="text-ink-700">
-          <th scope="col" className="py-1 pr-3 font-semibold">Field</th>
-          <th scope="col" className="py-1 pr-3 font-semibold">Before</th>
-          <th scope="col" className="py-1 font-semibold">After</th>
-        </tr>
-      </thead>
+      <TableHead variant="inline" columns={['Field', 'Before', 'After']} />
       <tbody>
         {changes.map((c, i) => (
           <tr key={`${c.field}-${i}`} className="border-t border-paper-200 align-top">

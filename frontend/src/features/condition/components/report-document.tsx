@@ -2,6 +2,7 @@ import { useId, type ReactNode } from 'react';
 import type { Print } from '@toneledger/common/schemas/catalogue';
 import { CONDITION_CONTEXT_LABELS, GRADE_LABELS, type ConditionReport, type ConditionTerm, type GradeDefinitions } from '@toneledger/common/schemas/condition';
 import type { PrintImage } from '@toneledger/common/schemas/images';
+import { TableHead } from '@/components/ui/table-head';
 import { formatDateTime } from '@/lib/format';
 import { imageLabel } from '@/features/condition/components/region-drawer';
 import { PrintIdentityLine } from '@/features/condition/components/print-identity-line';
@@ -110,16 +111,7 @@ export function ReportDocument({ report, print, images, terms, definitions, inst
           <p className="text-sm text-ink-700">No observations recorded.</p>
         ) : (
           <table className="w-full border-collapse text-left text-sm">
-            <thead className="bg-paper-100 text-xs text-ink-700 uppercase">
-              <tr>
-                <th scope="col" className="px-2 py-1.5">No.</th>
-                <th scope="col" className="px-2 py-1.5">Observed</th>
-                <th scope="col" className="px-2 py-1.5">Where</th>
-                <th scope="col" className="px-2 py-1.5">Extent</th>
-                <th scope="col" className="px-2 py-1.5">Severity</th>
-                <th scope="col" className="px-2 py-1.5">Notes</th>
-              </tr>
-            </thead>
+            <TableHead columns={['No.', 'Observed', 'Where', 'Extent', 'Severity', 'Notes']} />
             <tbody>
               {observations.map((o, index) => (
                 <tr key={o.id} className="border-t border-paper-200 align-top break-inside-avoid">

@@ -5,6 +5,7 @@ import { CONDITION_CONTEXT_LABELS, GRADE_LABELS } from '@toneledger/common/schem
 import { Button } from '@/components/ui/button';
 import { ErrorNotice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/loading';
+import { TableHead } from '@/components/ui/table-head';
 import { useReports } from '@/features/condition/api/get-reports';
 import { formatDay } from '@/features/condition/utils/format';
 
@@ -34,16 +35,7 @@ export function ReportsPanel({ printId, role }: { printId: string; role: Role })
           <div className="overflow-x-auto">
             <table className="w-full border-collapse text-left text-sm">
               <caption className="sr-only">Condition reports, newest first</caption>
-              <thead className="bg-paper-100 text-xs text-ink-700 uppercase">
-                <tr>
-                  <th scope="col" className="px-2 py-1.5">Examined on</th>
-                  <th scope="col" className="px-2 py-1.5">Context</th>
-                  <th scope="col" className="px-2 py-1.5">Grade</th>
-                  <th scope="col" className="px-2 py-1.5">Status</th>
-                  <th scope="col" className="px-2 py-1.5">Examiner</th>
-                  <th scope="col" className="px-2 py-1.5">Addenda</th>
-                </tr>
-              </thead>
+              <TableHead columns={['Examined on', 'Context', 'Grade', 'Status', 'Examiner', 'Addenda']} />
               <tbody>
                 {reports.data.map((r) => (
                   <tr key={r.id} className="border-t border-paper-200">

@@ -3,6 +3,7 @@ import { csvMappingSchema, type SpotAnalysis } from '@toneledger/common/schemas/
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/field';
 import { ErrorNotice, Notice } from '@/components/ui/notice';
+import { TableHead } from '@/components/ui/table-head';
 import { issuesToFieldErrors } from '@/lib/forms/field-errors';
 import { usePreviewCsv, type CsvPreview } from '@/features/measurements/api/preview-csv';
 import {
@@ -128,15 +129,7 @@ export function CsvImport({ printId, spots, onUse }: CsvImportProps) {
             <div className="overflow-x-auto rounded border border-paper-300 bg-white">
               <table className="w-full text-left text-xs">
                 <caption className="px-2 py-1 text-left text-ink-700">First rows of the file</caption>
-                <thead className="bg-paper-100">
-                  <tr>
-                    {columns.columns.map((c) => (
-                      <th key={c} scope="col" className="px-2 py-1 font-semibold">
-                        {c}
-                      </th>
-                    ))}
-                  </tr>
-                </thead>
+                <TableHead variant="plain" columns={columns.columns} />
                 <tbody>
                   {columns.sample.map((row, i) => (
                     <tr key={i} className="border-t border-paper-200">
@@ -168,14 +161,7 @@ export function CsvImport({ printId, spots, onUse }: CsvImportProps) {
           <div className="overflow-x-auto rounded border border-paper-300 bg-white">
             <table className="w-full text-left text-sm">
               <caption className="sr-only">Problems in the file, by row and column</caption>
-              <thead className="bg-paper-100">
-                <tr>
-                  <th scope="col" className="px-2 py-1">Row</th>
-                  <th scope="col" className="px-2 py-1">Column</th>
-                  <th scope="col" className="px-2 py-1">Value</th>
-                  <th scope="col" className="px-2 py-1">Problem</th>
-                </tr>
-              </thead>
+              <TableHead variant="plain" columns={['Row', 'Column', 'Value', 'Problem']} />
               <tbody>
                 {checked.errors.map((e, i) => (
                   <tr key={`${e.row}-${e.column}-${i}`} className="border-t border-paper-200">

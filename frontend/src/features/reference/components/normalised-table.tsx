@@ -1,4 +1,5 @@
 import type { NormalisedIngredient } from '@toneledger/common/domain/recipes';
+import { TableHead } from '@/components/ui/table-head';
 import { formatQuantity } from '@/features/reference/components/recipe-format';
 
 /**
@@ -10,15 +11,16 @@ export function NormalisedTable({ rows, caption }: { rows: NormalisedIngredient[
     <div className="overflow-x-auto rounded border border-paper-300 bg-white">
       <table className="w-full border-collapse text-left text-sm">
         <caption className="sr-only">{caption}</caption>
-        <thead className="bg-paper-100 text-xs font-semibold tracking-wide text-ink-700 uppercase">
-          <tr>
-            <th scope="col" className="px-3 py-2">Chemical</th>
-            <th scope="col" className="px-3 py-2">Given as</th>
-            <th scope="col" className="px-3 py-2 text-right">Weighed, g/L</th>
-            <th scope="col" className="px-3 py-2 text-right">Measured, ml/L</th>
-            <th scope="col" className="px-3 py-2 text-right">Pure substance, g/L</th>
-          </tr>
-        </thead>
+        <TableHead
+          variant="roomy"
+          columns={[
+            'Chemical',
+            'Given as',
+            { label: 'Weighed, g/L', align: 'right' },
+            { label: 'Measured, ml/L', align: 'right' },
+            { label: 'Pure substance, g/L', align: 'right' },
+          ]}
+        />
         <tbody>
           {rows.map((row, index) => (
             <tr key={`${index}-${row.chemical}`} className="border-t border-paper-200 align-top">

@@ -1,5 +1,6 @@
 import { TONER_CLASS } from '@toneledger/common/schemas/vocab';
 import type { Recipe } from '@toneledger/common/schemas/catalogue';
+import { TableHead } from '@/components/ui/table-head';
 import { formatCount } from '@/lib/format';
 import { NormalisedTable } from '@/features/reference/components/normalised-table';
 import { RecipeCautions } from '@/features/reference/components/recipe-cautions';
@@ -30,15 +31,16 @@ export function RecipeView({ recipe }: { recipe: Recipe }) {
         <div className="overflow-x-auto rounded border border-paper-300 bg-white">
           <table className="w-full border-collapse text-left text-sm">
             <caption className="sr-only">Ingredients as stated</caption>
-            <thead className="bg-paper-100 text-xs font-semibold tracking-wide text-ink-700 uppercase">
-              <tr>
-                <th scope="col" className="px-3 py-2">Chemical</th>
-                <th scope="col" className="px-3 py-2 text-right">Amount</th>
-                <th scope="col" className="px-3 py-2">Unit</th>
-                <th scope="col" className="px-3 py-2 text-right">Strength (%)</th>
-                <th scope="col" className="px-3 py-2 text-right">Density (g/ml)</th>
-              </tr>
-            </thead>
+            <TableHead
+              variant="roomy"
+              columns={[
+                'Chemical',
+                { label: 'Amount', align: 'right' },
+                'Unit',
+                { label: 'Strength (%)', align: 'right' },
+                { label: 'Density (g/ml)', align: 'right' },
+              ]}
+            />
             <tbody>
               {recipe.ingredients.map((ingredient, index) => (
                 <tr key={`${index}-${ingredient.chemical}`} className="border-t border-paper-200">

@@ -1,6 +1,7 @@
 import { useId, useState } from 'react';
 import { scaleRecipe, type Recipe as RecipeToMix } from '@toneledger/common/domain/recipes';
 import { TextField } from '@/components/ui/field';
+import { TableHead } from '@/components/ui/table-head';
 import { formatFactor, formatQuantity, readNumber } from '@/features/reference/components/recipe-format';
 
 /** "Scale to" a volume: every ingredient for the new volume, recomputed as you type. */
@@ -48,14 +49,15 @@ export function ScaleTool({ recipe }: { recipe: RecipeToMix }) {
         <div className="overflow-x-auto rounded border border-paper-300 bg-white">
           <table className="w-full border-collapse text-left text-sm">
             <caption className="sr-only">Ingredients for {formatQuantity(scaled.volumeMl)} ml</caption>
-            <thead className="bg-paper-100 text-xs font-semibold tracking-wide text-ink-700 uppercase">
-              <tr>
-                <th scope="col" className="px-3 py-2">Chemical</th>
-                <th scope="col" className="px-3 py-2 text-right">For {formatQuantity(scaled.volumeMl)} ml</th>
-                <th scope="col" className="px-3 py-2 text-right">As stated ({formatQuantity(recipe.volumeMl)} ml)</th>
-                <th scope="col" className="px-3 py-2">Strength</th>
-              </tr>
-            </thead>
+            <TableHead
+              variant="roomy"
+              columns={[
+                'Chemical',
+                { label: `For ${formatQuantity(scaled.volumeMl)} ml`, align: 'right' },
+                { label: `As stated (${formatQuantity(recipe.volumeMl)} ml)`, align: 'right' },
+                'Strength',
+              ]}
+            />
             <tbody>
               {scaled.ingredients.map((ingredient, index) => {
                 const original = recipe.ingredients[index];
