@@ -1,5 +1,5 @@
 import { createHash, randomUUID } from 'node:crypto';
-import { createWriteStream } from 'node:fs';
+import { createWriteStream, rmSync } from 'node:fs';
 import { mkdtemp, rm } from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';
@@ -167,7 +167,13 @@ export function imageUpload(maxBytes: number): RequestHandler {
       if (err) return next(asAppError(err, maxBytes));
       const stored = req.file as (Express.Multer.File & StoredImage) | undefined;
       if (!stored) return next(validationFailed([{ path: FIELD, message: 'Choose an image file', code: 'required' }]));
-      // Whatever the handler does with it, the temporary folder goes when the response is over.
+      // Whatever the handler does with it, the temporary folder goes before the answer is sent (so a
+      // client that has its answer never sees it), or when the connection closes without one.
+      const end = res.end.bind(res) as (...args: unknown[]) => Response;
+      res.end = ((...args: unknown[]) => {
+        rmSync(stored.tempDir, { recursive: true, force: true });
+        return end(...args);
+      }) as Response['end'];
       res.once('close', () => void rm(stored.tempDir, { recursive: true, force: true }));
       next();
     });
