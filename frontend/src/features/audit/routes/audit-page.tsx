@@ -1,8 +1,6 @@
 import { auditListQuerySchema } from '@toneledger/common/schemas/audit';
-import { ErrorNotice } from '@/components/ui/notice';
-import { Loading } from '@/components/ui/loading';
 import { PageHeader } from '@/components/ui/page-header';
-import { Pagination } from '@/components/ui/pagination';
+import { PagedList } from '@/components/ui/paged-list';
 import { useSearchQuery } from '@/lib/search-query';
 import { useDocumentTitle } from '@/lib/use-document-title';
 import { useAuditEvents } from '@/features/audit/api/get-audit-events';
@@ -21,27 +19,17 @@ export function AuditPage() {
         description="Every sign-in, sign-out and change: who, when, and the record before and after. Select a person, action or record in the table to see only its events."
       />
       <AuditFilters query={query} onChange={setQuery} />
-      {events.isError ? <ErrorNotice error={events.error} title="The audit trail could not be loaded." /> : null}
-      {events.isPending ? (
-        <Loading label="Loading events…" />
-      ) : events.data ? (
-        <>
+      <PagedList list={events} query={query} setQuery={setQuery} errorTitle="The audit trail could not be loaded." loadingLabel="Loading events…">
+        {(page, busy) => (
           <AuditTable
-            events={events.data.data}
+            events={page.data}
             query={query}
-            total={events.data.pagination.total}
-            busy={events.isPlaceholderData}
+            total={page.pagination.total}
+            busy={busy}
             onFilter={setQuery}
           />
-          <Pagination
-            page={query.page}
-            pageSize={query.pageSize}
-            total={events.data.pagination.total}
-            onPageChange={(page) => setQuery({ page })}
-            onPageSizeChange={(pageSize) => setQuery({ pageSize })}
-          />
-        </>
-      ) : null}
+        )}
+      </PagedList>
     </section>
   );
 }

@@ -3,10 +3,8 @@ import { useNavigate } from 'react-router-dom';
 import { can } from '@toneledger/common/domain/roles';
 import { printListQuerySchema } from '@toneledger/common/schemas/catalogue';
 import { Button, buttonClasses } from '@/components/ui/button';
-import { ErrorNotice } from '@/components/ui/notice';
-import { Loading } from '@/components/ui/loading';
 import { PageHeader } from '@/components/ui/page-header';
-import { Pagination } from '@/components/ui/pagination';
+import { PagedList } from '@/components/ui/paged-list';
 import { useMe } from '@/lib/auth';
 import { useSearchQuery } from '@/lib/search-query';
 import { useDocumentTitle } from '@/lib/use-document-title';
@@ -59,30 +57,19 @@ export function PrintsPage() {
       <div className="mb-2 flex justify-end">
         <ColumnChooser columns={choosable} visibility={visibility} onChange={setVisibility} />
       </div>
-      {prints.isError ? <ErrorNotice error={prints.error} title="The prints could not be loaded." /> : null}
-      {prints.isPending ? (
-        <Loading label="Loading prints…" />
-      ) : prints.data ? (
-        <>
+      <PagedList list={prints} query={query} setQuery={setQuery} errorTitle="The prints could not be loaded." loadingLabel="Loading prints…">
+        {(page, busy) => (
           <PrintsTable
-            prints={prints.data.data}
+            prints={page.data}
             query={query}
-            total={prints.data.pagination.total}
-            busy={prints.isPlaceholderData}
+            total={page.pagination.total}
+            busy={busy}
             columnVisibility={visibility}
             showLocation={showLocation}
             onSortChange={(sort) => setQuery({ sort })}
           />
-          <Pagination
-            page={query.page}
-            pageSize={query.pageSize}
-            total={prints.data.pagination.total}
-            estimated={prints.data.pagination.estimated ?? false}
-            onPageChange={(page) => setQuery({ page })}
-            onPageSizeChange={(pageSize) => setQuery({ pageSize })}
-          />
-        </>
-      ) : null}
+        )}
+      </PagedList>
     </section>
   );
 }

@@ -1,9 +1,7 @@
 import { can } from '@toneledger/common/domain/roles';
 import { leadersQuerySchema } from '@toneledger/common/schemas/measurements';
-import { ErrorNotice } from '@/components/ui/notice';
-import { Loading } from '@/components/ui/loading';
 import { PageHeader } from '@/components/ui/page-header';
-import { Pagination } from '@/components/ui/pagination';
+import { PagedList } from '@/components/ui/paged-list';
 import { useMe } from '@/lib/auth';
 import { useSearchQuery } from '@/lib/search-query';
 import { useDocumentTitle } from '@/lib/use-document-title';
@@ -30,27 +28,17 @@ export function LeadersPage() {
       <h2 className="mb-2 text-lg">Spots changing most</h2>
       <ThresholdSetting mayChange={can(me.role, 'settings.manage')} />
       <LeadersFilters query={query} onChange={setQuery} />
-      {leaders.isError ? <ErrorNotice error={leaders.error} title="The list could not be loaded." /> : null}
-      {leaders.isPending ? (
-        <Loading label="Loading the spots…" />
-      ) : leaders.data ? (
-        <>
+      <PagedList list={leaders} query={query} setQuery={setQuery} errorTitle="The list could not be loaded." loadingLabel="Loading the spots…">
+        {(page, busy) => (
           <LeadersTable
-            leaders={leaders.data.data}
+            leaders={page.data}
             query={query}
-            total={leaders.data.pagination.total}
-            busy={leaders.isPlaceholderData}
+            total={page.pagination.total}
+            busy={busy}
             onSortChange={(sort) => setQuery({ sort })}
           />
-          <Pagination
-            page={query.page}
-            pageSize={query.pageSize}
-            total={leaders.data.pagination.total}
-            onPageChange={(page) => setQuery({ page })}
-            onPageSizeChange={(pageSize) => setQuery({ pageSize })}
-          />
-        </>
-      ) : null}
+        )}
+      </PagedList>
     </section>
   );
 }

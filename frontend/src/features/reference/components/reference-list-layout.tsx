@@ -2,11 +2,10 @@ import type { ReactNode } from 'react';
 import type { UseQueryResult } from '@tanstack/react-query';
 import type { Pagination as PageCounts } from '@toneledger/common/schemas/envelope';
 import { Button } from '@/components/ui/button';
-import { Loading } from '@/components/ui/loading';
-import { ErrorNotice, Notice } from '@/components/ui/notice';
 import { PageHeader } from '@/components/ui/page-header';
-import { Pagination } from '@/components/ui/pagination';
+import { PagedList } from '@/components/ui/paged-list';
 import { ReferenceSearch } from '@/features/reference/components/reference-search';
+import { SavedNotice } from '@/features/reference/components/saved-notice';
 
 export interface ReferenceListQueryState {
   q?: string;
@@ -50,31 +49,13 @@ export function ReferenceListLayout<T>(props: ReferenceListLayoutProps<T>) {
           ) : null
         }
       />
-      <div aria-live="polite" className="empty:hidden mb-3">
-        {saved ? (
-          <Notice tone="success" role="status">
-            {saved}
-          </Notice>
-        ) : null}
-      </div>
+      <SavedNotice saved={saved} />
       <div className={panel ? 'grid items-start gap-5 lg:grid-cols-[minmax(0,1fr)_26rem]' : undefined}>
         <div className="min-w-0">
           <ReferenceSearch what={searchWhat} label={searchLabel} q={query.q} onSearch={(q) => setQuery({ q })} />
-          {list.isError ? <ErrorNotice error={list.error} title={`The list of ${what} could not be loaded.`} /> : null}
-          {list.isPending ? (
-            <Loading label={`Loading ${what}…`} />
-          ) : list.data ? (
-            <>
-              {renderTable(list.data.data, list.isPlaceholderData)}
-              <Pagination
-                page={query.page}
-                pageSize={query.pageSize}
-                total={list.data.pagination.total}
-                onPageChange={(page) => setQuery({ page })}
-                onPageSizeChange={(pageSize) => setQuery({ pageSize })}
-              />
-            </>
-          ) : null}
+          <PagedList list={list} query={query} setQuery={setQuery} errorTitle={`The list of ${what} could not be loaded.`} loadingLabel={`Loading ${what}…`}>
+            {(page, busy) => renderTable(page.data, busy)}
+          </PagedList>
         </div>
         {panel}
       </div>

@@ -17,6 +17,7 @@ import { buildLocationTree } from '@/features/reference/components/location-tree
 import { LocationsTreeTable } from '@/features/reference/components/locations-tree-table';
 import { ReferenceSearch } from '@/features/reference/components/reference-search';
 import { useEditPanel } from '@/features/reference/components/use-edit-panel';
+import { SavedNotice } from '@/features/reference/components/saved-notice';
 
 /** The whole tree is loaded at once (the API's largest page). */
 const TREE_PAGE_SIZE = 1000;
@@ -74,13 +75,7 @@ function LocationsTree({ canWrite }: { canWrite: boolean }) {
           ) : null
         }
       />
-      <div aria-live="polite" className="mb-3 empty:hidden">
-        {edit.saved ? (
-          <Notice tone="success" role="status">
-            {edit.saved}
-          </Notice>
-        ) : null}
-      </div>
+      <SavedNotice saved={edit.saved} />
       <div className={edit.panel ? 'grid items-start gap-5 lg:grid-cols-[minmax(0,1fr)_26rem]' : undefined}>
         <div className="min-w-0">
           <ReferenceSearch what="locations" label="Name or code" q={query.q} onSearch={(q) => setQuery({ q })} />

@@ -12,6 +12,7 @@ import { useRecipe } from '@/features/reference/api/get-recipe';
 import { RecipeEditor } from '@/features/reference/components/recipe-editor';
 import { formatQuantity } from '@/features/reference/components/recipe-format';
 import { RecipeView } from '@/features/reference/components/recipe-view';
+import { SavedNotice } from '@/features/reference/components/saved-notice';
 
 function BackLink() {
   return (
@@ -83,13 +84,7 @@ function ExistingRecipe({ id, canWrite }: { id: string; canWrite: boolean }) {
           </>
         }
       />
-      <div aria-live="polite" className="mb-3 empty:hidden">
-        {saved ? (
-          <Notice tone="success" role="status">
-            {saved}
-          </Notice>
-        ) : null}
-      </div>
+      <SavedNotice saved={saved} />
       {editing ? (
         <RecipeEditor
           key={data.id}

@@ -1,8 +1,6 @@
 import { userListQuerySchema } from '@toneledger/common/schemas/users';
-import { ErrorNotice } from '@/components/ui/notice';
-import { Loading } from '@/components/ui/loading';
 import { PageHeader } from '@/components/ui/page-header';
-import { Pagination } from '@/components/ui/pagination';
+import { PagedList } from '@/components/ui/paged-list';
 import { useSearchQuery } from '@/lib/search-query';
 import { useDocumentTitle } from '@/lib/use-document-title';
 import { useUsers } from '@/features/users/api/get-users';
@@ -21,27 +19,17 @@ export function UsersPage() {
         description="Everyone who has signed in, and the role each holds. A person appears here after their first sign-in. Every change of role is kept in the audit trail."
       />
       <UsersFilters query={query} onChange={setQuery} />
-      {users.isError ? <ErrorNotice error={users.error} title="The list of people could not be loaded." /> : null}
-      {users.isPending ? (
-        <Loading label="Loading people…" />
-      ) : users.data ? (
-        <>
+      <PagedList list={users} query={query} setQuery={setQuery} errorTitle="The list of people could not be loaded." loadingLabel="Loading people…">
+        {(page, busy) => (
           <UsersTable
-            users={users.data.data}
+            users={page.data}
             query={query}
-            total={users.data.pagination.total}
-            busy={users.isPlaceholderData}
+            total={page.pagination.total}
+            busy={busy}
             onSortChange={(sort) => setQuery({ sort })}
           />
-          <Pagination
-            page={query.page}
-            pageSize={query.pageSize}
-            total={users.data.pagination.total}
-            onPageChange={(page) => setQuery({ page })}
-            onPageSizeChange={(pageSize) => setQuery({ pageSize })}
-          />
-        </>
-      ) : null}
+        )}
+      </PagedList>
     </section>
   );
 }
