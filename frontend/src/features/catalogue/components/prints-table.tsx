@@ -1,21 +1,15 @@
 import { useMemo } from 'react';
 import { Link } from 'react-router-dom';
-import {
-  createColumnHelper,
-  getCoreRowModel,
-  useReactTable,
-  type SortingState,
-  type Updater,
-  type VisibilityState,
-} from '@tanstack/react-table';
-import type { PrintListItem, PrintListQuery } from '@toneledger/common/schemas/catalogue';
+import { createColumnHelper, type VisibilityState } from '@tanstack/react-table';
+import { printSortSchema, type PrintListItem, type PrintListQuery } from '@toneledger/common/schemas/catalogue';
 import { PROCESS, STATUS, SUPPORT, TONER_CLASS } from '@toneledger/common/schemas/vocab';
 import { labelOf } from '@toneledger/common/fields/print';
 import { DataTable } from '@/components/ui/data-table';
 import { formatDate } from '@/lib/format';
-import { sortingToSort, sortToSorting } from '@/features/catalogue/utils/prints-sort';
+import { sortingToSort, sortToSorting, useServerTable } from '@/lib/server-table';
 import { WarningIndicator } from '@/features/catalogue/components/warning-indicator';
 
+const SORTS = printSortSchema.options as readonly string[];
 const column = createColumnHelper<PrintListItem>();
 const none = <span className="text-ink-600">—</span>;
 
@@ -113,22 +107,15 @@ export function PrintsTable({ prints, query, total, busy, columnVisibility, show
     () => ({ ...columnVisibility, ...(showLocation ? {} : { location: false }) }),
     [columnVisibility, showLocation],
   );
-  const table = useReactTable({
+  const table = useServerTable({
     data: prints,
     columns: printColumns,
     getRowId: (print) => print.id,
-    getCoreRowModel: getCoreRowModel(),
-    manualSorting: true,
-    manualPagination: true,
-    manualFiltering: true,
-    enableSortingRemoval: false,
-    sortDescFirst: false,
-    pageCount: Math.max(1, Math.ceil(total / query.pageSize)),
-    state: { sorting, columnVisibility: visibility, pagination: { pageIndex: query.page - 1, pageSize: query.pageSize } },
-    onSortingChange: (updater: Updater<SortingState>) => {
-      const next = typeof updater === 'function' ? updater(sorting) : updater;
-      onSortChange(sortingToSort(next, query.sort));
-    },
+    query,
+    total,
+    sorting,
+    columnVisibility: visibility,
+    onSortingChange: (next) => onSortChange(sortingToSort(next, query.sort, SORTS)),
   });
   return <DataTable table={table} caption="Prints in the catalogue" empty="No prints match this search." busy={busy} />;
 }

@@ -1,10 +1,10 @@
-import { Link, useNavigate, useParams } from 'react-router-dom';
-import { ErrorNotice } from '@/components/ui/notice';
+import { useNavigate, useParams } from 'react-router-dom';
 import { Loading } from '@/components/ui/loading';
 import { PageHeader } from '@/components/ui/page-header';
 import { useDocumentTitle } from '@/lib/use-document-title';
 import { usePrint } from '@/lib/prints-api';
 import { PrintForm } from '@/features/catalogue/components/print-form';
+import { PrintLoadError } from '@/features/catalogue/components/print-load-error';
 
 export function PrintEditPage() {
   const { id = '' } = useParams();
@@ -12,16 +12,7 @@ export function PrintEditPage() {
   const navigate = useNavigate();
   useDocumentTitle(print.data ? `Edit ${print.data.accessionNumber}` : 'Edit print');
   if (print.isPending) return <Loading label="Loading the print…" />;
-  if (print.isError) {
-    return (
-      <section className="max-w-2xl">
-        <ErrorNotice error={print.error} title="The print could not be loaded." />
-        <p className="mt-4">
-          <Link to="/catalogue">Back to the prints</Link>
-        </p>
-      </section>
-    );
-  }
+  if (print.isError) return <PrintLoadError error={print.error} />;
   return (
     <section>
       <PageHeader

@@ -1,9 +1,9 @@
-import { Link, useNavigate, useParams } from 'react-router-dom';
-import { ErrorNotice } from '@/components/ui/notice';
+import { useNavigate, useParams } from 'react-router-dom';
 import { Loading } from '@/components/ui/loading';
 import { PageHeader } from '@/components/ui/page-header';
 import { useDocumentTitle } from '@/lib/use-document-title';
 import { usePrint } from '@/lib/prints-api';
+import { PrintLoadError } from '@/features/catalogue/components/print-load-error';
 import { StepsEditor } from '@/features/catalogue/components/steps-editor';
 
 /** A page of its own, so the print's page stays a calm record and the editor has room for its fields. */
@@ -13,16 +13,7 @@ export function PrintStepsPage() {
   const navigate = useNavigate();
   useDocumentTitle(print.data ? `Process history of ${print.data.accessionNumber}` : 'Process history');
   if (print.isPending) return <Loading label="Loading the print…" />;
-  if (print.isError) {
-    return (
-      <section className="max-w-2xl">
-        <ErrorNotice error={print.error} title="The print could not be loaded." />
-        <p className="mt-4">
-          <Link to="/catalogue">Back to the prints</Link>
-        </p>
-      </section>
-    );
-  }
+  if (print.isError) return <PrintLoadError error={print.error} />;
   const back = `/catalogue/prints/${print.data.id}`;
   return (
     <section>

@@ -1,8 +1,9 @@
 import { useMemo } from 'react';
 import { Link } from 'react-router-dom';
-import { createColumnHelper, getCoreRowModel, useReactTable, type SortingState, type Updater } from '@tanstack/react-table';
+import { createColumnHelper, type SortingState } from '@tanstack/react-table';
 import { PROCESS, TONER_CLASS } from '@toneledger/common/schemas/vocab';
 import { DataTable } from '@/components/ui/data-table';
+import { useServerTable } from '@/lib/server-table';
 import type { Leader } from '@/features/measurements/api/get-leaders';
 import type { LeadersQuery } from '@/features/measurements/api/keys';
 import { formatDay, formatMonthYear, formatNumber, formatRange } from '@/features/measurements/utils/format';
@@ -86,20 +87,15 @@ export interface LeadersTableProps {
 /** Spots changing most, sorted and paged by the server: the table mirrors the query in the URL. */
 export function LeadersTable({ leaders, query, total, busy, onSortChange }: LeadersTableProps) {
   const sorting = useMemo<SortingState>(() => [{ id: query.sort, desc: true }], [query.sort]);
-  const table = useReactTable({
+  const table = useServerTable({
     data: leaders,
     columns: leaderColumns,
     getRowId: (l) => l.spotId,
-    getCoreRowModel: getCoreRowModel(),
-    manualSorting: true,
-    manualPagination: true,
-    manualFiltering: true,
-    enableSortingRemoval: false,
+    query,
+    total,
+    sorting,
     enableMultiSort: false,
-    pageCount: Math.max(1, Math.ceil(total / query.pageSize)),
-    state: { sorting, pagination: { pageIndex: query.page - 1, pageSize: query.pageSize } },
-    onSortingChange: (updater: Updater<SortingState>) => {
-      const next = typeof updater === 'function' ? updater(sorting) : updater;
+    onSortingChange: (next) => {
       const id = next[0]?.id;
       if (id === 'rate' || id === 'change') onSortChange(id);
     },

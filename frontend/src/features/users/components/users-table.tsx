@@ -1,29 +1,13 @@
 import { useMemo } from 'react';
-import {
-  createColumnHelper,
-  getCoreRowModel,
-  useReactTable,
-  type SortingState,
-  type Updater,
-} from '@tanstack/react-table';
+import { createColumnHelper } from '@tanstack/react-table';
 import { userListQuerySchema, type User, type UserListQuery } from '@toneledger/common/schemas/users';
 import { DataTable } from '@/components/ui/data-table';
 import { formatDate, formatDateTime } from '@/lib/format';
+import { sortingToSort, sortToSorting, useServerTable } from '@/lib/server-table';
 import { RoleControl } from '@/features/users/components/role-control';
 
 type Sort = UserListQuery['sort'];
 const SORTS = userListQuerySchema.shape.sort.unwrap().options;
-
-export function sortToSorting(sort: Sort): SortingState {
-  return [{ id: sort.replace(/^-/, ''), desc: sort.startsWith('-') }];
-}
-
-export function sortingToSort(sorting: SortingState, fallback: Sort): Sort {
-  const first = sorting[0];
-  if (!first) return fallback;
-  const candidate = `${first.desc ? '-' : ''}${first.id}`;
-  return (SORTS as readonly string[]).includes(candidate) ? (candidate as Sort) : fallback;
-}
 
 const column = createColumnHelper<User>();
 
@@ -65,22 +49,14 @@ export interface UsersTableProps {
 /** People, sorted and paged by the server: the table only mirrors the query in the URL. */
 export function UsersTable({ users, query, total, busy, onSortChange }: UsersTableProps) {
   const sorting = useMemo(() => sortToSorting(query.sort), [query.sort]);
-  const table = useReactTable({
+  const table = useServerTable({
     data: users,
     columns,
     getRowId: (user) => user.id,
-    getCoreRowModel: getCoreRowModel(),
-    manualSorting: true,
-    manualPagination: true,
-    manualFiltering: true,
-    enableSortingRemoval: false,
-    sortDescFirst: false,
-    pageCount: Math.max(1, Math.ceil(total / query.pageSize)),
-    state: { sorting, pagination: { pageIndex: query.page - 1, pageSize: query.pageSize } },
-    onSortingChange: (updater: Updater<SortingState>) => {
-      const next = typeof updater === 'function' ? updater(sorting) : updater;
-      onSortChange(sortingToSort(next, query.sort));
-    },
+    query,
+    total,
+    sorting,
+    onSortingChange: (next) => onSortChange(sortingToSort(next, query.sort, SORTS)),
   });
   return <DataTable table={table} caption="People who have signed in, with their roles" empty="No one matches these filters." busy={busy} />;
 }
