@@ -3,6 +3,7 @@ import { can, type Role } from '@toneledger/common/domain/roles';
 import { VIEW_TYPES, VIEW_TYPE_LABELS, imageDeleteSchema, imageUpdateSchema, type PrintImage } from '@toneledger/common/schemas/images';
 import { DateInput, SelectInput, TextAreaInput, TextInput } from '@/components/form/fields';
 import { SchemaForm } from '@/components/form/schema-form';
+import { SubmitCancel } from '@/components/form/submit-cancel';
 import { Button } from '@/components/ui/button';
 import { ErrorNotice, Notice } from '@/components/ui/notice';
 import { formatDateTime } from '@/lib/format';
@@ -57,14 +58,7 @@ function EditImageForm({ image, onDone }: { image: PrintImage; onDone: () => voi
       <SelectInput name="viewType" label="View shown" options={VIEW_TYPES.map((v) => ({ value: v, label: VIEW_TYPE_LABELS[v] }))} />
       <DateInput name="capturedOn" label="Captured on" />
       <TextAreaInput name="notes" label="Image notes" rows={2} />
-      <div className="flex gap-2">
-        <Button type="submit" variant="primary" size="sm" disabled={update.isPending}>
-          Save image details
-        </Button>
-        <Button size="sm" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <SubmitCancel label="Save image details" busy={update.isPending} onCancel={onDone} size="sm" />
     </SchemaForm>
   );
 }
@@ -88,14 +82,7 @@ function WithdrawForm({ image, onDone, onWithdrawn }: { image: PrintImage; onDon
         the upload and of the withdrawal stays in the audit trail.
       </p>
       <TextInput name="reason" label="Reason for withdrawal" />
-      <div className="flex gap-2">
-        <Button type="submit" variant="danger" size="sm" disabled={withdraw.isPending}>
-          Withdraw image
-        </Button>
-        <Button size="sm" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <SubmitCancel label="Withdraw image" busy={withdraw.isPending} onCancel={onDone} variant="danger" size="sm" />
     </SchemaForm>
   );
 }

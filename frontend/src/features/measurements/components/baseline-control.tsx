@@ -3,6 +3,7 @@ import { baselineChoiceSchema, type MeasurementSession, type Spot } from '@tonel
 import { Button } from '@/components/ui/button';
 import { SelectInput, TextAreaInput } from '@/components/form/fields';
 import { SchemaForm } from '@/components/form/schema-form';
+import { SubmitCancel } from '@/components/form/submit-cancel';
 import { useSchemaForm } from '@/lib/forms/use-schema-form';
 import { useChooseBaseline } from '@/features/measurements/api/save-spot';
 import { formatDay } from '@/features/measurements/utils/format';
@@ -82,12 +83,7 @@ export function BaselineControl({ spot, sessions }: BaselineControlProps) {
         options={sessions.map((s) => ({ value: s.id, label: `${formatDay(s.measuredOn)} · ${s.instrument} · ${s.illuminant}/${s.observer}° · ${s.geometry}` }))}
       />
       <TextAreaInput name="reason" label="Reason" hint="Why this session is the one to compare with: for example, the first reading after treatment." required />
-      <div className="flex gap-2">
-        <Button type="submit" variant="primary" disabled={choose.isPending}>
-          {choose.isPending ? 'Saving…' : 'Save baseline'}
-        </Button>
-        <Button onClick={close}>Cancel</Button>
-      </div>
+      <SubmitCancel label="Save baseline" busy={choose.isPending} busyLabel="Saving…" onCancel={close} />
     </SchemaForm>
   );
 }

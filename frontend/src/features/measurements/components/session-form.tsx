@@ -3,7 +3,7 @@ import { useFormContext, useWatch } from 'react-hook-form';
 import { GEOMETRIES, ILLUMINANTS, MEASUREMENT_CONDITIONS, OBSERVERS, sessionInputSchema, type MeasurementSession, type PrintMeasurements } from '@toneledger/common/schemas/measurements';
 import { DateInput, SelectInput, TextAreaInput, TextInput, useFieldError } from '@/components/form/fields';
 import { SchemaForm } from '@/components/form/schema-form';
-import { Button } from '@/components/ui/button';
+import { SubmitCancel } from '@/components/form/submit-cancel';
 import { useSchemaForm } from '@/lib/forms/use-schema-form';
 import { useCreateSession } from '@/features/measurements/api/create-session';
 import { CsvImport, type CsvReadings } from '@/features/measurements/components/csv-import';
@@ -129,12 +129,7 @@ export function SessionForm({ printId, measurements, onSaved, onCancel, today }:
         <Spots measurements={measurements} />
       </section>
 
-      <div className="flex gap-2">
-        <Button type="submit" variant="primary" disabled={create.isPending}>
-          {create.isPending ? 'Saving…' : 'Save session'}
-        </Button>
-        <Button onClick={onCancel}>Cancel</Button>
-      </div>
+      <SubmitCancel label="Save session" busy={create.isPending} busyLabel="Saving…" onCancel={onCancel} />
     </SchemaForm>
   );
 }

@@ -4,6 +4,7 @@ import { VIEW_TYPE_LABELS } from '@toneledger/common/schemas/images';
 import { SPOT_PURPOSES, SPOT_PURPOSE_LABELS, spotInputSchema, spotSchema, type Spot } from '@toneledger/common/schemas/measurements';
 import { NumberInput, SelectInput, TextAreaInput, TextInput } from '@/components/form/fields';
 import { SchemaForm } from '@/components/form/schema-form';
+import { SubmitCancel } from '@/components/form/submit-cancel';
 import { Button } from '@/components/ui/button';
 import type { FieldErrors } from '@/lib/forms/field-errors';
 import { changesOnly, fieldList } from '@/lib/forms/stale-edit';
@@ -169,12 +170,7 @@ export function SpotForm({ printId, spot, images, others, onDone }: SpotFormProp
         <Placement form={form} usable={usable} others={others} spot={spot} />
       </fieldset>
       <TextAreaInput name="notes" label={LABELS.notes} />
-      <div className="flex gap-2">
-        <Button type="submit" variant="primary" disabled={mutation.isPending || edit.conflict !== null}>
-          {mutation.isPending ? 'Saving…' : 'Save spot'}
-        </Button>
-        <Button onClick={() => onDone(null)}>Cancel</Button>
-      </div>
+      <SubmitCancel label="Save spot" busy={mutation.isPending} busyLabel="Saving…" disabled={edit.conflict !== null} onCancel={() => onDone(null)} />
     </SchemaForm>
   );
 }
