@@ -83,7 +83,8 @@ function Identification({ pattern, savedAccession }: { pattern: string | undefin
           autoComplete="off"
         />
         <p id={`${dateId}-preview`} aria-live="polite" className={`text-xs ${edtf && !edtf.ok ? 'text-danger-700' : 'text-ink-800'}`}>
-          {edtf ? edtf.ok ? <>Reads as: {edtfSummary(edtf)}</> : edtf.error : ''}
+          {/* A refused date is said once: by the field's error after a save, by this line while typing before it. */}
+          {edtf ? (edtf.ok ? <>Reads as: {edtfSummary(edtf)}</> : dateError ? '' : edtf.error) : ''}
         </p>
       </div>
     </fieldset>
