@@ -36,6 +36,11 @@ function readYear(text: string): { ok: true; value: number | undefined } | { ok:
   return { ok: true, value: Number(value) };
 }
 
+/** A four-digit year, as typed (read by `readYear` on submit). */
+function YearField({ label, value, onText, error }: { label: string; value: string; onText: (text: string) => void; error?: string }) {
+  return <TextField label={label} inputMode="numeric" value={value} onChange={(event) => onText(event.target.value)} error={error} fieldClassName="w-32" maxLength={4} />;
+}
+
 /**
  * Full-text search and a filter for every controlled field. Choices apply at once; the search
  * text and the years apply with the Search button (or Enter).
@@ -88,24 +93,8 @@ export function PrintsFilters({ query, onChange, showLocation }: PrintsFiltersPr
           fieldClassName="w-full max-w-md"
           placeholder="Accession number, title, maker, inscriptions…"
         />
-        <TextField
-          label="Made from (year)"
-          inputMode="numeric"
-          value={from}
-          onChange={(event) => setFrom(event.target.value)}
-          error={yearErrors.from}
-          fieldClassName="w-32"
-          maxLength={4}
-        />
-        <TextField
-          label="Made to (year)"
-          inputMode="numeric"
-          value={to}
-          onChange={(event) => setTo(event.target.value)}
-          error={yearErrors.to}
-          fieldClassName="w-32"
-          maxLength={4}
-        />
+        <YearField label="Made from (year)" value={from} onText={setFrom} error={yearErrors.from} />
+        <YearField label="Made to (year)" value={to} onText={setTo} error={yearErrors.to} />
         <Button type="submit" variant="primary">
           Search
         </Button>
