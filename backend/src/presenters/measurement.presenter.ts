@@ -81,7 +81,7 @@ export type SpotAnalysisResult = SpotChange & { spot: MeasurementSpot };
 export function presentAnalysis(a: SpotAnalysisResult): SpotAnalysisDto {
   return {
     spot: presentSpot(a.spot), baseline: a.baseline, points: a.points,
-    rate: presentRate(a.rate), densityRate: presentRate(a.densityRate), projection: presentProjection(a.projection),
+    rate: presentRate(a.rate), densityChangeRate: presentRate(a.densityChangeRate), densityLossRate: presentRate(a.densityLossRate), projection: presentProjection(a.projection),
   };
 }
 

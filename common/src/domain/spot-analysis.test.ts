@@ -97,9 +97,18 @@ describe('analyseSpotHistory: change against the first session', () => {
     const xs = FADING.map((o) => years('2000-01-01', o.measuredOn));
     const losses = FADING.map((o) => ((1.5 - o.density!) / 1.5) * 100);
     const ref = reference(xs, losses);
-    if (!a.densityRate?.ok) throw new Error('expected a density rate');
-    expect(a.densityRate.slopePerYear).toBeCloseTo(ref.m, 9);
-    expect(a.densityRate.intercept).toBeCloseTo(ref.b, 9);
+    if (!a.densityLossRate?.ok) throw new Error('expected a density rate');
+    expect(a.densityLossRate.slopePerYear).toBeCloseTo(ref.m, 9);
+    expect(a.densityLossRate.intercept).toBeCloseTo(ref.b, 9);
+  });
+
+  it('fits the density change in D per year as simple-statistics does on the densities themselves', () => {
+    const xs = FADING.map((o) => years('2000-01-01', o.measuredOn));
+    const ref = reference(xs, FADING.map((o) => o.density!));
+    if (!a.densityChangeRate?.ok) throw new Error('expected a density change rate');
+    expect(a.densityChangeRate.slopePerYear).toBeCloseTo(ref.m, 9);
+    // The fit is of ΔD = D − 1.50, so its intercept is that of D less the baseline density.
+    expect(a.densityChangeRate.intercept).toBeCloseTo(ref.b - 1.5, 9);
   });
 
   it('a threshold already passed: first reached at the first observed session at or above it (2.0425 ≥ 2 in 2004)', () => {
@@ -121,6 +130,54 @@ describe('analyseSpotHistory: change against the first session', () => {
 
   it('latestDeltaE00 is that of the last fitted session (pair 3: 3.4412)', () => {
     expect(latestDeltaE00(a)!.toFixed(4)).toBe('3.4412');
+  });
+});
+
+describe('analyseSpotHistory: density rates in D per year and in % of the baseline per year', () => {
+  // D = 1.34, 1.24, 1.14 at 0, 9 and 18 years.
+  const series = [
+    obs('2000-01-01', SHARED, { density: 1.34, densityType: 'visual' }),
+    obs('2009-01-01', SHARED, { density: 1.24, densityType: 'visual' }),
+    obs('2018-01-01', SHARED, { density: 1.14, densityType: 'visual' }),
+  ];
+  const a = analyseSpotHistory(series, { baselineSessionId: null, threshold: 2 });
+  const xs = series.map((o) => years('2000-01-01', o.measuredOn));
+
+  it('D per year: −0.0111 (hand arithmetic: −0.20 D over 18 years; simple-statistics linearRegression)', () => {
+    if (!a.densityChangeRate?.ok) throw new Error('expected a density change rate');
+    // Hand arithmetic: (1.14 − 1.34) / 18 = −0.01111 D/year. The dates are 9.0022 and 18.0017
+    // years of 365.2425 days apart, so the fitted slope is −0.011110: −0.0111 to four places.
+    expect(a.densityChangeRate.slopePerYear).toBeCloseTo(-0.0111, 4);
+    expect(a.densityChangeRate.slopePerYear).toBeCloseTo(linearRegression(xs.map((x, i) => [x, series[i].density!])).m, 12);
+    // Not the percentage: 0.83 %/year would be read as 75 times the real loss of density.
+    expect(Math.abs(a.densityChangeRate.slopePerYear)).toBeLessThan(0.02);
+  });
+
+  it('% of the baseline density per year: 0.829 (hand arithmetic: 14.93 % over 18 years; simple-statistics)', () => {
+    if (!a.densityLossRate?.ok) throw new Error('expected a density loss rate');
+    // Hand arithmetic: (1.34 − 1.14) / 1.34 = 14.925 % lost by the last session; 14.925 / 18 = 0.829 %/year.
+    expect(a.points[2].densityLossPercent).toBeCloseTo(14.925, 3);
+    expect(a.densityLossRate.slopePerYear).toBeCloseTo(0.829, 3);
+    const losses = series.map((o) => ((1.34 - o.density!) / 1.34) * 100);
+    expect(a.densityLossRate.slopePerYear).toBeCloseTo(linearRegression(xs.map((x, i) => [x, losses[i]])).m, 10);
+  });
+
+  it('the two rates are one fit in two units: % per year = −100 · (D per year) / baseline D, interval included', () => {
+    const d = a.densityChangeRate;
+    const p = a.densityLossRate;
+    if (!d?.ok || !p?.ok) throw new Error('expected both rates');
+    expect(p.slopePerYear).toBeCloseTo((-100 * d.slopePerYear) / 1.34, 10);
+    expect(p.ci95[0]).toBeCloseTo((-100 * d.ci95[1]) / 1.34, 8);
+    expect(p.ci95[1]).toBeCloseTo((-100 * d.ci95[0]) / 1.34, 8);
+  });
+
+  it('a baseline density of 0 gives a rate in D per year but no percentage', () => {
+    const b = analyseSpotHistory(
+      [obs('2000-01-01', SHARED, { density: 0 }), obs('2005-01-01', SHARED, { density: 0.01 }), obs('2010-01-01', SHARED, { density: 0.02 })],
+      { baselineSessionId: null, threshold: 2 },
+    );
+    expect(b.densityChangeRate?.ok).toBe(true);
+    expect(b.densityLossRate).toBeNull();
   });
 });
 
@@ -187,14 +244,15 @@ describe('analyseSpotHistory: a chosen baseline', () => {
 
 describe('analyseSpotHistory: edges', () => {
   it('no readings: no baseline, no points, no rate', () => {
-    expect(analyseSpotHistory([], { baselineSessionId: null, threshold: 2 })).toEqual({ baseline: null, points: [], rate: null, densityRate: null, projection: null });
+    expect(analyseSpotHistory([], { baselineSessionId: null, threshold: 2 })).toEqual({ baseline: null, points: [], rate: null, densityChangeRate: null, densityLossRate: null, projection: null });
   });
 
   it('two sessions: a refused rate, no projection; no density rate without a baseline density', () => {
     const a = analyseSpotHistory([obs('2000-01-01', SHARED), obs('2003-01-01', PAIR_1)], { baselineSessionId: null, threshold: 2 });
     expect(a.rate).toMatchObject({ ok: false, reason: 'not_enough_sessions' });
     expect(a.projection).toBeNull();
-    expect(a.densityRate).toBeNull();
+    expect(a.densityLossRate).toBeNull();
+    expect(a.densityChangeRate).toBeNull();
   });
 
   it('sessions of the same day are ordered by when they were recorded', () => {

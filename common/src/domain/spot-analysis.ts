@@ -74,8 +74,17 @@ export interface SpotChange {
   points: SpotPoint[];
   /** ΔE00 per year over the fitted points; null when the spot has no reading. */
   rate: FadingRateResult | null;
-  /** % density loss per year over the fitted points; null without a baseline density. */
-  densityRate: FadingRateResult | null;
+  /**
+   * Density change per year, in D/year (the fit of ΔD = D − D0): negative while the density falls.
+   * Null without a baseline density or without a comparable density after it.
+   */
+  densityChangeRate: FadingRateResult | null;
+  /**
+   * Density lost per year, in % of the baseline density per year (the fit of the % loss): positive
+   * while the density falls. The same fit as `densityChangeRate` scaled by −100 / D0; null also
+   * when the baseline density is 0.
+   */
+  densityLossRate: FadingRateResult | null;
   /** When the ΔE00 trend reaches the threshold; null without a rate. */
   projection: ThresholdProjection | null;
 }
@@ -139,7 +148,7 @@ export function fittedPoints(change: Pick<SpotChange, 'baseline' | 'points'>): C
  *   A point that is not comparable gets no differences, carries the reason, and is not fitted.
  * - ΔD and % loss need a density at both; they are also left empty when both say what kind of
  *   density they are and the kinds differ.
- * - The rates fit the comparable points from the baseline date on: a baseline chosen after a
+ * - The rates (ΔE00/year, D/year, % of the baseline density/year) fit the comparable points from the baseline date on: a baseline chosen after a
  *   treatment restarts the clock, and earlier points are shown but not fitted.
  * - The projection is that of the ΔE00 rate, with the observed points deciding whether the
  *   threshold has already been reached.
@@ -151,7 +160,7 @@ export function analyseSpotHistory(
   const ordered = [...observations].sort(chronological);
   const chosen = options.baselineSessionId ? ordered.find((o) => o.sessionId === options.baselineSessionId) : undefined;
   const base = chosen ?? ordered[0];
-  if (!base) return { baseline: null, points: [], rate: null, densityRate: null, projection: null };
+  if (!base) return { baseline: null, points: [], rate: null, densityChangeRate: null, densityLossRate: null, projection: null };
 
   const baseDensity = densityOf(base);
   const baseline: SpotBaseline = { sessionId: base.sessionId, measuredOn: base.measuredOn, lab: base.lab, density: baseDensity, chosen: chosen !== undefined };
@@ -160,10 +169,12 @@ export function analyseSpotHistory(
   const fitted = fittedPoints({ baseline, points });
   const colourSeries: SeriesPoint[] = fitted.map((p) => ({ t: p.measuredOn, value: p.dE00 }));
   const rate = fadingRate(colourSeries);
-  const densitySeries: SeriesPoint[] = fitted.flatMap((p) => (p.densityLossPercent !== null ? [{ t: p.measuredOn, value: p.densityLossPercent }] : []));
-  const densityRate = baseDensity !== null && densitySeries.length > 0 ? fadingRate(densitySeries) : null;
+  const changeSeries: SeriesPoint[] = fitted.flatMap((p) => (p.dD !== null ? [{ t: p.measuredOn, value: p.dD }] : []));
+  const lossSeries: SeriesPoint[] = fitted.flatMap((p) => (p.densityLossPercent !== null ? [{ t: p.measuredOn, value: p.densityLossPercent }] : []));
+  const densityChangeRate = baseDensity !== null && changeSeries.length > 0 ? fadingRate(changeSeries) : null;
+  const densityLossRate = baseDensity !== null && lossSeries.length > 0 ? fadingRate(lossSeries) : null;
   const projection = rate.ok ? projectThreshold(rate, { t: base.measuredOn }, options.threshold, colourSeries) : null;
-  return { baseline, points, rate, densityRate, projection };
+  return { baseline, points, rate, densityChangeRate, densityLossRate, projection };
 }
 
 /** The latest ΔE00 from the baseline among the fitted points; null when there is none. */

@@ -103,8 +103,12 @@ export const spotAnalysisSchema = z.object({
     dE00: z.number().nullable(), dE76: z.number().nullable(), dL: z.number().nullable(), dC: z.number().nullable(), dH: z.number().nullable(),
     dominant: z.string().nullable(), density: z.number().nullable(), dD: z.number().nullable(), densityLossPercent: z.number().nullable(),
   })),
+  /** ΔE00 per year. */
   rate: rateSchema.nullable(),
-  densityRate: rateSchema.nullable(),
+  /** Density change in D per year (ΔD = D − D0 fitted; negative while the density falls). */
+  densityChangeRate: rateSchema.nullable(),
+  /** Density lost in % of the baseline density per year (positive while the density falls). */
+  densityLossRate: rateSchema.nullable(),
   projection: projectionSchema.nullable(),
 });
 export type SpotAnalysis = z.infer<typeof spotAnalysisSchema>;

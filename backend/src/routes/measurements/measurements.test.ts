@@ -232,7 +232,8 @@ describe('sessions, change against the baseline, rate and projection', () => {
     // The margin was measured once: it is its own baseline, with nothing to fit.
     const m = spotOf(data, margin.id);
     expect(m.points).toHaveLength(1);
-    expect(m.densityRate).toBeNull();
+    expect(m.densityChangeRate).toBeNull();
+    expect(m.densityLossRate).toBeNull();
     expect(m.rate).toMatchObject({ ok: false, reason: 'not_enough_sessions' });
     expect(data.sessions.map((s: { id: string }) => s.id)).toEqual([second.id, first.id]);
     expect(data.sessions[1].readings.map((x: { spotName: string }) => x.spotName)).toEqual(['Dmax shadow', 'Paper margin']);
@@ -260,11 +261,16 @@ describe('sessions, change against the baseline, rate and projection', () => {
     expect(a.rate.ci95[1]).toBeCloseTo(expected.ci95[1], 10);
     expect(a.rate.spanYears).toBeCloseTo(expected.spanYears, 10);
     // Density loss: 0 %, 16.7 %, 20.8 % of the baseline 1.2.
-    expect(a.densityRate.ok).toBe(true);
+    expect(a.densityLossRate.ok).toBe(true);
     const expectedDensity = fadingRate([
       { t: '2019-06-01', value: 0 }, { t: '2020-06-01', value: (0.2 / 1.2) * 100 }, { t: '2021-09-01', value: (0.25 / 1.2) * 100 },
     ]);
-    expect(a.densityRate.slopePerYear).toBeCloseTo((expectedDensity as { slopePerYear: number }).slopePerYear, 8);
+    expect(a.densityLossRate.slopePerYear).toBeCloseTo((expectedDensity as { slopePerYear: number }).slopePerYear, 8);
+    // Density change in D per year: 1.20, 1.00, 0.95 (ΔD 0, −0.20, −0.25), a fall of about a tenth of a D a year.
+    expect(a.densityChangeRate.ok).toBe(true);
+    const expectedChange = fadingRate([{ t: '2019-06-01', value: 0 }, { t: '2020-06-01', value: -0.2 }, { t: '2021-09-01', value: -0.25 }]);
+    expect(a.densityChangeRate.slopePerYear).toBeCloseTo((expectedChange as { slopePerYear: number }).slopePerYear, 8);
+    expect(a.densityChangeRate.slopePerYear).toBeCloseTo((-1.2 / 100) * a.densityLossRate.slopePerYear, 10);
     // The threshold (ΔE00 2.0 by default) was first met at the second session.
     expect(a.projection).toEqual({ reached: true, alreadyReached: true, threshold: 2, firstDate: '2020-06-01T00:00:00.000Z' });
     const expectedProjection = projectThreshold(expected, { t: '2019-06-01' }, 2, series);

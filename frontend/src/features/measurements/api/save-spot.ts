@@ -35,7 +35,7 @@ async function stored(queryClient: QueryClient, spot: Spot) {
       ...current,
       spots: known
         ? current.spots.map((s) => (s.spot.id === spot.id ? { ...s, spot } : s))
-        : [...current.spots, { spot, baseline: null, points: [], rate: null, densityRate: null, projection: null }],
+        : [...current.spots, { spot, baseline: null, points: [], rate: null, densityChangeRate: null, densityLossRate: null, projection: null }],
     };
   });
   await Promise.all([

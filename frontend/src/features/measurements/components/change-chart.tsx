@@ -1,5 +1,6 @@
 import { CartesianGrid, ComposedChart, Line, ReferenceArea, ReferenceLine, XAxis, YAxis } from 'recharts';
 import type { ChangeChartData, ChartPoint } from '@/features/measurements/utils/chart-data';
+import { yearLabel, type Axis } from '@/features/measurements/utils/axis';
 import { formatThreshold } from '@/features/measurements/utils/format';
 import '@/features/measurements/components/change-chart.css';
 
@@ -14,29 +15,6 @@ const THRESHOLD = '#9a2b1d';
 const BAND = '#f1e4d2';
 const GRID = '#ebe4d6';
 
-function yearTicks([start, end]: [number, number]): number[] {
-  const first = new Date(start).getUTCFullYear();
-  const last = new Date(end).getUTCFullYear() + 1;
-  const span = Math.max(1, last - first);
-  const step = [1, 2, 5, 10, 20, 25, 50].find((s) => span / s <= 8) ?? 100;
-  const ticks: number[] = [];
-  for (let y = Math.ceil(first / step) * step; y <= last; y += step) {
-    const t = Date.UTC(y, 0, 1);
-    if (t >= start && t <= end) ticks.push(t);
-  }
-  return ticks.length ? ticks : [start, end];
-}
-
-const yearOf = (t: number) => String(new Date(t).getUTCFullYear());
-
-/** Round steps on the value axis: 0, 0.5, 1… or 0, 1, 2… or 0, 5, 10… */
-function valueTicks(max: number): number[] {
-  const step = [0.25, 0.5, 1, 2, 5, 10, 20, 50].find((s) => max / s <= 6) ?? 100;
-  const ticks: number[] = [];
-  for (let v = 0; v <= max + 1e-9; v += step) ticks.push(Math.round(v * 100) / 100);
-  return ticks;
-}
-
 const CHART_MARGIN = { top: 18, right: 24, bottom: 4, left: 4 };
 
 export interface ChangeChartProps {
@@ -49,14 +27,7 @@ export interface ChangeChartProps {
 }
 
 /** ΔE00 against the baseline over time, with the noticeable-change threshold, the fitted trend and its projection. */
-/** A little room at both ends of the time axis, so the first and last sessions are not drawn on the axes. */
-export function padded([start, end]: [number, number]): [number, number] {
-  const pad = (end - start) * 0.03;
-  return [start - pad, end + pad];
-}
-
 export function ChangeChart({ data, threshold, label, describedBy }: ChangeChartProps) {
-  const ticks = yearTicks(data.domain);
   return (
     <div role="img" aria-label={label} aria-describedby={describedBy} className="measure-chart w-full">
       <ComposedChart responsive style={{ width: '100%', height: 260 }} margin={CHART_MARGIN} accessibilityLayer={false}>
@@ -64,9 +35,9 @@ export function ChangeChart({ data, threshold, label, describedBy }: ChangeChart
         <XAxis
           type="number"
           dataKey="t"
-          domain={padded(data.domain)}
-          ticks={ticks}
-          tickFormatter={yearOf}
+          domain={data.timeAxis.domain}
+          ticks={data.timeAxis.ticks}
+          tickFormatter={yearLabel}
           allowDataOverflow
           stroke={INK}
           fontSize={12}
@@ -74,8 +45,8 @@ export function ChangeChart({ data, threshold, label, describedBy }: ChangeChart
         <YAxis
           type="number"
           dataKey="value"
-          domain={[0, data.yMax]}
-          ticks={valueTicks(data.yMax)}
+          domain={data.changeAxis.domain}
+          ticks={data.changeAxis.ticks}
           allowDataOverflow
           stroke={INK}
           fontSize={12}
@@ -130,19 +101,18 @@ export function ChangeChart({ data, threshold, label, describedBy }: ChangeChart
 }
 
 /** Density lost since the baseline, in percent, over the same years. */
-export function DensityChart({ points, domain, label, describedBy }: { points: ChartPoint[]; domain: [number, number]; label: string; describedBy: string }) {
-  const highest = Math.max(1, ...points.map((p) => p.value));
-  const lowest = Math.min(0, ...points.map((p) => p.value));
+export function DensityChart({ points, timeAxis, valueAxis, label, describedBy }: { points: ChartPoint[]; timeAxis: Axis; valueAxis: Axis; label: string; describedBy: string }) {
   return (
     <div role="img" aria-label={label} aria-describedby={describedBy} className="measure-chart w-full">
       <ComposedChart responsive style={{ width: '100%', height: 150 }} margin={CHART_MARGIN} accessibilityLayer={false}>
         <CartesianGrid stroke={GRID} />
-        <XAxis type="number" dataKey="t" domain={padded(domain)} ticks={yearTicks(domain)} tickFormatter={yearOf} allowDataOverflow stroke={INK} fontSize={12} />
+        <XAxis type="number" dataKey="t" domain={timeAxis.domain} ticks={timeAxis.ticks} tickFormatter={yearLabel} allowDataOverflow stroke={INK} fontSize={12} />
         <YAxis
           type="number"
           dataKey="value"
-          domain={[Math.floor(lowest), Math.ceil(highest * 1.15)]}
-          allowDecimals={false}
+          domain={valueAxis.domain}
+          ticks={valueAxis.ticks}
+          allowDataOverflow
           stroke={INK}
           fontSize={12}
           width={44}

@@ -5,7 +5,7 @@ import { formatDateTime } from '@/lib/format';
 import { BaselineControl } from '@/features/measurements/components/baseline-control';
 import { ChangeChart, DensityChart } from '@/features/measurements/components/change-chart';
 import { changeChartData } from '@/features/measurements/utils/chart-data';
-import { formatDay, formatNumber, formatSigned, projectionText, rateText, sentence } from '@/features/measurements/utils/format';
+import { formatDay, formatNumber, formatRange, formatSigned, projectionText, rateText, sentence } from '@/features/measurements/utils/format';
 
 function Figure({ term, children }: { term: string; children: ReactNode }) {
   return (
@@ -30,6 +30,20 @@ export function chartSummary(analysis: SpotAnalysis): string {
     : 'No comparable measurement against a baseline yet.';
   const rate = analysis.rate?.ok ? `Rate ${rateText(analysis.rate)}.` : rateText(analysis.rate);
   return `${first} ${rate} Projection: ${projectionText(analysis.projection)}.`;
+}
+
+/**
+ * The density's rate in both units: D per year (the change of density itself, negative while it
+ * falls) and % of the baseline density lost per year. One refusal is said once.
+ */
+export function densityRateLines(analysis: Pick<SpotAnalysis, 'densityChangeRate' | 'densityLossRate'>): string[] {
+  const change = analysis.densityChangeRate;
+  if (!change) return [];
+  if (!change.ok) return [rateText(change)];
+  const lines = [`Change ${rateText(change, 'D/year', 3)}`];
+  const loss = analysis.densityLossRate;
+  if (loss?.ok) lines.push(`Loss ${formatNumber(loss.slopePerYear)} % of the baseline density per year (95 % CI ${formatRange(loss.ci95[0], loss.ci95[1])})`);
+  return lines;
 }
 
 export interface SpotCardProps {
@@ -88,7 +102,7 @@ export function SpotCard({ analysis, threshold, sessions, mayWrite, onEdit }: Sp
           {data.projectionCut ? <p className="text-xs text-ink-700">The projection runs beyond the right edge of the chart.</p> : null}
           {data.densityLoss.length > 0 ? (
             <div className="mt-3">
-              <DensityChart points={data.densityLoss} domain={data.domain} label={`Density loss at ${spot.name} over time`} describedBy={densityId} />
+              <DensityChart points={data.densityLoss} timeAxis={data.timeAxis} valueAxis={data.densityAxis} label={`Density loss at ${spot.name} over time`} describedBy={densityId} />
               <p id={densityId} className="mt-1 text-xs text-ink-700">
                 {latestDensity
                   ? `Latest density loss ${formatNumber(latestDensity.densityLossPercent!, 1)} % of the baseline density, on ${formatDay(latestDensity.measuredOn)}.`
@@ -117,7 +131,7 @@ export function SpotCard({ analysis, threshold, sessions, mayWrite, onEdit }: Sp
           ) : null}
           <Figure term="Rate">{rateText(analysis.rate)}</Figure>
           <Figure term="Noticeable change">{sentence(projectionText(analysis.projection))}</Figure>
-          {latestDensity || analysis.densityRate ? (
+          {latestDensity || analysis.densityChangeRate ? (
             <Figure term="Density">
               {latestDensity ? (
                 <span className="block">
@@ -125,7 +139,11 @@ export function SpotCard({ analysis, threshold, sessions, mayWrite, onEdit }: Sp
                   {formatNumber(latestDensity.densityLossPercent!, 1)} % lost since the baseline
                 </span>
               ) : null}
-              {analysis.densityRate ? <span className="block">{rateText(analysis.densityRate, 'D/year', 3)}</span> : null}
+              {densityRateLines(analysis).map((line) => (
+                <span key={line} className="block">
+                  {line}
+                </span>
+              ))}
             </Figure>
           ) : null}
           <Figure term="Baseline">

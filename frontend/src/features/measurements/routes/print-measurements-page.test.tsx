@@ -9,6 +9,7 @@ import {
   PRINT_ID,
   SESSION1_ID,
   SPOT_ID,
+  makeAnalysis,
   makeImage,
   makeMeasurements,
   makePrint,
@@ -58,6 +59,20 @@ describe('a print’s measurements', () => {
     // The session measured under other conditions is listed with its reason, not plotted.
     expect(within(card).getByText(/D65\/10°: not comparable without conversion/)).toBeTruthy();
     expect(within(card).getByText('Not plotted: not comparable with the baseline')).toBeTruthy();
+  });
+
+  it('gives the density rate in D per year and, apart, in % of the baseline density per year', async () => {
+    // D 1.34, 1.24, 1.14 over 18 years: −0.20 / 18 = −0.0111 D/year; 14.93 % / 18 = 0.829 %/year (hand arithmetic).
+    const spot = makeAnalysis({
+      densityChangeRate: { ok: true, slopePerYear: -0.01111, intercept: 0, standardError: 0.0002, ci95: [-0.0125, -0.0097], n: 3, spanYears: 18, r2: 1 },
+      densityLossRate: { ok: true, slopePerYear: 0.8291, intercept: 0, standardError: 0.015, ci95: [0.72, 0.93], n: 3, spanYears: 18, r2: 1 },
+    });
+    renderPage('researcher', { [`GET /api/prints/${PRINT_ID}/measurements`]: () => json({ data: makeMeasurements({ spots: [spot] }) }) });
+    const card = await screen.findByRole('region', { name: 'Sky, upper left' }, SLOW);
+    expect(within(card).getByText('Change −0.011 D/year (95 % CI −0.013 to −0.010, n = 3 over 18.0 years)')).toBeTruthy();
+    expect(within(card).getByText('Loss 0.83 % of the baseline density per year (95 % CI 0.72–0.93)')).toBeTruthy();
+    // The percentage is never given as D/year.
+    expect(card.textContent).not.toMatch(/0\.8\d* D\/year/);
   });
 
   it('shows the spots on the print’s image, and the sessions with their readings', async () => {

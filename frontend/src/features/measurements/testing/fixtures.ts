@@ -81,7 +81,8 @@ export function makeAnalysis(overrides: Partial<SpotAnalysis> = {}): SpotAnalysi
       { sessionId: SESSION3_ID, measuredOn: '2024-05-03', lab: { L: 51.2, a: 1.9, b: -78.2 }, comparable: true, reason: null, dE00: 1.42, dE76: 4.9, dL: 1.2, dC: -4.3, dH: 1.1, dominant: 'loss of chroma', density: 1.1, dD: -0.1, densityLossPercent: 8.33 },
     ],
     rate: { ok: true, slopePerYear: 0.0592, intercept: 0.01, standardError: 0.01, ci95: [0.04, 0.08], n: 6, spanYears: 24, r2: 0.93 },
-    densityRate: null,
+    densityChangeRate: null,
+    densityLossRate: null,
     projection: {
       reached: true, alreadyReached: false, threshold: 2,
       date: '2031-03-14T00:00:00.000Z', interval: { earliest: '2029-06-01T00:00:00.000Z', latest: '2036-02-01T00:00:00.000Z' },

@@ -33,6 +33,47 @@ describe('chart data', () => {
     ]);
   });
 
+  it('starts the fitted line at the baseline when a later session was chosen: earlier sessions are plotted, not fitted', () => {
+    // The fit's time zero is its earliest session, the baseline (2012); the 2000 point is shown against it.
+    const base = makeAnalysis();
+    const analysis = makeAnalysis({
+      baseline: { ...base.baseline!, sessionId: SESSION2_ID, measuredOn: '2012-05-03', chosen: true },
+      points: [
+        { ...base.points[0]!, dE00: 0.9 },
+        { ...base.points[0]!, sessionId: SESSION2_ID, measuredOn: '2012-05-03', dE00: 0 },
+        base.points[2]!,
+      ],
+      rate: { ok: true, slopePerYear: 0.1, intercept: 0.02, standardError: 0.01, ci95: [0.05, 0.15], n: 2, spanYears: 12, r2: 0.9 },
+    });
+    const data = changeChartData(analysis, 2);
+    const start = dayToMs('2012-05-03');
+    expect(data.observed[0]!.t).toBe(dayToMs('2000-05-03'));
+    expect(data.trend).toEqual([
+      { t: start, value: 0.02 },
+      { t: start + 12 * MS_PER_YEAR, value: 0.02 + 0.1 * 12 },
+    ]);
+  });
+
+  it('gives both charts round ticks: density loss to 14.9 % reads 0, 5, 10, 15 and the years go by fives', () => {
+    // D 1.34 → 1.24 → 1.14 from 2008 to 2026: 0, 7.46, 14.93 % lost (hand arithmetic).
+    const base = makeAnalysis();
+    const point = (sessionId: string, measuredOn: string, dE00: number, density: number) => ({
+      ...base.points[0]!, sessionId, measuredOn, dE00, density, dD: density - 1.34, densityLossPercent: ((1.34 - density) / 1.34) * 100,
+    });
+    const analysis = makeAnalysis({
+      baseline: { ...base.baseline!, measuredOn: '2008-03-14', density: 1.34 },
+      points: [point('a', '2008-03-14', 0, 1.34), point('b', '2017-04-20', 0.6, 1.24), point('c', '2026-05-02', 1.3, 1.14)],
+      rate: { ok: false, reason: 'not_enough_sessions', message: 'Not enough.' },
+      projection: null,
+    });
+    const data = changeChartData(analysis, 2);
+    expect(data.densityAxis).toEqual({ domain: [0, 15], ticks: [0, 5, 10, 15] });
+    expect(data.timeAxis.ticks.map((t) => new Date(t).getUTCFullYear())).toEqual([2010, 2015, 2020, 2025]);
+    // ΔE00: the threshold 2 with room for its label, 2 × 1.15 = 2.3, rounds to 2.5 in steps of 0.5.
+    expect(data.changeAxis).toEqual({ domain: [0, 2.5], ticks: [0, 0.5, 1, 1.5, 2, 2.5] });
+    expect(data.yMax).toBe(2.5);
+  });
+
   it('carries the line on, dashed, to the threshold at the projected date, with the interval as a band', () => {
     const data = changeChartData(makeAnalysis(), 2);
     const trendEnd = data.trend![1]!;

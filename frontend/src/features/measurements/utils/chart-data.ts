@@ -1,5 +1,6 @@
 import { MS_PER_YEAR } from '@toneledger/common/domain/fading';
 import type { SpotAnalysis } from '@toneledger/common/schemas/measurements';
+import { valueAxis, yearAxis, type Axis } from '@/features/measurements/utils/axis';
 
 export interface ChartPoint {
   /** Milliseconds since the epoch (UTC midnight of the session date). */
@@ -28,10 +29,16 @@ export interface ChangeChartData {
   band: { from: number; to: number } | null;
   /** Density loss in % of the baseline density, for comparable sessions that have it. */
   densityLoss: ChartPoint[];
-  /** The time axis. */
+  /** The span of time drawn: first plotted session to the last point, projection or band. */
   domain: [number, number];
   /** Top of the ΔE00 axis: above the threshold and the highest point. */
   yMax: number;
+  /** The time axis of both charts: whole years around `domain`, labelled at round intervals. */
+  timeAxis: Axis;
+  /** The ΔE00 axis: 0 to `yMax`, with round ticks. */
+  changeAxis: Axis;
+  /** The density-loss axis (%), with round ticks. */
+  densityAxis: Axis;
 }
 
 export function dayToMs(isoDay: string): number {
@@ -63,11 +70,13 @@ export function changeChartData(analysis: SpotAnalysis, threshold: number): Chan
 
   let trend: ChartPoint[] | null = null;
   const rate = analysis.rate;
-  if (rate?.ok && first !== null) {
-    // The fit counts time in years from its earliest session, which is the earliest comparable one.
-    const end = first + rate.spanYears * MS_PER_YEAR;
+  if (rate?.ok && first !== null && analysis.baseline) {
+    // The fit counts time in years from its earliest session, which is the baseline: sessions
+    // before a baseline chosen later are plotted but not fitted.
+    const origin = dayToMs(analysis.baseline.measuredOn);
+    const end = origin + rate.spanYears * MS_PER_YEAR;
     trend = [
-      { t: first, value: rate.intercept },
+      { t: origin, value: rate.intercept },
       { t: end, value: rate.intercept + rate.slopePerYear * rate.spanYears },
     ];
   }
@@ -102,6 +111,9 @@ export function changeChartData(analysis: SpotAnalysis, threshold: number): Chan
   if (end <= start) end = start + MS_PER_YEAR;
 
   const highest = Math.max(threshold, ...observed.map((o) => o.value), ...(trend ?? []).map((o) => o.value));
+  // Room above the highest value for the threshold's label; the ends are then rounded to the ticks.
+  const changeAxis = valueAxis(0, highest * 1.15, 5);
+  const densityAxis = valueAxis(Math.min(0, ...densityLoss.map((p) => p.value)), Math.max(1, ...densityLoss.map((p) => p.value)), 4);
   return {
     observed,
     excluded,
@@ -111,6 +123,9 @@ export function changeChartData(analysis: SpotAnalysis, threshold: number): Chan
     band,
     densityLoss,
     domain: [start, end],
-    yMax: Math.ceil(highest * 1.15 * 2) / 2,
+    yMax: changeAxis.domain[1],
+    timeAxis: yearAxis([start, end]),
+    changeAxis,
+    densityAxis,
   };
 }
