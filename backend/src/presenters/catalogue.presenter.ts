@@ -85,8 +85,9 @@ const REFERENCES: Record<string, (p: LoadedPrint) => unknown> = {
 };
 
 /**
- * The full print: every field of the print field table that the role may read (locations,
- * valuation and staff notes only for roles with `catalogue.read_restricted`), then what the screen
+ * The full print: every field of the print field table that the role may read (locations and staff
+ * notes only for roles with `catalogue.read_restricted`, the valuation only for roles with
+ * `valuation.read`), then what the screen
  * needs beside them. A field's value is the model attribute of the same name, unless it is a
  * reference or computed.
  */

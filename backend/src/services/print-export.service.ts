@@ -67,5 +67,5 @@ export async function writeStepsCsv(query: PrintListQuery, role: Role | null, ou
 export async function printJson(id: string, role: Role | null) {
   const print = presentPrint(await loadPrint(id), role);
   if (!can(role, 'catalogue.read_restricted')) return { exportedAt: new Date().toISOString(), print };
-  return { exportedAt: new Date().toISOString(), print, movements: await listMovements(id), history: await printHistory(id) };
+  return { exportedAt: new Date().toISOString(), print, movements: await listMovements(id), history: await printHistory(id, role) };
 }

@@ -1,6 +1,8 @@
 import { QueryTypes, type Transaction } from 'sequelize';
 import { checkAccession } from '@toneledger/common/domain/accession';
 import type { Role } from '@toneledger/common/domain/roles';
+import { mayRead } from '@toneledger/common/fields/field';
+import { printField } from '@toneledger/common/fields/print';
 import type { PrintInput, PrintUpdate, ProcessStepInput, HistoryEvent } from '@toneledger/common/schemas/catalogue';
 import { db } from '../db';
 import { AuditEventModel, BathRecipe, EnclosureType, Location, Maker, Movement, Paper, Print, ProcessStep } from '../models';
@@ -230,13 +232,25 @@ const HISTORY_SUMMARY: Record<string, string> = {
   'print.imported': 'Imported from CSV',
 };
 
-export async function printHistory(id: string): Promise<HistoryEvent[]> {
+/** May the role read this key of a print's audit snapshot? Keys that are not fields of the table (steps) follow the record. */
+function mayReadChange(role: Role | null, key: string): boolean {
+  const field = printField(key);
+  return !field || mayRead(role, field);
+}
+
+/**
+ * The print's audit history as the role may read it: each change of a field the role may not read
+ * (a valuation, for a conservator or researcher) is left out of the changes and of the summary, so
+ * neither its value before nor after reaches the role.
+ */
+export async function printHistory(id: string, role: Role | null): Promise<HistoryEvent[]> {
   if ((await Print.count({ where: { id } })) === 0) throw notFound('The print');
   const events = await AuditEventModel.findAll({ where: { entityType: 'print', entityId: id }, order: [['id', 'DESC']] });
   return events.map((e) => {
-    const changes = e.action === 'print.created' || e.action === 'print.imported' ? [] : changedFields(e.before as Record<string, unknown>, e.after as Record<string, unknown>);
+    const all = e.action === 'print.created' || e.action === 'print.imported' ? [] : changedFields(e.before as Record<string, unknown>, e.after as Record<string, unknown>);
+    const changes = all.filter((c) => mayReadChange(role, c.field));
     let summary = HISTORY_SUMMARY[e.action] ?? e.action;
-    if (e.action === 'print.updated') summary = `Edited ${changes.map((c) => c.field).join(', ')}`;
+    if (e.action === 'print.updated' && changes.length) summary = `Edited ${changes.map((c) => c.field).join(', ')}`;
     if (e.action === 'print.moved') summary = `Moved to ${(e.after as { location?: string })?.location ?? '?'}`;
     return { id: String(e.id), at: e.at.toISOString(), actorName: e.actorName, action: e.action, summary, changes };
   });

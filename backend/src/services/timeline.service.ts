@@ -19,7 +19,7 @@ export async function printTimeline(printId: string, role: Role | null): Promise
   const staff = can(role, 'catalogue.read_restricted');
 
   if (staff) {
-    for (const h of await printHistory(printId)) {
+    for (const h of await printHistory(printId, role)) {
       if (h.action === 'print.moved') continue;
       out.push({ at: h.at, kind: 'catalogue', title: h.summary, detail: null, actorName: h.actorName, link: null });
     }

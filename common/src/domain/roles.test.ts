@@ -24,6 +24,11 @@ describe('roles and permissions', () => {
     expect(can('viewer', 'users.manage')).toBe(false);
   });
 
+  it('valuations are read by registrars and administrators only', () => {
+    expect(rolesWith('valuation.read')).toEqual(['admin', 'registrar']);
+    for (const role of ['conservator', 'researcher', 'viewer'] as const) expect(can(role, 'valuation.read'), role).toBe(false);
+  });
+
   it('only conservators write condition and measurements', () => {
     expect(rolesWith('condition.write')).toEqual(['conservator']);
     expect(rolesWith('measurements.write')).toEqual(['conservator']);

@@ -16,8 +16,8 @@ export const ROLE_LABELS: Record<Role, string> = {
 export const ROLE_DESCRIPTIONS: Record<Role, string> = {
   admin: 'Users and roles, vocabularies and settings; everything a registrar can do.',
   registrar: 'Catalogues prints, process history, recipes, papers, locations, movements and loans.',
-  conservator: 'Condition checks, measurements, images, treatments, light and climate; owns the inspection schedule.',
-  researcher: 'Reads everything, runs longevity queries and exports datasets; edits nothing.',
+  conservator: 'Condition checks, measurements, images, treatments, light and climate; owns the inspection schedule. Does not see valuations.',
+  researcher: 'Reads everything but valuations, runs longevity queries and exports datasets; edits nothing.',
   viewer: 'Reads the catalogue, without locations, valuations or staff notes.',
 };
 
@@ -26,6 +26,8 @@ export const PERMISSIONS = {
   'catalogue.read': ['admin', 'registrar', 'conservator', 'researcher', 'viewer'],
   'catalogue.read_restricted': ['admin', 'registrar', 'conservator', 'researcher'],
   'catalogue.write': ['admin', 'registrar'],
+  /** Insurance valuations of prints (amount and currency): on screen, in every export and in the history. */
+  'valuation.read': ['admin', 'registrar'],
   'condition.read': ['admin', 'registrar', 'conservator', 'researcher'],
   'condition.write': ['conservator'],
   'images.read': ['admin', 'registrar', 'conservator', 'researcher', 'viewer'],

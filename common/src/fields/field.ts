@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { CURRENCY_CODES } from '../domain/currencies';
 import { can, rolesWith, type Role } from '../domain/roles';
 import { id } from '../schemas/primitives';
 
@@ -35,8 +36,11 @@ export type FieldType =
 /** entered: typed by a person; computed: derived from other fields; system: kept by the server. */
 export type Origin = 'entered' | 'computed' | 'system';
 
-/** The permission that lets a role read a field (the rest of the record needs `catalogue.read`). */
-export type ReadPermission = 'catalogue.read' | 'catalogue.read_restricted';
+/**
+ * The permission that lets a role read a field (the rest of the record needs `catalogue.read`):
+ * `catalogue.read_restricted` for staff-only fields, `valuation.read` for insurance valuations.
+ */
+export type ReadPermission = 'catalogue.read' | 'catalogue.read_restricted' | 'valuation.read';
 
 export interface FieldSpec {
   /** The key in the contract's record (`printSchema`), e.g. `accessionNumber`, `maker`. */
@@ -122,11 +126,18 @@ export function amount() {
   };
 }
 
-/** A three-letter ISO 4217 currency code, optional. */
+/**
+ * An ISO 4217 currency code from the list in `domain/currencies.ts`, optional. A code is read in any
+ * case and kept in capitals ("gbp" is GBP: the letters of a code carry no meaning in their case);
+ * anything else, "POU" or "pounds" or XXX ("no currency"), is refused, never guessed at.
+ */
 export function currency() {
   return {
     type: { kind: 'currency' } as const, required: false, default: null,
-    input: z.preprocess((v) => (v === '' ? null : v), z.string().regex(/^[A-Z]{3}$/, 'A three-letter currency code (ISO 4217)').nullable()).optional(),
+    input: z.preprocess(
+      (v) => (typeof v === 'string' ? (v.trim() === '' ? null : v.trim().toUpperCase()) : v),
+      z.enum(CURRENCY_CODES, { error: (issue) => `${JSON.stringify(issue.input)} is not an ISO 4217 currency code (such as GBP, EUR or USD)` }).nullable(),
+    ).optional(),
     output: z.string().nullable(),
   };
 }
@@ -183,8 +194,8 @@ export type InputShape<F extends readonly FieldSpec[]> = {
   [E in F[number] as E extends { inputKey: infer K extends string; input: z.ZodType } ? K : never]: E extends { input: infer S } ? S : never;
 };
 
-type Out<E> = E extends { output: infer S extends z.ZodType; read: infer R } ? (R extends 'catalogue.read_restricted' ? z.ZodOptional<S> : S) : never;
-/** The output schema's shape: `key → output`; restricted fields are optional (left out for roles that may not read them). */
+type Out<E> = E extends { output: infer S extends z.ZodType; read: infer R } ? (R extends 'catalogue.read' ? S : z.ZodOptional<S>) : never;
+/** The output schema's shape: `key → output`; fields not every reader may read are optional (left out for roles that may not read them). */
 export type OutputShape<F extends readonly FieldSpec[]> = {
   [E in F[number] as E extends { output: z.ZodType } ? E['key'] : never]: Out<E>;
 };
@@ -197,7 +208,7 @@ export function inputShape<const F extends readonly FieldSpec[]>(fields: F): Inp
   return Object.fromEntries(fields.flatMap((f) => (f.inputKey && f.input ? [[f.inputKey, f.input]] : []))) as InputShape<F>;
 }
 
-const outputOf = (f: FieldSpec) => (f.read === 'catalogue.read_restricted' ? f.output!.optional() : f.output!);
+const outputOf = (f: FieldSpec) => (f.read === 'catalogue.read' ? f.output! : f.output!.optional());
 
 export function outputShape<const F extends readonly FieldSpec[]>(fields: F): OutputShape<F> {
   return Object.fromEntries(fields.flatMap((f) => (f.output ? [[f.key, outputOf(f)]] : []))) as OutputShape<F>;
@@ -292,7 +303,7 @@ export function typeLabel(type: FieldType): string {
     case 'code': return `One code from ${type.vocabulary}`;
     case 'codes': return `Codes from ${type.vocabulary}, separated by ;`;
     case 'reference': return `A ${type.to} in the catalogue, by ${type.matchedBy}`;
-    case 'currency': return 'Currency code (ISO 4217, three capital letters)';
+    case 'currency': return 'Currency code (ISO 4217, three letters, e.g. GBP, EUR, USD)';
     case 'yes_no': return 'yes, no, or empty for unknown';
     case 'duration': return 'Seconds, or minutes and seconds as m:ss';
     case 'id': return 'Record id (UUID)';

@@ -3,7 +3,7 @@ import { z } from 'zod';
 import {
   PRINT_SORTS, printInputSchema, printListItemSchema, printSchema, printUpdateSchema, processStepInputSchema, processStepSchema,
 } from '../schemas/catalogue';
-import { blankValues, enteredFields, labelWithUnit, readCode, readYesNo, toCell } from './field';
+import { blankValues, enteredFields, labelWithUnit, readCode, readersOf, readYesNo, toCell } from './field';
 import { ENTERED_PRINT_FIELDS, PRINT_FIELDS, PRINT_KEYS_BEYOND_FIELDS, labelOf, printField } from './print';
 import { STEP_FIELDS, stepLabelOf } from './step';
 
@@ -20,14 +20,33 @@ describe('the print field table and the contract', () => {
     expect(keys(printSchema)).toEqual(sorted([...PRINT_FIELDS.map((f) => f.key), ...PRINT_KEYS_BEYOND_FIELDS]));
   });
 
-  it('restricted fields are optional in printSchema (left out for viewers); every other field is always there', () => {
+  it('restricted and valuation fields are optional in printSchema (left out for roles that may not read them); every other field is always there', () => {
     for (const f of PRINT_FIELDS) {
       const schema = printSchema.shape[f.key];
-      expect(schema.safeParse(undefined).success, f.key).toBe(f.read === 'catalogue.read_restricted');
+      expect(schema.safeParse(undefined).success, f.key).toBe(f.read === 'catalogue.read_restricted' || f.read === 'valuation.read');
     }
-    expect(PRINT_FIELDS.filter((f) => f.read === 'catalogue.read_restricted').map((f) => f.key)).toEqual([
+    expect(PRINT_FIELDS.filter((f) => f.read !== 'catalogue.read').map((f) => f.key)).toEqual([
       'location', 'staffNotes', 'valuationAmount', 'valuationCurrency',
     ]);
+  });
+
+  it('valuations are read by registrars and administrators only', () => {
+    expect(PRINT_FIELDS.filter((f) => f.read === 'valuation.read').map((f) => f.key)).toEqual(['valuationAmount', 'valuationCurrency']);
+    for (const key of ['valuationAmount', 'valuationCurrency']) expect(readersOf(printField(key)!), key).toEqual(['admin', 'registrar']);
+    expect(readersOf(printField('staffNotes')!)).toEqual(['admin', 'registrar', 'conservator', 'researcher']);
+  });
+
+  it('a valuation currency is an ISO 4217 code from the list: any case, kept in capitals; anything else is refused', () => {
+    const currency = printInputSchema.shape.valuationCurrency;
+    expect(currency.parse('EUR')).toBe('EUR');
+    expect(currency.parse('gbp')).toBe('GBP');
+    expect(currency.parse(' usd ')).toBe('USD');
+    expect(currency.parse('')).toBeNull();
+    for (const bad of ['POU', 'pounds', 'XXX', 'XTS', 'XAU', 'EU', 'EURO', 42]) {
+      const r = currency.safeParse(bad);
+      expect(r.success, String(bad)).toBe(false);
+    }
+    expect(currency.safeParse('POU').error?.issues[0]?.message).toBe('"POU" is not an ISO 4217 currency code (such as GBP, EUR or USD)');
   });
 
   it('an update cannot set what is set only on create (a location changes by a movement)', () => {

@@ -22,6 +22,8 @@ export const WARNING_CODES = {
 
 const R = 'catalogue.read' as const;
 const RESTRICTED = 'catalogue.read_restricted' as const;
+/** Insurance valuations: registrars and administrators only. */
+const VALUATION = 'valuation.read' as const;
 
 /**
  * Every field of a print that leaves the server, in CSV column order. Adding a field here adds it to
@@ -130,12 +132,12 @@ export const PRINT_FIELDS = [
     ...longText(10000), example: 'Matched to the negative register, volume 3.', description: 'Notes for staff only: never shown to viewers.',
   },
   {
-    key: 'valuationAmount', inputKey: 'valuationAmount', label: 'Valuation amount', column: 'valuation_amount', read: RESTRICTED, origin: 'entered',
-    ...amount(), example: '1200', description: 'The current valuation, in the valuation currency.',
+    key: 'valuationAmount', inputKey: 'valuationAmount', label: 'Valuation amount', column: 'valuation_amount', read: VALUATION, origin: 'entered',
+    ...amount(), example: '1200', description: 'The current insurance valuation, in the valuation currency. Read by registrars and administrators only.',
   },
   {
-    key: 'valuationCurrency', inputKey: 'valuationCurrency', label: 'Valuation currency', column: 'valuation_currency', read: RESTRICTED, origin: 'entered',
-    ...currency(), example: 'GBP', description: 'The currency of the valuation.',
+    key: 'valuationCurrency', inputKey: 'valuationCurrency', label: 'Valuation currency', column: 'valuation_currency', read: VALUATION, origin: 'entered',
+    ...currency(), example: 'GBP', description: 'The currency of the valuation, as an ISO 4217 code (GBP, EUR, USD…); a code in small letters is kept in capitals. Read by registrars and administrators only.',
   },
   {
     key: 'tonerClasses', label: 'Toner classes', column: 'toner_classes', read: R, origin: 'computed',

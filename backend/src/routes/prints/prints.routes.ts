@@ -34,7 +34,7 @@ export function printsRoutes(): RouteDef[] {
     replaceSteps: async ({ params, body, actor, requestId }) => ({ data: await replaceSteps(params.id, body, actor, requestId) }),
     movements: async ({ params }) => ({ data: await listMovements(params.id) }),
     move: async ({ params, body, actor, requestId }) => ({ data: await movePrint(params.id, body, actor, requestId) }),
-    history: async ({ params }) => ({ data: await printHistory(params.id) }),
+    history: async ({ params, actor }) => ({ data: await printHistory(params.id, actor.role) }),
     exportJson: async ({ params, actor, res }) => {
       const doc = await printJson(params.id, actor.role);
       res.setHeader('Content-Disposition', `attachment; filename="print-${doc.print.accessionNumber.replace(/[^A-Za-z0-9._-]/g, '_')}.json"`);

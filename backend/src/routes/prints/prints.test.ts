@@ -183,14 +183,23 @@ describe('PATCH /api/prints/:id', () => {
 });
 
 describe('restricted fields and movements', () => {
-  it('viewers do not receive location, valuation or staff notes; staff do', async () => {
+  it('viewers do not receive location, valuation or staff notes; staff do (the valuation: registrars and administrators only)', async () => {
     const building = await createLocation();
     const p = await newPrint({ locationId: building.id, staffNotes: 'Insured separately', valuationAmount: 1200, valuationCurrency: 'GBP' });
     const viewer = await api('viewer').get(`/api/prints/${p.id}`);
     expect(viewer.status).toBe(200);
     for (const k of ['location', 'staffNotes', 'valuationAmount', 'valuationCurrency']) expect(viewer.body.data, k).not.toHaveProperty(k);
     const researcher = await api('researcher').get(`/api/prints/${p.id}`);
-    expect(researcher.body.data).toMatchObject({ location: { pathLabel: building.pathLabel }, staffNotes: 'Insured separately', valuationAmount: 1200 });
+    expect(researcher.body.data).toMatchObject({ location: { pathLabel: building.pathLabel }, staffNotes: 'Insured separately' });
+    for (const role of ['researcher', 'conservator'] as const) {
+      const staff = await api(role).get(`/api/prints/${p.id}`);
+      expect(staff.body.data, role).toMatchObject({ location: { pathLabel: building.pathLabel }, staffNotes: 'Insured separately' });
+      for (const k of ['valuationAmount', 'valuationCurrency']) expect(staff.body.data, `${role} ${k}`).not.toHaveProperty(k);
+    }
+    for (const role of ['registrar', 'admin'] as const) {
+      const staff = await api(role).get(`/api/prints/${p.id}`);
+      expect(staff.body.data, role).toMatchObject({ location: { pathLabel: building.pathLabel }, staffNotes: 'Insured separately', valuationAmount: 1200, valuationCurrency: 'GBP' });
+    }
     const list = await api('viewer').get(`/api/prints?q=${encodeURIComponent(p.accessionNumber)}`);
     expect(list.body.data[0]).not.toHaveProperty('locationLabel');
     // Viewers cannot find a print by words that only its staff notes hold.
@@ -267,6 +276,12 @@ describe('GET /api/prints (the list)', () => {
     const viewer = await api('viewer').get(`/api/prints/export.csv?makerId=${maker.id}`);
     expect(viewer.text.split(/\r?\n/)[0].split(',')).not.toContain('location');
     expect(viewer.text.split(/\r?\n/)[0].split(',')).not.toContain('staff_notes');
+    expect(lines[0].split(',')).toEqual(expect.arrayContaining(['valuation_amount', 'valuation_currency']));
+    for (const role of ['researcher', 'conservator', 'viewer'] as const) {
+      const header = (await api(role).get(`/api/prints/export.csv?makerId=${maker.id}`)).text.split(/\r?\n/)[0].split(',');
+      expect(header, role).not.toContain('valuation_amount');
+      expect(header, role).not.toContain('valuation_currency');
+    }
   });
 
   it('exports one print as JSON with its process history', async () => {

@@ -1,11 +1,14 @@
 import { useMemo } from 'react';
 import { useFormContext, useWatch } from 'react-hook-form';
 import { accessionRule, checkAccession } from '@toneledger/common/domain/accession';
+import { CURRENCIES } from '@toneledger/common/domain/currencies';
+import { can } from '@toneledger/common/domain/roles';
 import { parseEdtf } from '@toneledger/common/domain/edtf';
 import type { Enclosure, Print } from '@toneledger/common/schemas/catalogue';
 import { LIGHT_RESPONSIVITY, PAT_RESULT, PROCESS, STATUS, SUPPORT } from '@toneledger/common/schemas/vocab';
 import { NumberInput, SelectInput, TextAreaInput, TextInput, useFieldError } from '@/components/form/fields';
 import { useFieldId } from '@/components/form/form-context';
+import { useMe } from '@/lib/auth';
 import { useEnclosures, useLocations, useMakers, usePapers } from '@/lib/reference-api';
 import { WarningsPanel } from '@/features/catalogue/components/warnings-panel';
 import { edtfSummary } from '@/features/catalogue/utils/format';
@@ -13,6 +16,8 @@ import { FIELD_LABELS as L, type PrintFormValues } from '@/features/catalogue/ut
 import { previewWarnings } from '@/features/catalogue/utils/warnings';
 
 const NOT_RECORDED = 'Not recorded';
+/** The valuation currencies (ISO 4217) as the select offers them: "GBP · Pound Sterling". */
+const CURRENCY_OPTIONS = CURRENCIES.map((c) => ({ value: c.code, label: `${c.code} · ${c.name}` }));
 const box = 'grid gap-4 rounded border border-paper-300 bg-white p-4';
 const legend = 'px-1 font-serif text-lg font-semibold';
 
@@ -155,6 +160,7 @@ function Housing({ creating, print, enclosures }: { creating: boolean; print: Pr
 /** The print form's fields, in their groups; values, checks and saving are the form's (print-form.tsx). */
 export function PrintFormFields({ creating, print, pattern }: { creating: boolean; print: Print | null; pattern: string | undefined }) {
   const enclosures = useEnclosures();
+  const valuation = can(useMe().role, 'valuation.read');
   return (
     <>
       <Identification pattern={pattern} savedAccession={print?.accessionNumber ?? null} />
@@ -174,16 +180,16 @@ export function PrintFormFields({ creating, print, pattern }: { creating: boolea
       </fieldset>
       <fieldset className={`${box} sm:grid-cols-2`}>
         <legend className={legend}>Staff only</legend>
-        <p className="text-xs text-ink-700 sm:col-span-2">Staff notes and valuation are not shown to viewers.</p>
+        <p className="text-xs text-ink-700 sm:col-span-2">
+          {valuation ? 'Staff notes are not shown to viewers; the valuation only to registrars and administrators.' : 'Staff notes are not shown to viewers.'}
+        </p>
         <TextAreaInput name="staffNotes" label={L.staffNotes} fieldClassName="sm:col-span-2" />
-        <NumberInput name="valuationAmount" label={L.valuationAmount} />
-        <TextInput
-          name="valuationCurrency"
-          label={L.valuationCurrency}
-          hint="Three-letter code, e.g. GBP, EUR"
-          className="mono uppercase"
-          transform={(text) => text.toUpperCase()}
-        />
+        {valuation ? (
+          <>
+            <NumberInput name="valuationAmount" label={L.valuationAmount} />
+            <SelectInput name="valuationCurrency" label={L.valuationCurrency} options={CURRENCY_OPTIONS} empty={NOT_RECORDED} />
+          </>
+        ) : null}
       </fieldset>
     </>
   );

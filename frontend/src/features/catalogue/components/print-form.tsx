@@ -3,6 +3,7 @@ import { printInputSchema, printSchema, type Print } from '@toneledger/common/sc
 import { SchemaForm } from '@/components/form/schema-form';
 import { Button, buttonClasses } from '@/components/ui/button';
 import type { FieldErrors } from '@/lib/forms/field-errors';
+import { useMe } from '@/lib/auth';
 import { changesOnly } from '@/lib/forms/stale-edit';
 import { useRecordEdit } from '@/lib/forms/use-record-edit';
 import { NOTHING_TO_SAVE, useSchemaForm } from '@/lib/forms/use-schema-form';
@@ -17,6 +18,7 @@ import {
   emptyPrintValues,
   printToValues,
   printValuesToBody,
+  readableBody,
   type PrintField,
   type PrintFormValues,
 } from '@/features/catalogue/utils/print-form';
@@ -44,11 +46,12 @@ export function PrintForm(props: PrintFormProps) {
   const update = useUpdatePrint();
   const mutation = props.mode === 'create' ? create : update;
   const pattern = settings.data?.accessionPattern;
+  const role = useMe().role;
 
   const form = useSchemaForm({
     schema: props.mode === 'create' ? printInputSchema : editSchema,
     defaultValues: opened ? printToValues(opened) : emptyPrintValues(),
-    toBody: printValuesToBody,
+    toBody: (values: PrintFormValues) => readableBody(printValuesToBody(values), role),
     // The accession pattern (a setting) and EDTF dates are checked here, as they are typed.
     check: (values: PrintFormValues): FieldErrors => {
       const errors: FieldErrors = {};

@@ -1,32 +1,33 @@
 import { describe, expect, it } from 'vitest';
 import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import { errorResponse, json, mockFetch } from '@/test/fetch-mock';
+import type { Role } from '@toneledger/common/domain/roles';
 import { makeMe } from '@/test/fixtures';
 import { renderRoutes } from '@/test/render';
 import { PrintCreatePage } from '@/features/catalogue/routes/print-create-page';
 import { PrintEditPage } from '@/features/catalogue/routes/print-edit-page';
 import { BUFFERED_ID, PRINT_ID, makePrint, makeStep, referenceHandlers } from '@/features/catalogue/testing/fixtures';
 
-function renderEdit(handlers: Record<string, Parameters<typeof mockFetch>[0][string]>) {
+function renderEdit(handlers: Record<string, Parameters<typeof mockFetch>[0][string]>, role: Role = 'registrar') {
   const fetch = mockFetch({ ...referenceHandlers(), ...handlers });
   const view = renderRoutes(
     [
       { path: '/catalogue/prints/:id/edit', element: <PrintEditPage /> },
       { path: '/catalogue/prints/:id', element: <p>print page</p> },
     ],
-    { path: `/catalogue/prints/${PRINT_ID}/edit`, me: makeMe('registrar') },
+    { path: `/catalogue/prints/${PRINT_ID}/edit`, me: makeMe(role) },
   );
   return { ...fetch, ...view };
 }
 
-function renderCreate(handlers: Record<string, Parameters<typeof mockFetch>[0][string]>) {
+function renderCreate(handlers: Record<string, Parameters<typeof mockFetch>[0][string]>, role: Role = 'registrar') {
   const fetch = mockFetch({ ...referenceHandlers(), ...handlers });
   const view = renderRoutes(
     [
       { path: '/catalogue/prints/new', element: <PrintCreatePage /> },
       { path: '/catalogue/prints/:id', element: <p>print page</p> },
     ],
-    { path: '/catalogue/prints/new', me: makeMe('registrar') },
+    { path: '/catalogue/prints/new', me: makeMe(role) },
   );
   return { ...fetch, ...view };
 }
@@ -208,5 +209,55 @@ describe('print form: editing on top of someone else’s save', () => {
     expect(notice.textContent).toContain('Someone saved it');
     fireEvent.click(within(notice).getByRole('button', { name: /Discard my changes/ }));
     expect((screen.getByLabelText('Title') as HTMLInputElement).value).toBe('Harbour wall at low tide');
+  });
+});
+
+describe('print form: valuation', () => {
+  it('offers the valuation currency as a list of ISO 4217 codes with their names', async () => {
+    const { requests } = renderCreate({ 'POST /api/prints': () => json({ data: makePrint() }, 201) });
+    const currency = (await screen.findByLabelText('Valuation currency')) as HTMLSelectElement;
+    expect(currency.tagName).toBe('SELECT');
+    const options = within(currency).getAllByRole('option').map((o) => o.textContent);
+    expect(options[0]).toBe('Not recorded');
+    expect(options).toContain('GBP · Pound Sterling');
+    expect(options).toContain('EUR · Euro');
+    expect(options.some((o) => o?.startsWith('XXX'))).toBe(false);
+    fireEvent.change(screen.getByLabelText('Accession number'), { target: { value: '2001.4.1' } });
+    fireEvent.change(screen.getByLabelText('Title'), { target: { value: 'Pier at dusk' } });
+    fireEvent.change(screen.getByLabelText('Valuation amount'), { target: { value: '1200' } });
+    fireEvent.change(currency, { target: { value: 'EUR' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Save' }));
+    await waitFor(() => expect(requests.some((r) => r.method === 'POST')).toBe(true));
+    expect(requests.find((r) => r.method === 'POST')?.body).toMatchObject({ valuationAmount: 1200, valuationCurrency: 'EUR' });
+  });
+
+  it('a role that may not read valuations has no valuation controls, and saving never sends them', async () => {
+    const { valuationAmount: _a, valuationCurrency: _c, ...unvalued } = makePrint();
+    const edit = renderEdit(
+      {
+        [`GET /api/prints/${PRINT_ID}`]: () => json({ data: unvalued }),
+        [`PATCH /api/prints/${PRINT_ID}`]: () => json({ data: { ...unvalued, title: 'Harbour wall', version: 4 } }),
+      },
+      'conservator',
+    );
+    fireEvent.change(await screen.findByLabelText('Title'), { target: { value: 'Harbour wall' } });
+    expect(screen.queryByLabelText('Valuation amount')).toBeNull();
+    expect(screen.queryByLabelText('Valuation currency')).toBeNull();
+    expect(screen.getByLabelText('Staff notes')).toBeTruthy();
+    fireEvent.click(screen.getByRole('button', { name: 'Save' }));
+    await waitFor(() => expect(edit.requests.some((r) => r.method === 'PATCH')).toBe(true));
+    expect(edit.requests.find((r) => r.method === 'PATCH')?.body).toEqual({ version: 3, title: 'Harbour wall' });
+    edit.unmount();
+
+    const create = renderCreate({ 'POST /api/prints': () => json({ data: unvalued }, 201) }, 'conservator');
+    fireEvent.change(await screen.findByLabelText('Accession number'), { target: { value: '2001.4.1' } });
+    fireEvent.change(screen.getByLabelText('Title'), { target: { value: 'Pier at dusk' } });
+    expect(screen.queryByLabelText('Valuation amount')).toBeNull();
+    fireEvent.click(screen.getByRole('button', { name: 'Save' }));
+    await waitFor(() => expect(create.requests.some((r) => r.method === 'POST')).toBe(true));
+    const body = create.requests.find((r) => r.method === 'POST')?.body as Record<string, unknown>;
+    expect(body).toMatchObject({ accessionNumber: '2001.4.1', title: 'Pier at dusk' });
+    expect(body).not.toHaveProperty('valuationAmount');
+    expect(body).not.toHaveProperty('valuationCurrency');
   });
 });

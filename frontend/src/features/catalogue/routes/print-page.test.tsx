@@ -88,16 +88,34 @@ describe('PrintPage', () => {
     expect(link.getAttribute('href')).toBe(`/condition/prints/${PRINT_ID}`);
   });
 
-  it('lets a researcher read staff notes, valuation, movements and history, but not move or edit', async () => {
+  it('lets a researcher read staff notes, movements and history, but not the valuation, and not move or edit', async () => {
     renderPrint('researcher');
     await screen.findByRole('heading', { level: 1, name: '1987.14.3' });
     expect(screen.getByText('Frame glazing chipped')).toBeTruthy();
-    expect(screen.getByText('£1,200.00')).toBeTruthy();
+    expect(screen.queryByText('£1,200.00')).toBeNull();
+    expect(screen.queryByText('Valuation')).toBeNull();
     const history = screen.getByRole('region', { name: 'History of changes' });
     expect(await within(history).findByText('Changed the title')).toBeTruthy();
     expect(await screen.findByText('Accessioned — Ada Marsh')).toBeTruthy();
     expect(screen.queryByRole('button', { name: 'Move' })).toBeNull();
     expect(screen.queryByRole('link', { name: 'Edit' })).toBeNull();
+  });
+
+  it('shows the valuation to registrars and administrators only', async () => {
+    for (const role of ['registrar', 'admin'] as const) {
+      const view = renderPrint(role);
+      await screen.findByRole('heading', { level: 1, name: '1987.14.3' });
+      expect(screen.getByRole('region', { name: 'Staff notes and valuation' }).textContent, role).toContain('£1,200.00');
+      view.unmount();
+    }
+    for (const role of ['conservator', 'researcher'] as const) {
+      const view = renderPrint(role);
+      await screen.findByRole('heading', { level: 1, name: '1987.14.3' });
+      expect(screen.getByRole('region', { name: 'Staff notes' }).textContent, role).toContain('Frame glazing chipped');
+      expect(screen.queryByText('Valuation'), role).toBeNull();
+      expect(screen.queryByText('£1,200.00'), role).toBeNull();
+      view.unmount();
+    }
   });
 
   it('moves the print with the version it shows', async () => {

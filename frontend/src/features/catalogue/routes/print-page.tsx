@@ -89,6 +89,7 @@ function PrintView({ print }: { print: Print }) {
   const me = useMe();
   const mayWrite = can(me.role, 'catalogue.write');
   const restricted = can(me.role, 'catalogue.read_restricted');
+  const valuation = can(me.role, 'valuation.read');
   const chemistry = print.steps.some((s) => s.type === 'toning' || s.type === 'after_bath' || s.recipe);
 
   return (
@@ -146,14 +147,16 @@ function PrintView({ print }: { print: Print }) {
             </div>
           </Panel>
           {restricted && (print.staffNotes !== undefined || print.valuationAmount !== undefined) ? (
-            <Panel title="Staff notes and valuation">
-              <p className="mb-2 text-xs text-ink-700">Not shown to viewers.</p>
+            <Panel title={valuation ? 'Staff notes and valuation' : 'Staff notes'}>
+              <p className="mb-2 text-xs text-ink-700">{valuation ? 'Not shown to viewers; the valuation only to registrars and administrators.' : 'Not shown to viewers.'}</p>
               <div className="flex flex-col gap-3">
                 <TextBlock term="Staff notes" value={print.staffNotes} />
-                <TextBlock
-                  term="Valuation"
-                  value={print.valuationAmount !== null && print.valuationAmount !== undefined ? formatMoney(print.valuationAmount, print.valuationCurrency) : null}
-                />
+                {valuation ? (
+                  <TextBlock
+                    term="Valuation"
+                    value={print.valuationAmount !== null && print.valuationAmount !== undefined ? formatMoney(print.valuationAmount, print.valuationCurrency) : null}
+                  />
+                ) : null}
               </div>
             </Panel>
           ) : null}

@@ -1,5 +1,6 @@
 import type { Print, PrintInput } from '@toneledger/common/schemas/catalogue';
-import { toCell } from '@toneledger/common/fields/field';
+import type { Role } from '@toneledger/common/domain/roles';
+import { mayRead, toCell } from '@toneledger/common/fields/field';
 import { ENTERED_PRINT_FIELDS, labelOf, printField } from '@toneledger/common/fields/print';
 import { fieldList } from '@/lib/forms/stale-edit';
 
@@ -51,6 +52,16 @@ export function printValuesToBody(values: PrintFormValues): Record<string, unkno
     else body[f.inputKey] = null;
   }
   return body;
+}
+
+/**
+ * The body without the fields the role may not read (a valuation, for a role without
+ * `valuation.read`): the form has no control for them, and saving never sends, so never blanks, them.
+ */
+export function readableBody(body: Record<string, unknown>, role: Role | null | undefined): Record<string, unknown> {
+  const out = { ...body };
+  for (const f of ENTERED_PRINT_FIELDS) if (!mayRead(role, f)) delete out[f.inputKey];
+  return out;
 }
 
 /** How a code field of the form reads to a person: its label. */
