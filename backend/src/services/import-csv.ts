@@ -1,10 +1,10 @@
 import { parse } from 'csv-parse/sync';
-import { stringify } from 'csv-stringify/sync';
 import { readersOf, typeLabel, type FieldSpec } from '@toneledger/common/fields/field';
 import { PRINT_FIELDS } from '@toneledger/common/fields/print';
 import { STEP_FIELDS } from '@toneledger/common/fields/step';
 import { ROLE_LABELS } from '@toneledger/common/domain/roles';
 import { validationFailed } from '../errors';
+import { fromCsvCell, toCsv, type CsvCell } from './csv-cells';
 
 /**
  * The two CSV files of an import as text: reading them (header, rows, note lines) and writing the
@@ -12,7 +12,8 @@ import { validationFailed } from '../errors';
  * a field names it.
  *
  * Lines above the header whose first cell starts with `#` are notes (the templates carry one per
- * column) and are skipped; below the header every line is data.
+ * column) and are skipped; below the header every line is data. A data cell written with a leading '
+ * because it starts like a formula is read as the text it stands for (csv-cells.ts).
  */
 
 export const MAX_IMPORT_ROWS = 100_000;
@@ -85,7 +86,7 @@ export function readCsv(source: string, file: ImportFile): ReadFile {
       rowIssues.push({ file, row, column: '', value: null, message: `This row has ${cells.length} cells; the header has ${header.length}` });
       continue;
     }
-    rows.push({ row, cells: Object.fromEntries(header.map((h, k) => [h, cells[k] ?? ''])) });
+    rows.push({ row, cells: Object.fromEntries(header.map((h, k) => [h, fromCsvCell(cells[k] ?? '')])) });
   }
   return { header, rows, issues: rowIssues };
 }
@@ -117,9 +118,15 @@ const INTRO: Record<ImportFile, string[]> = {
   ],
 };
 
+/** A field's example as a cell: a number for a numeric field, so it is written as a number. */
+function exampleCell(f: FieldSpec): CsvCell {
+  const numeric = f.type.kind === 'number' || f.type.kind === 'duration';
+  return numeric && f.example.trim() !== '' && Number.isFinite(Number(f.example)) ? Number(f.example) : f.example;
+}
+
 /** A template: notes on every column (type, codes, default, who may read it), the header, and an example row. */
 export function templateCsv(file: ImportFile): string {
   const fields = FIELDS[file].filter((f) => f.origin === 'entered' || file === 'steps');
   const notes = [...INTRO[file], ...fields.map(noteFor)].map((line) => [line]);
-  return stringify([...notes, fields.map((f) => f.column), fields.map((f) => f.example)], { record_delimiter: '\r\n' });
+  return toCsv([...notes, fields.map((f) => f.column), fields.map(exampleCell)], { recordDelimiter: 'windows' });
 }

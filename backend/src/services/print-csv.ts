@@ -1,4 +1,5 @@
 import { toCell, type FieldSpec, type ReferenceTo } from '@toneledger/common/fields/field';
+import type { CsvCell } from './csv-cells';
 
 /**
  * Prints and steps as CSV cells, read from database rows by the field tables (common/src/fields):
@@ -36,4 +37,10 @@ export function valueInRow(field: FieldSpec, row: DbRow): unknown {
 /** The CSV cell of a field in a database row. */
 export function cellInRow(field: FieldSpec, row: DbRow): string {
   return toCell(valueInRow(field, row));
+}
+
+/** The cell an export writes (through `toCsv`): a number stays a number, so it is never escaped as text. */
+export function exportCellInRow(field: FieldSpec, row: DbRow): CsvCell {
+  const value = valueInRow(field, row);
+  return typeof value === 'number' ? value : toCell(value);
 }
