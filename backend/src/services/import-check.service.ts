@@ -169,6 +169,8 @@ export function checkImport(prints: ReadFile, stepsFile: ReadFile | null, l: Loo
     const v = { ...parsed.data, accessionNumber: accession } as PrintInput;
     const after = (f: FieldSpec) => state.names[f.column] ?? (f.type.kind === 'reference' ? '' : toCell(v[f.inputKey as keyof PrintInput]));
     if (state.newMaker && !newMakers.has(state.newMaker.toLowerCase())) newMakers.set(state.newMaker.toLowerCase(), state.newMaker);
+    // A new maker is created once, named as the file first writes it; every row naming it stores that name.
+    if (state.newMaker) state.names.maker = state.newMaker = newMakers.get(state.newMaker.toLowerCase())!;
     const derived = (changed: (key: string) => boolean) => ({
       ...(changed('accessionNumber') ? { accessionSort: accessionSortKey(v.accessionNumber) } : {}),
       ...(changed('dateMade') ? date : {}),

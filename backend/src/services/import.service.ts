@@ -1,8 +1,9 @@
 import { QueryTypes } from 'sequelize';
+import type { Logger } from 'pino';
 import type { ImportMode, ImportRow, ImportRowsQuery } from '@toneledger/common/schemas/catalogue';
 import { db } from '../db';
 import { ImportJobModel } from '../models';
-import { conflict, notFound } from '../errors';
+import { AppError, conflict, notFound } from '../errors';
 import { presentImport } from '../presenters/catalogue.presenter';
 import type { AuditActor } from './audit.service';
 import { readCsv, type ReadFile } from './import-csv';
@@ -80,7 +81,10 @@ async function validateJob(id: string) {
   }
 }
 
-async function commitJob(id: string, mode: ImportMode, actor: AuditActor, requestId: string | null) {
+/** Where a commit that fails unexpectedly is logged (the request's logger). */
+export type ImportLog = Pick<Logger, 'error'>;
+
+async function commitJob(id: string, mode: ImportMode, actor: AuditActor, requestId: string | null, log: ImportLog) {
   const job = await ImportJobModel.findByPk(id);
   if (!job) return;
   try {
@@ -91,15 +95,20 @@ async function commitJob(id: string, mode: ImportMode, actor: AuditActor, reques
       const [lookups, existing] = await Promise.all([loadLookups(t), loadExisting(accessionsOf(files.prints), t, true)]);
       const plan = checkImport(files.prints, files.steps, lookups, existing);
       const first = plan.issues[0];
-      if (first) throw new Error(`Row ${first.row} of the ${first.file} file no longer passes its checks (${first.message}). Check the file again.`);
-      if (plan.hash !== job.planHash) throw new Error('The catalogue has changed since the file was checked. Upload the file again to see what it would do now.');
-      if (mode === 'create_only' && plan.rows.some((r) => r.action !== 'create')) throw new Error('Some rows match prints already in the catalogue.');
+      if (first) throw conflict(`Row ${first.row} of the ${first.file} file no longer passes its checks (${first.message}). Check the file again.`);
+      if (plan.hash !== job.planHash) throw conflict('The catalogue has changed since the file was checked. Upload the file again to see what it would do now.');
+      if (mode === 'create_only' && plan.rows.some((r) => r.action !== 'create')) throw conflict('Some rows match prints already in the catalogue.');
       return writePlan(plan, { importId: id, fileName: job.fileName, actor, requestId, progress: (n) => progress(id, { processedRows: n }) }, t);
     });
     const message = `${done.created} ${done.created === 1 ? 'print' : 'prints'} created, ${done.updated} updated.`;
     await progress(id, { status: 'committed', createdPrints: done.created, updatedPrints: done.updated, message, finishedAt: new Date() });
   } catch (err) {
-    await progress(id, { status: 'failed', message: `Nothing was imported: ${(err as Error).message}`, finishedAt: new Date() });
+    // A refusal of ours is said as it is; anything else (a database error…) is logged in full and never shown.
+    if (!(err instanceof AppError)) log.error({ err, importId: id, requestId }, 'import commit failed');
+    const message = err instanceof AppError
+      ? `Nothing was imported: ${err.message}`
+      : `Nothing was imported: the catalogue could not save the file, so no print was created or changed. Try again; if it fails again, give your administrator these references: import ${id}${requestId ? `, request ${requestId}` : ''}.`;
+    await progress(id, { status: 'failed', message, finishedAt: new Date() });
   }
 }
 
@@ -154,9 +163,11 @@ export async function listImportRows(id: string, query: ImportRowsQuery): Promis
 
 /**
  * Starts writing a checked file. `create_only` refuses a file with rows that match prints already
- * in the catalogue (409, nothing written); `create_or_update` updates them.
+ * in the catalogue (409, nothing written); `create_or_update` updates them. `log` receives a failure
+ * of the write in full (the job's message only says that nothing was imported, with the job's and
+ * the request's ids).
  */
-export async function commitImport(id: string, mode: ImportMode, actor: AuditActor, requestId: string | null) {
+export async function commitImport(id: string, mode: ImportMode, actor: AuditActor, requestId: string | null, log: ImportLog) {
   const job = await findImport(id);
   if (job.status === 'ready' && mode === 'create_only' && job.toUpdate + job.unchangedRows > 0) {
     const n = job.toUpdate + job.unchangedRows;
@@ -167,7 +178,7 @@ export async function commitImport(id: string, mode: ImportMode, actor: AuditAct
     const now = await getImport(id);
     throw conflict(`This import is ${now.status}; only a checked file that is ready can be imported.`);
   }
-  background(commitJob(id, mode, actor, requestId));
+  background(commitJob(id, mode, actor, requestId, log));
   return getImport(id);
 }
 

@@ -31,6 +31,6 @@ export function importsRoutes(): RouteDef[] {
       const { rows, total } = await listImportRows(params.id, query);
       return { data: rows, pagination: { page: query.page, pageSize: query.pageSize, total } };
     },
-    commit: async ({ params, body, actor, requestId }) => ({ data: await commitImport(params.id, body.mode, actor, requestId) }),
+    commit: async ({ params, body, actor, requestId, req }) => ({ data: await commitImport(params.id, body.mode, actor, requestId, req.log) }),
   });
 }
