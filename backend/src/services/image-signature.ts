@@ -9,3 +9,19 @@ export function sniffImageType(head: Buffer): string | null {
   if (head.length >= 12 && head.subarray(0, 4).toString('latin1') === 'RIFF' && head.subarray(8, 12).toString('latin1') === 'WEBP') return 'image/webp';
   return null;
 }
+
+/** The file extension of each type `sniffImageType` answers. */
+const EXTENSIONS: Record<string, string> = { 'image/jpeg': 'jpg', 'image/png': 'png', 'image/tiff': 'tif', 'image/webp': 'webp' };
+
+/**
+ * The name an original downloads under: the uploaded name's stem (its last extension dropped; only
+ * letters, digits, `.`, `_` and `-`; no leading dots; at most 100 characters; "image" when nothing is
+ * left) with the extension of the type the file's bytes showed, so `poly.html` holding a JPEG
+ * downloads as `poly.jpg`.
+ */
+export function downloadName(uploadedName: string, contentType: string): string {
+  const base = uploadedName.split(/[/\\]/).pop() ?? '';
+  const dot = base.lastIndexOf('.');
+  const stem = (dot > 0 ? base.slice(0, dot) : base).replace(/[^A-Za-z0-9._-]/g, '_').replace(/^\.+/, '').slice(0, 100) || 'image';
+  return `${stem}.${EXTENSIONS[contentType] ?? 'bin'}`;
+}

@@ -5,6 +5,7 @@ import {
   checkFixityNow, fixityAlerts, fixityHistory, getAlignment, imageFor, listImages, openVariant, saveAlignment, updateImage, uploadImage,
   withdrawImage,
 } from '../../services/image.service';
+import { downloadName } from '../../services/image-signature';
 import { QUEUES } from '../../jobs/queue';
 import type { AppDeps } from '../../deps';
 
@@ -25,7 +26,7 @@ export function imagesRoutes(deps: AppDeps): RouteDef[] {
         res.setHeader('Cache-Control', 'private, max-age=3600');
         res.setHeader('X-Content-Type-Options', 'nosniff');
         if (params.variant === 'original') {
-          res.setHeader('Content-Disposition', `attachment; filename="${row.fileName.replace(/[^A-Za-z0-9._-]/g, '_')}"`);
+          res.setHeader('Content-Disposition', `attachment; filename="${downloadName(row.fileName, contentType)}"`);
           res.setHeader('Digest', `sha-256=${Buffer.from(row.sha256, 'hex').toString('base64')}`);
         }
         await new Promise<void>((resolve, reject) => {

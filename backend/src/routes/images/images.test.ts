@@ -99,6 +99,27 @@ describe('uploading an image', () => {
     expect(uploadTemps()).toBe(before.temps);
   });
 
+  it('the original downloads under the extension of its detected type, whatever the uploaded name said', async () => {
+    const jpeg = await jpegWithExif(64, 48);
+    const png = await sharp({ create: { width: 8, height: 8, channels: 3, background: '#abc' } }).png().toBuffer();
+    const cases: [Buffer, string, string, string][] = [
+      [jpeg, 'poly.html', 'image/jpeg', 'poly.jpg'],
+      [png, 'scan "recto".svg', 'image/png', 'scan__recto_.png'],
+      [jpeg, 'IMG_0007.JPEG', 'image/jpeg', 'IMG_0007.jpg'],
+      [png, 'no-extension', 'image/png', 'no-extension.png'],
+      [jpeg, '.htaccess', 'image/jpeg', 'htaccess.jpg'],
+      [jpeg, '...', 'image/jpeg', 'image.jpg'],
+    ];
+    for (const [buf, name, type, download] of cases) {
+      const res = await upload(buf, name);
+      expect(res.status, JSON.stringify(res.body)).toBe(201);
+      const original = await supertest(t.app).get(res.body.data.urls.original).set('Cookie', c.researcher);
+      expect(original.status).toBe(200);
+      expect(original.headers['content-type']).toBe(type);
+      expect(original.headers['content-disposition']).toBe(`attachment; filename="${download}"`);
+    }
+  });
+
   it('refuses a truncated JPEG with a clear 4xx and no row', async () => {
     const buf = await sharp({ create: { width: 800, height: 600, channels: 3, background: '#222' } }).jpeg().toBuffer();
     const before = await Image.count();
