@@ -45,6 +45,20 @@ export function allRoutes(deps: AppDeps): RouteDef[] {
   return routes;
 }
 
+const strictUtf8 = new TextDecoder('utf-8', { fatal: true });
+
+/**
+ * A JSON body must be UTF-8 (RFC 8259); bytes that are not would otherwise be read as U+FFFD and
+ * stored without a word. Refused here, before parsing; the error handler answers 400.
+ */
+function refuseInvalidUtf8(_req: unknown, _res: unknown, buf: Buffer): void {
+  try {
+    strictUtf8.decode(buf);
+  } catch {
+    throw Object.assign(new Error('The request body is not valid UTF-8.'), { status: 400, type: 'entity.verify.failed', expose: true });
+  }
+}
+
 export function buildApp(deps: AppDeps, logger: Logger): Express {
   const { env } = deps;
   const app = express();
@@ -97,7 +111,14 @@ export function buildApp(deps: AppDeps, logger: Logger): Express {
     );
   }
 
-  app.use(express.json({ limit: '1mb' }));
+  // Every answer under /api and /auth depends on the session (or says something about it): never
+  // stored by a browser or a proxy. A route that may be cached (image bytes) sets its own header.
+  app.use(['/api', '/auth'], (_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
+
+  app.use(express.json({ limit: '1mb', verify: refuseInvalidUtf8 }));
   app.use(sameOriginWrites([env.PUBLIC_URL, ...env.ALLOWED_ORIGINS]));
   app.use(sessionMiddleware(env, deps.pool));
   app.use(loadUser(env, deps.pool));

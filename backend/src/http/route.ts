@@ -4,9 +4,11 @@ import { can } from '@toneledger/common/domain/roles';
 import type {
   Access, BodyOut, Contract, Endpoint, ParamsOut, QueryOut, ResponseIn,
 } from '@toneledger/common/api/endpoint';
+import type { FieldIssue } from '@toneledger/common/schemas/envelope';
 import { forbidden, unauthenticated, validationFailed, AppError } from '../errors';
 import type { CurrentUser } from '../auth/current-user';
 import { idOf } from '../middleware/request-id';
+import { textProblems } from './input-text';
 
 export type { Access };
 
@@ -84,13 +86,15 @@ export function mount(router: Router, defs: RouteDef[], options: MountOptions): 
         ['query', def.query],
         ['body', def.body],
       ] as const;
-      const found: ReturnType<typeof issues> = [];
+      // The input rules first, over everything the request carries (declared or not): see http/input-text.ts.
+      const found: FieldIssue[] = parts.flatMap(([key]) => textProblems(key === 'body' ? req.body : req[key], key === 'body' ? '' : key));
+      const textPaths = new Set(found.map((i) => i.path));
       for (const [key, schema] of parts) {
         if (!schema) continue;
         const raw = key === 'body' ? (req.body ?? {}) : req[key];
         const parsed = schema.safeParse(raw);
         if (parsed.success) writeBack(req, key, parsed.data);
-        else found.push(...issues(parsed.error, key === 'body' ? '' : key));
+        else found.push(...issues(parsed.error, key === 'body' ? '' : key).filter((i) => !textPaths.has(i.path)));
       }
       if (found.length) {
         const nf = found.find((i) => i.path.startsWith('params'));

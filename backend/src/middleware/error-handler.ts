@@ -19,6 +19,9 @@ function fromLibrary(err: HttpishError): AppError | null {
       return new AppError('payload_too_large', 413, 'The request body is too large.');
     case 'entity.parse.failed':
       return new AppError('validation_failed', 400, 'The request body is not valid JSON.', []);
+    case 'entity.verify.failed':
+      // The JSON parser's verify step (app.ts) refuses a body that is not valid UTF-8.
+      return new AppError('validation_failed', 400, 'The request body is not valid UTF-8 text; send it as UTF-8.', []);
     case 'charset.unsupported':
     case 'encoding.unsupported':
       return new AppError('unsupported_media_type', 415, 'The request body encoding is not supported.');

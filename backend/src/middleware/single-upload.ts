@@ -43,6 +43,9 @@ export function uploadedTextOf(req: Request, field: string, saveAsHint: string):
   const files = req.files as Record<string, Express.Multer.File[]> | undefined;
   const file = req.file?.fieldname === field ? req.file : files?.[field]?.[0];
   if (!file) return null;
+  // UTF-8 decoding never yields an unpaired surrogate (bytes that would encode one, ED A0–BF xx, are
+  // invalid UTF-8 and decode to U+FFFD), so refusing NUL and U+FFFD here applies the same input
+  // rule as http/input-text.ts to the whole file.
   const text = new TextDecoder('utf-8', { fatal: false }).decode(file.buffer);
   if (text.includes('\u0000') || text.includes('\uFFFD')) {
     throw new AppError('unsupported_media_type', 415, `The file is not UTF-8 text. ${saveAsHint}`);

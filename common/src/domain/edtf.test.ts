@@ -184,6 +184,32 @@ describe('parseEdtf: invalid input', () => {
     expect(parseEdtf('/')).toMatchObject({ ok: false, error: expect.stringMatching(/at least one known date/) });
   });
 
+  it('a date and time with an offset no place uses, or none can be, is refused with the reason', () => {
+    // EDTF level 0 allows a time followed by Z or a shift of ±hh or ±hh:mm. Real UTC offsets run from
+    // −12:00 to +14:00 (Line Islands), so beyond ±14:00 is not a real offset, and an offset beyond
+    // ±23:59 (hours over 23 or minutes over 59) is impossible. Both bounds recalled from memory.
+    expect(parseEdtf('2024-01-01T00:00:00+99:00')).toEqual({
+      ok: false, error: '2024-01-01T00:00:00+99:00: the UTC offset +99:00 is impossible (hours 00–23, minutes 00–59)',
+    });
+    expect(parseEdtf('2024-01-01T00:00:00+05:75')).toMatchObject({ ok: false, error: expect.stringMatching(/UTC offset \+05:75 is impossible/) });
+    expect(parseEdtf('2024-01-01T00:00:00-15:00')).toEqual({
+      ok: false, error: '2024-01-01T00:00:00-15:00: the UTC offset -15:00 is not a real one (offsets in use are at most 14 hours from UTC)',
+    });
+    expect(parseEdtf('2024-01-01T00:00:00+1430')).toMatchObject({ ok: false, error: expect.stringMatching(/not a real one/) });
+    expect(parseEdtf('1960/2024-01-01T00:00:00+99')).toMatchObject({ ok: false, error: expect.stringMatching(/impossible/) });
+    // The edges are accepted.
+    expect(parseEdtf('2024-01-01T00:00:00+14:00')).toMatchObject({ ok: true });
+    expect(parseEdtf('2024-01-01T00:00:00-12:00')).toMatchObject({ ok: true });
+    expect(parseEdtf('2024-01-01T00:00:00+0530')).toMatchObject({ ok: true });
+  });
+
+  it('year 0000 is refused: it would be 1 BC, and bounds before year 1 are not supported here', () => {
+    expect(parseEdtf('0000')).toMatchObject({ ok: false, error: expect.stringMatching(/^0000: year 0000 .*not supported here/) });
+    expect(parseEdtf('000X')).toMatchObject({ ok: false, error: expect.stringMatching(/year 0000/) });
+    expect(parseEdtf('0000-02-29/1900')).toMatchObject({ ok: false, error: expect.stringMatching(/year 0000/) });
+    expect(parseEdtf('0001')).toMatchObject({ ok: true });
+  });
+
   it('empty and blank input is refused', () => {
     expect(parseEdtf('')).toMatchObject({ ok: false, error: expect.stringMatching(/^empty date/) });
     expect(parseEdtf('   ')).toMatchObject({ ok: false, error: expect.stringMatching(/^empty date/) });

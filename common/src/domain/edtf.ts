@@ -13,14 +13,15 @@
  *    level 0/1 date, an open end `..` or an unknown (empty) end.
  *
  * Decisions (refused with a clear message rather than half-supported):
- *  - negative years (`-1985`) and `Y`-prefixed long years (`Y170000002`): a photograph cannot
+ *  - year 0000, negative years (`-1985`) and `Y`-prefixed long years (`Y170000002`): a photograph cannot
  *    predate 1839, and the bounds here are plain `YYYY-MM-DD` strings; "not supported here";
  *  - anything that only level 2 allows (qualifying one part of a date, `X` elsewhere than level 1
  *    allows, seasons 25–41, sets `[..]`/`{..}`, exponents, significant digits);
  *  - a qualified season (`2001-21~`), unspecified digits inside an interval and a qualified
  *    date-and-time: not level 1;
  *  - an interval with no known end at all (`../..`, `/`), or whose start is after its end;
- *  - years of other than four digits, and the hour 24 (hours are 00–23).
+ *  - years of other than four digits, and the hour 24 (hours are 00–23);
+ *  - a time shift no place uses (beyond ±14:00) or none can be (hours over 23, minutes over 59).
  *
  * `display` is plain English: "1968", "April 1968", "12 April 1968", "1960s", "1900 to 1999",
  * "spring 2001", "about April 1968", "1971, uncertain", "about 11 June 2004, uncertain",
@@ -118,6 +119,21 @@ function checkDay(input: string, year: number, month: number, day: number): void
   }
 }
 
+/** Real UTC offsets run from −12:00 to +14:00; beyond ±14:00 no place uses one. */
+const MAX_OFFSET_MINUTES = 14 * 60;
+
+/** A time shift `±hh`, `±hhmm` or `±hh:mm`: impossible beyond 23 hours or 59 minutes, not real beyond ±14:00. */
+function checkOffset(input: string, zone: string): void {
+  const hours = Number(zone.slice(1, 3));
+  const minutes = Number(zone.slice(3).replace(':', '') || '0');
+  if (hours > 23 || minutes > 59) {
+    throw new EdtfError(`${input}: the UTC offset ${zone} is impossible (hours 00–23, minutes 00–59)`);
+  }
+  if (hours * 60 + minutes > MAX_OFFSET_MINUTES) {
+    throw new EdtfError(`${input}: the UTC offset ${zone} is not a real one (offsets in use are at most 14 hours from UTC)`);
+  }
+}
+
 /** Refusals that deserve a specific message rather than the generic "not an EDTF date". */
 function explainUnsupported(input: string, body: string): never {
   if (/^-\d/.test(body)) throw new EdtfError(`${input}: negative years (before year 0) are not supported here`);
@@ -162,6 +178,7 @@ function parsePoint(input: string, text: string): Point {
     if (hh > 23) throw new EdtfError(`${input}: hour must be 00–23`);
     if (mm > 59) throw new EdtfError(`${input}: minute must be 00–59`);
     if (ss > 59) throw new EdtfError(`${input}: second must be 00–59`);
+    if (zone !== undefined && zone !== 'Z') checkOffset(input, zone);
     const day = iso(y, m, d);
     const zoneText = zone === undefined ? ' (local time)' : zone === 'Z' ? ' UTC' : ` UTC${zone}`;
     return {
@@ -288,6 +305,11 @@ function parseInterval(input: string, startText: string, endText: string): EdtfV
   };
 }
 
+/** Year 0000 is 1 BC in ISO 8601; like negative years, not supported here (and not storable as a date). */
+function refuseYearZero(input: string, earliest: string | null): void {
+  if (earliest?.startsWith('0000')) throw new EdtfError(`${input}: year 0000 (1 BC) is not supported here; years start at 0001`);
+}
+
 /** Parse an EDTF level 0 or level 1 string. Never throws; bad input gives `{ ok: false, error }`. */
 export function parseEdtf(input: string): EdtfResult {
   try {
@@ -296,9 +318,14 @@ export function parseEdtf(input: string): EdtfResult {
     if (input !== input.trim() || /\s/.test(input)) throw new EdtfError(`"${input}": EDTF dates contain no spaces`);
     const parts = input.split('/');
     if (parts.length > 2) throw new EdtfError(`${input}: an interval has exactly one "/"`);
-    if (parts.length === 2) return { ok: true, value: parseInterval(input, parts[0], parts[1]) };
+    if (parts.length === 2) {
+      const value = parseInterval(input, parts[0], parts[1]);
+      refuseYearZero(input, value.earliest);
+      return { ok: true, value };
+    }
     if (input === '..') throw new EdtfError(`${input}: ".." is only allowed as one end of an interval`);
     const p = parsePoint(input, input);
+    refuseYearZero(input, p.earliest);
     return {
       ok: true,
       value: {

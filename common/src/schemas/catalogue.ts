@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { id, idParamsSchema } from './primitives';
+import { id, idParamsSchema, isoDateTime } from './primitives';
 export { idParamsSchema };
 import { inputShape, listShape, outputShape, sortKeys } from '../fields/field';
 import { PRINT_FIELDS } from '../fields/print';
@@ -204,7 +204,7 @@ export const staleEditDetailsSchema = z.object({
 export const movementInputSchema = z.object({
   toLocationId: id,
   reason: text(500).min(1, 'Say why the print moves'),
-  movedAt: z.string().datetime({ offset: true }).optional(),
+  movedAt: isoDateTime.optional(),
   version,
 });
 export const movementSchema = z.object({
