@@ -1,3 +1,4 @@
+import { warnUncheckedPattern } from './settings.service';
 import { createHash } from 'node:crypto';
 import { checkAccession } from '@toneledger/common/domain/accession';
 import { readCode, toCell, type FieldSpec } from '@toneledger/common/fields/field';
@@ -126,7 +127,10 @@ export function checkImport(prints: ReadFile, stepsFile: ReadFile | null, l: Loo
     let accession = s('accession_number');
     if (accession) {
       const check = checkAccession(l.pattern, accession);
-      if (check.ok) accession = check.normalised;
+      if (check.ok) {
+        accession = check.normalised;
+        warnUncheckedPattern(l.pattern, check.unchecked);
+      }
       else state.add('accession_number', check.message);
       const key = accession.toLowerCase();
       if (seen.has(key)) state.add('accession_number', `Repeats the accession number of row ${seen.get(key)}`);

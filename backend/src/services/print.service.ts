@@ -8,7 +8,7 @@ import { db } from '../db';
 import { AuditEventModel, BathRecipe, EnclosureType, Location, Maker, Movement, Paper, Print, ProcessStep } from '../models';
 import { conflict, notFound, validationFailed } from '../errors';
 import { recordAudit, type AuditActor } from './audit.service';
-import { getCatalogueSettings } from './settings.service';
+import { getCatalogueSettings, warnUncheckedPattern } from './settings.service';
 import { changedFields, rethrowUnique, staleEdit } from './versioning';
 import { accessionSortKey, deriveDate, tonerClassesOf, warningsOf } from './print-derive';
 import { paperLabel, presentMovement, presentPrint, type LoadedPrint } from '../presenters/catalogue.presenter';
@@ -58,6 +58,7 @@ async function checkAccessionNumber(value: string) {
   const { accessionPattern } = await getCatalogueSettings();
   const result = checkAccession(accessionPattern, value);
   if (!result.ok) throw validationFailed([{ path: 'accessionNumber', message: result.message, code: 'pattern' }]);
+  warnUncheckedPattern(accessionPattern, result.unchecked);
   return result.normalised;
 }
 

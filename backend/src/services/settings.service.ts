@@ -16,6 +16,17 @@ export async function getCatalogueSettings(): Promise<CatalogueSettings> {
   return { ...DEFAULT_CATALOGUE_SETTINGS, ...((row?.value as Partial<CatalogueSettings>) ?? {}) };
 }
 
+const warned = new Set<string>();
+
+/** A stored pattern that is not applied (unsafe to run, see `checkAccession`) is reported once per pattern. */
+export function warnUncheckedPattern(pattern: string, unchecked: string | undefined): void {
+  if (!unchecked || warned.has(pattern)) return;
+  warned.add(pattern);
+  process.emitWarning(`${unchecked} Accession numbers are not checked until an administrator changes it in the catalogue settings.`, {
+    code: 'TONELEDGER_ACCESSION_PATTERN_NOT_APPLIED',
+  });
+}
+
 export async function putCatalogueSettings(next: CatalogueSettings, actor: AuditActor, requestId: string | null): Promise<CatalogueSettings> {
   try {
     accessionRule(next.accessionPattern);

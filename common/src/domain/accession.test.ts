@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { DEFAULT_ACCESSION_PATTERN, accessionRule, checkAccession } from './accession';
+import { DEFAULT_ACCESSION_PATTERN, MAX_REPEATS, UnsafeAccessionPatternError, accessionRule, checkAccession } from './accession';
 
 // The three-part year.lot.item accession number is common practice in museum registration; the
 // template syntax is this module's own (documented in accession.ts).
@@ -86,5 +86,55 @@ describe('checkAccession', () => {
     const r = checkAccession('YY.N', '87.1');
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.message).toMatch(/^The accession-number pattern setting is not valid: accession pattern "YY\.N"/);
+  });
+});
+
+describe('re: patterns that could freeze the server', () => {
+  const NUMBER_29 = '1987.14.3.1987.14.3.1987.14.3'; // 29 characters, no letter at the end
+
+  it('refuses the nested repeat that takes seconds on a 29-character number, saying what to write instead', () => {
+    expect(NUMBER_29).toHaveLength(29);
+    expect(() => accessionRule('re:(\\d+\\.?)+[A-Z]')).toThrow(UnsafeAccessionPatternError);
+    expect(() => accessionRule('re:(\\d+\\.?)+[A-Z]')).toThrow(/repeats a part inside another repeated part.*template instead.*YYYY\.N\.N/);
+  });
+
+  it('refuses alternatives inside a repeated part and too many repeated parts', () => {
+    expect(() => accessionRule('re:(\\d|\\d)*[A-Z]')).toThrow(/alternatives \(\|\) inside a repeated part/);
+    expect(() => accessionRule('re:(1|\\d){1,40}[A-Z]')).toThrow(UnsafeAccessionPatternError);
+    expect(() => accessionRule(`re:${'\\d*'.repeat(MAX_REPEATS + 1)}[A-Z]`)).toThrow(/more than 6 repeated parts/);
+  });
+
+  it('still accepts ordinary expressions', () => {
+    expect(accessionRule('re:[A-Z]{2}\\d{4}').test('PH1987')).toBe(true);
+    expect(accessionRule('re:(PH|NEG)-?\\d+').test('NEG-12')).toBe(true);
+  });
+
+  it('checking a 29-character number against any pattern that can still be saved gives an answer', () => {
+    const candidates = [
+      '(\\d+\\.?)+[A-Z]', '(\\d*)*[A-Z]', '(\\d|\\d)*[A-Z]', '(\\d|\\d\\d)+[A-Z]', '(\\d+)+[A-Z]', '(.*\\.)*[A-Z]',
+      '\\d*\\d*\\d*\\d*\\d*\\d*[A-Z]', '[\\d.]*\\d*\\.*\\d*[A-Z]', '.*.*.*.*.*.*[A-Z]', '(?:\\d+\\.)*[A-Z]',
+      '(\\d{1,3}){1,10}[A-Z]', '(\\d\\d?){1,29}[A-Z]', '(\\w+\\s?)*$', '[A-Z]{2}\\d{4}', '\\d+(\\.\\d+)*[A-Z]',
+      '(?:(?:\\d+)?\\.?)*[A-Z]', '(1|\\d|[0-9])+[A-Z]', '\\d+\\.\\d+\\.\\d+[A-Z]',
+    ];
+    let saved = 0;
+    for (const source of candidates) {
+      let rule: ReturnType<typeof accessionRule>;
+      try {
+        rule = accessionRule(`re:${source}`);
+      } catch (e) {
+        expect(e).toBeInstanceOf(UnsafeAccessionPatternError);
+        continue;
+      }
+      saved++;
+      expect(checkAccession(`re:${source}`, NUMBER_29).ok, source).toBe(false);
+      expect(rule.test(NUMBER_29), source).toBe(false);
+    }
+    expect(saved).toBeGreaterThanOrEqual(3);
+  });
+
+  it('a stored unsafe pattern is not applied: the value passes and the reason is given for the log', () => {
+    const r = checkAccession('re:(\\d+\\.?)+[A-Z]', ` ${NUMBER_29} `);
+    expect(r).toEqual({ ok: true, normalised: NUMBER_29, unchecked: expect.stringMatching(/^The accession-number pattern setting was not applied: .*template instead/) });
+    expect(checkAccession('re:(\\d+\\.?)+[A-Z]', '  ').ok).toBe(false);
   });
 });

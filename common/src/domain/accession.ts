@@ -12,7 +12,12 @@
  * width: write `##` for that). A lone `Y` (not part of `YYYY`) is refused for the same reason.
  *
  * Or a regular expression with a `re:` prefix, e.g. `re:[A-Z]{2}\d{4}`; it must match the whole
- * value (it is anchored here).
+ * value (it is anchored here). JavaScript's engine backtracks, so an expression like `(\d+\.?)+[A-Z]`
+ * can take seconds or hours on a value of thirty characters. Such an expression is refused
+ * (`UnsafeAccessionPatternError`): a repeated part inside another repeated part (safe-regex2's star
+ * height), alternatives inside a repeated part, or more than MAX_REPEATS repeated parts in all. A
+ * stored pattern that breaks this rule (saved before it existed) is not applied: `checkAccession`
+ * accepts any non-empty value and says why in `unchecked`, for the caller to log.
  *
  * Matching is case-sensitive. Checking trims surrounding white space; nothing else is changed.
  *
@@ -20,7 +25,47 @@
  * e.g. 1987.14.3 (common practice for museum accession numbers).
  */
 
+import safeRegex from 'safe-regex2';
+import parseRegExp, { types as reTypes } from 'ret';
+
 export const DEFAULT_ACCESSION_PATTERN = 'YYYY.N.N';
+
+/** The most repeated parts (`*`, `+`, `{n,m}`) a `re:` pattern may hold. */
+export const MAX_REPEATS = 6;
+
+/** A `re:` pattern that could take too long to check a value; the message says what to write instead. */
+export class UnsafeAccessionPatternError extends Error {}
+
+const UNSAFE_ADVICE =
+  'Write the pattern as a template instead (YYYY a year, N a number, # one digit, A one capital letter, e.g. YYYY.N.N), ' +
+  'or as a regular expression without a repeated part inside another repeated part, without alternatives (|) inside a repeated part, ' +
+  `and with at most ${MAX_REPEATS} repeated parts, e.g. re:[A-Z]{2}\\d+`;
+
+type ReToken = ReturnType<typeof parseRegExp> | { type: number; [k: string]: unknown };
+
+/** True when an alternation sits inside a part repeated more than once (`(a|a)*` backtracks exponentially). */
+function alternationInsideRepeat(node: ReToken, repeated: boolean): boolean {
+  const n = node as { type: number; options?: ReToken[][]; stack?: ReToken[]; value?: unknown; max?: number };
+  if (n.type === reTypes.REPETITION) return alternationInsideRepeat(n.value as ReToken, repeated || (n.max ?? 0) > 1);
+  if (n.options) {
+    if (repeated && n.options.length > 1) return true;
+    return n.options.some((branch) => branch.some((t) => alternationInsideRepeat(t, repeated)));
+  }
+  return (n.stack ?? []).some((t) => alternationInsideRepeat(t, repeated));
+}
+
+/** Why a regular expression source could backtrack catastrophically, or null when it cannot. */
+function unsafeReason(source: string): string | null {
+  if (!safeRegex(source, { limit: MAX_REPEATS })) return `it repeats a part inside another repeated part, or has more than ${MAX_REPEATS} repeated parts`;
+  let tree: ReToken;
+  try {
+    tree = parseRegExp(source);
+  } catch {
+    return 'it uses syntax this check cannot read';
+  }
+  if (alternationInsideRepeat(tree, false)) return 'it has alternatives (|) inside a repeated part';
+  return null;
+}
 
 export interface AccessionRule {
   test(value: string): boolean;
@@ -121,6 +166,12 @@ export function accessionRule(pattern: string): AccessionRule {
     } catch (e) {
       throw new Error(`accession pattern "${pattern}": not a valid regular expression (${(e as Error).message})`);
     }
+    const reason = unsafeReason(source);
+    if (reason) {
+      throw new UnsafeAccessionPatternError(
+        `accession pattern "${pattern}": this regular expression could take minutes to check some accession numbers (${reason}). ${UNSAFE_ADVICE}.`,
+      );
+    }
     return { test: (v) => re.test(v), example: '', describe: `text matching the regular expression ${source}` };
   }
   if (pattern.trim() === '') throw new Error('the accession-number pattern is empty');
@@ -153,12 +204,23 @@ export function accessionRule(pattern: string): AccessionRule {
   return { test: (v) => re.test(v), example, describe: describeTokens(tokens) };
 }
 
-/** Check an accession number as typed against the institution's pattern. */
-export function checkAccession(pattern: string, value: string): { ok: true; normalised: string } | { ok: false; message: string } {
+/**
+ * Check an accession number as typed against the institution's pattern. A stored `re:` pattern
+ * that is unsafe to run is not applied: any non-empty value passes, and `unchecked` says why.
+ */
+export function checkAccession(
+  pattern: string,
+  value: string,
+): { ok: true; normalised: string; unchecked?: string } | { ok: false; message: string } {
   let rule: AccessionRule;
   try {
     rule = accessionRule(pattern);
   } catch (e) {
+    if (e instanceof UnsafeAccessionPatternError) {
+      const v = (value ?? '').trim();
+      if (v === '') return { ok: false, message: 'An accession number is required.' };
+      return { ok: true, normalised: v, unchecked: `The accession-number pattern setting was not applied: ${e.message}` };
+    }
     return { ok: false, message: `The accession-number pattern setting is not valid: ${(e as Error).message}` };
   }
   const forExample = rule.example ? `, for example ${rule.example}` : '';

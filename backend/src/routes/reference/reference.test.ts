@@ -127,6 +127,14 @@ describe('catalogue settings', () => {
     expect(ok.status).toBe(200);
     expect((await get('/api/settings/catalogue', 'viewer')).body.data.institutionName).toBe('Calder Reach Photographic Trust');
   });
+
+  it('refuses a regular expression that could freeze the server, saying what to write instead', async () => {
+    const res = await send('put', '/api/settings/catalogue', 'admin', { accessionPattern: 're:(\\d+\\.?)+[A-Z]', institutionName: 'Calder Reach Photographic Trust' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.details[0].path).toBe('accessionPattern');
+    expect(res.body.error.details[0].message).toMatch(/template instead.*YYYY\.N\.N/);
+    expect((await get('/api/settings/catalogue', 'viewer')).body.data.accessionPattern).not.toBe('re:(\\d+\\.?)+[A-Z]');
+  });
 });
 
 describe('reference list reads', () => {
