@@ -21,8 +21,12 @@ export async function openBrowser(): Promise<{ context: BrowserContext; close():
   return {
     context,
     close: async () => {
-      await context.close();
-      rmSync(profile, { recursive: true, force: true });
+      try {
+        await context.close();
+      } finally {
+        // Chromium's helper processes may still write to the profile for a moment after close.
+        rmSync(profile, { recursive: true, force: true, maxRetries: 10, retryDelay: 200 });
+      }
     },
   };
 }

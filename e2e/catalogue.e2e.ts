@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
@@ -107,25 +107,29 @@ describe('a registrar catalogues a print', () => {
 
   it('imports a small CSV: checks it, then writes every row', async () => {
     const dir = mkdtempSync(path.join(os.tmpdir(), 'toneledger-e2e-'));
-    const file = path.join(dir, 'three-prints.csv');
-    writeFileSync(
-      file,
-      [
-        'accession_number,title,maker,date_made,process,toner_classes',
-        `2095.${stamp}.11,Net lofts,Imported Printer ${stamp},1957,gelatin_silver_developing_out,selenium`,
-        `2095.${stamp}.12,"Ropes, coiled",Imported Printer ${stamp},196X,gelatin_silver_developing_out,sulfide`,
-        `2095.${stamp}.13,Lantern,,1971?,cyanotype,`,
-      ].join('\n'),
-    );
-    await page.goto(`${BASE_URL}/catalogue/import`);
-    await page.getByLabel('Prints (CSV)').setInputFiles(file);
-    await page.getByRole('button', { name: 'Check the files' }).click();
-    await page.getByRole('region', { name: 'Ready to import' }).waitFor();
-    await screenshot(page, 'catalogue-import-ready');
-    await page.getByRole('button', { name: /Import 3 prints/ }).click();
-    await page.getByText(/3 prints were added to the catalogue/).first().waitFor({ timeout: 20_000 });
-    await page.goto(`${BASE_URL}/catalogue?q=${encodeURIComponent(`Imported Printer ${stamp}`)}`);
-    await page.getByText('Ropes, coiled').first().waitFor();
+    try {
+      const file = path.join(dir, 'three-prints.csv');
+      writeFileSync(
+        file,
+        [
+          'accession_number,title,maker,date_made,process,toner_classes',
+          `2095.${stamp}.11,Net lofts,Imported Printer ${stamp},1957,gelatin_silver_developing_out,selenium`,
+          `2095.${stamp}.12,"Ropes, coiled",Imported Printer ${stamp},196X,gelatin_silver_developing_out,sulfide`,
+          `2095.${stamp}.13,Lantern,,1971?,cyanotype,`,
+        ].join('\n'),
+      );
+      await page.goto(`${BASE_URL}/catalogue/import`);
+      await page.getByLabel('Prints (CSV)').setInputFiles(file);
+      await page.getByRole('button', { name: 'Check the files' }).click();
+      await page.getByRole('region', { name: 'Ready to import' }).waitFor();
+      await screenshot(page, 'catalogue-import-ready');
+      await page.getByRole('button', { name: /Import 3 prints/ }).click();
+      await page.getByText(/3 prints were added to the catalogue/).first().waitFor({ timeout: 20_000 });
+      await page.goto(`${BASE_URL}/catalogue?q=${encodeURIComponent(`Imported Printer ${stamp}`)}`);
+      await page.getByText('Ropes, coiled').first().waitFor();
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
   });
 });
 

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { mkdtempSync } from 'node:fs';
+import { mkdtempSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import sharp from 'sharp';
@@ -38,7 +38,13 @@ beforeAll(async () => {
   }, stamp);
   await signInAs(page, 'conservator');
 });
-afterAll(() => browser?.close());
+afterAll(async () => {
+  try {
+    await browser?.close();
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+});
 
 describe('a conservator documents a print', () => {
   it('uploads two images of the recto taken years apart', async () => {

@@ -1,5 +1,7 @@
 import { spawn, spawnSync, execFileSync } from 'node:child_process';
-import { existsSync } from 'node:fs';
+import { existsSync, readdirSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 import { startLocalServices, ROOT } from './services';
 import { buildFrontend } from './frontend-build';
 
@@ -13,6 +15,10 @@ function ensureChromium() {
   execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit' });
   execFileSync('apt-get', ['install', '-y', '-qq', 'chromium'], { stdio: 'inherit', env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
 }
+
+/** The run's own temporary folders are all named toneledger-*; those present before it are not its own. */
+const tempFolders = () => new Set(readdirSync(os.tmpdir()).filter((n) => n.startsWith('toneledger-')));
+const tempBefore = tempFolders();
 
 const extra = process.argv.slice(2);
 let code = 1;
@@ -59,4 +65,8 @@ try {
   await closeServer().catch(() => {});
   await services.stop();
 }
+// Another run on the same machine may make folders of the same names meanwhile: this lists, it does not fail.
+const left = [...tempFolders()].filter((n) => !tempBefore.has(n));
+if (left.length) console.error(`[test] Temporary folders made during this run and left behind (remove them, and fix whoever made them):\n${left.map((n) => `  ${path.join(os.tmpdir(), n)}`).join('\n')}`);
+else log('No temporary folders left behind.');
 process.exit(code);
