@@ -1,4 +1,4 @@
-import { execFileSync, spawnSync } from 'node:child_process';
+import { execFileSync, spawn, spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, mkdtempSync, readdirSync, chmodSync, writeFileSync, readFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -12,6 +12,12 @@ export interface LocalPostgres {
   url: string;
   dataDir: string;
   stop(): Promise<void>;
+  /** `pg_ctl -m fast restart`: every connection is cut and the server is back when this resolves. */
+  restart(): Promise<void>;
+  /** Stops the server (fast: connections are cut) and keeps the cluster for `resume`: a database outage. */
+  halt(): Promise<void>;
+  /** Starts the halted server again with the same settings; resolves once it accepts connections. */
+  resume(): Promise<void>;
 }
 
 type Log = (msg: string) => void;
@@ -48,6 +54,19 @@ function run(cmd: string, args: string[]) {
   const [c, a] = asPostgres(cmd, args);
   const r = spawnSync(c, a, { encoding: 'utf8', cwd: '/' });
   return { ok: r.status === 0, out: `${r.stdout ?? ''}${r.stderr ?? ''}` };
+}
+
+/** As `run`, without blocking the event loop (the caller's connections see the server go and come back). */
+function runAsync(cmd: string, args: string[]): Promise<{ ok: boolean; out: string }> {
+  const [c, a] = asPostgres(cmd, args);
+  return new Promise((resolve) => {
+    const child = spawn(c, a, { cwd: '/', stdio: ['ignore', 'pipe', 'pipe'] });
+    let out = '';
+    child.stdout.on('data', (d: Buffer) => (out += d));
+    child.stderr.on('data', (d: Buffer) => (out += d));
+    child.on('error', (err) => resolve({ ok: false, out: `${out}${err.message}` }));
+    child.on('close', (code) => resolve({ ok: code === 0, out }));
+  });
 }
 
 /** As root the postgres user must be able to enter every parent; otherwise use a folder it can. */
@@ -96,11 +115,13 @@ export async function startPostgres(options: { baseDir: string; port: number; da
   }
   // Memory settings for a collection-sized catalogue: the prints table and its indexes stay in shared buffers.
   const opts = `-c listen_addresses=127.0.0.1 -c port=${options.port} -c unix_socket_directories=${sockDir} -c shared_buffers=384MB -c work_mem=16MB -c effective_cache_size=2GB -c random_page_cost=1.1`;
-  const started = run(pgCtl, ['-D', dataDir, '-l', logFile, '-w', '-t', '30', '-o', opts, 'start']);
-  if (!started.ok) {
+  const startArgs = ['-D', dataDir, '-l', logFile, '-w', '-t', '30', '-o', opts, 'start'];
+  const failed = (what: string, out: string) => {
     const tail = existsSync(logFile) ? readFileSync(logFile, 'utf8').split('\n').slice(-15).join('\n') : '';
-    throw new Error(`PostgreSQL did not start on port ${options.port}:\n${started.out}\n${tail}`);
-  }
+    return new Error(`PostgreSQL did not ${what} on port ${options.port}:\n${out}\n${tail}`);
+  };
+  const started = run(pgCtl, startArgs);
+  if (!started.ok) throw failed('start', started.out);
   const admin = new pg.Client({ host: '127.0.0.1', port: options.port, user: 'app', database: 'postgres' });
   await admin.connect();
   const exists = await admin.query('SELECT 1 FROM pg_database WHERE datname = $1', [options.database]);
@@ -114,6 +135,18 @@ export async function startPostgres(options: { baseDir: string; port: number; da
       if (stopped) return;
       stopped = true;
       run(pgCtl, ['-D', dataDir, '-m', 'fast', '-w', 'stop']);
+    },
+    restart: async () => {
+      const r = await runAsync(pgCtl, ['-D', dataDir, '-l', logFile, '-m', 'fast', '-w', '-t', '30', '-o', opts, 'restart']);
+      if (!r.ok) throw failed('restart', r.out);
+    },
+    halt: async () => {
+      const r = await runAsync(pgCtl, ['-D', dataDir, '-m', 'fast', '-w', 'stop']);
+      if (!r.ok) throw failed('stop', r.out);
+    },
+    resume: async () => {
+      const r = await runAsync(pgCtl, startArgs);
+      if (!r.ok) throw failed('start', r.out);
     },
   };
 }

@@ -7,7 +7,7 @@ import type { Env } from './config/env';
 import type { AppDeps } from './deps';
 import { OidcClient } from './auth/oidc-client';
 import { Mailer } from './services/mail.service';
-import { closeDb, db } from './db';
+import { closeDb, db, logConnectionErrors, logSequelizeConnectionErrors } from './db';
 
 export function readVersion(): string {
   const pkg = JSON.parse(readFileSync(path.resolve(import.meta.dirname, '../../package.json'), 'utf8')) as { version: string };
@@ -18,10 +18,13 @@ export function createLogger(e: Env): Logger {
   return pino({ level: e.LOG_LEVEL, redact: ['req.headers.cookie', 'res.headers["set-cookie"]'] });
 }
 
-/** Assembles the app's collaborators from the environment. */
-export function composeDeps(e: Env, queue: AppDeps['queue'] = null): AppDeps {
-  db();
-  const pool = new pg.Pool({ connectionString: e.DATABASE_URL, max: 5 });
+/**
+ * Assembles the app's collaborators from the environment. Every database connection logs its
+ * errors (a restart of PostgreSQL cuts them) instead of ending the process.
+ */
+export function composeDeps(e: Env, queue: AppDeps['queue'] = null, logger: Logger = createLogger(e)): AppDeps {
+  logSequelizeConnectionErrors(db(), logger);
+  const pool = logConnectionErrors(new pg.Pool({ connectionString: e.DATABASE_URL, max: 5 }), logger, 'app');
   return {
     env: e,
     pool,

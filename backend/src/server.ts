@@ -28,7 +28,7 @@ export async function startServer(options: { migrate?: boolean } = {}): Promise<
   const interrupted = await failInterruptedImports();
   if (interrupted) logger.warn({ interrupted }, 'imports left unfinished by the last run were marked failed');
   const queue = await startQueue(e.DATABASE_URL, logger);
-  const deps = composeDeps(e, queue);
+  const deps = composeDeps(e, queue, logger);
   await startWorkers(queue, deps.store, logger, { fixityCron: e.TONELEDGER_FIXITY_CRON, retentionDays: e.IMAGE_RETENTION_DAYS });
   const app = buildApp(deps, logger);
   const server = await new Promise<Server>((resolve, reject) => {

@@ -19,8 +19,9 @@ let open = 0;
 
 /** The real app, on the test database and the local fakes, with logging silenced. */
 export function testApp(overrides: Partial<AppDeps> = {}): TestApp {
-  const deps = { ...composeDeps(env()), ...overrides };
-  const app = buildApp(deps, pino({ level: 'silent' }));
+  const logger = pino({ level: 'silent' });
+  const deps = { ...composeDeps(env(), null, logger), ...overrides };
+  const app = buildApp(deps, logger);
   open += 1;
   // Apps in one test file share the database connection; the last one closed closes it.
   const close = async () => {

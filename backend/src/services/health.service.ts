@@ -15,10 +15,18 @@ async function timed(check: () => Promise<unknown>) {
 export async function checkHealth(pool: pg.Pool, store: ObjectStore, version: string): Promise<Health> {
   const [database, storage] = await Promise.all([
     timed(async () => {
+      // A connection that arrives after the deadline goes back to the pool (it would otherwise be held for ever).
+      const connecting = pool.connect();
+      let timer: NodeJS.Timeout | undefined;
       const client = await Promise.race([
-        pool.connect(),
-        new Promise<never>((_, reject) => setTimeout(() => reject(new Error('timeout')), 2000)),
-      ]);
+        connecting,
+        new Promise<never>((_, reject) => {
+          timer = setTimeout(() => {
+            connecting.then((late) => late.release(), () => {});
+            reject(new Error('timeout'));
+          }, 2000);
+        }),
+      ]).finally(() => clearTimeout(timer));
       try {
         await client.query('SELECT 1');
       } finally {

@@ -1,0 +1,182 @@
+// A restart of PostgreSQL under light traffic: the process stays up, health says the database is
+// down while it is, and within 5 s of its return health, a signed-in list and a pg-boss job work
+// again without restarting the app. The cluster is one of this file's own (the shared test
+// database is never stopped), built by the same helper as every other local cluster.
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { chmodSync, mkdtempSync, rmSync } from 'node:fs';
+import type { Server } from 'node:http';
+import net from 'node:net';
+import os from 'node:os';
+import path from 'node:path';
+import { pino } from 'pino';
+import type { LocalPostgres } from '../../scripts/postgres';
+import type { JobQueue } from '../src/jobs/queue';
+import type { TestApp } from './app';
+
+const RECOVERY_MS = 5_000;
+const PROBE_QUEUE = 'restart-probe';
+
+let tmp: string | undefined;
+let cluster: LocalPostgres | undefined;
+let queue: JobQueue | undefined;
+let t: TestApp | undefined;
+let server: Server | undefined;
+let base = '';
+let cookie = '';
+const jobsDone = new Set<number>();
+let jobNo = 0;
+const uncaught: unknown[] = [];
+const recordUncaught = (err: unknown) => uncaught.push(err);
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const s = net.createServer();
+    s.once('error', reject);
+    s.listen(0, '127.0.0.1', () => {
+      const { port } = s.address() as net.AddressInfo;
+      s.close(() => resolve(port));
+    });
+  });
+}
+
+async function get(url: string, withSession: boolean): Promise<{ status: number; body: { error?: { message?: string } } | null }> {
+  try {
+    const res = await fetch(base + url, { headers: withSession ? { cookie } : {}, signal: AbortSignal.timeout(3_000) });
+    const body = (await res.json().catch(() => null)) as { error?: { message?: string } } | null;
+    return { status: res.status, body };
+  } catch {
+    return { status: 0, body: null }; // no answer at all
+  }
+}
+
+/** Sends a probe job and waits (at most `ms`) for the app's worker to run it. */
+async function jobRuns(ms: number): Promise<boolean> {
+  const n = ++jobNo;
+  try {
+    await queue!.boss.send(PROBE_QUEUE, { n });
+  } catch {
+    return false;
+  }
+  const until = Date.now() + ms;
+  while (Date.now() < until) {
+    if (jobsDone.has(n)) return true;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  return false;
+}
+
+/** Polls until health, the signed-in list and a job all work; returns the milliseconds it took. */
+async function recovered(deadlineMs: number): Promise<number> {
+  const start = Date.now();
+  const state = { health: false, list: false, job: false };
+  while (Date.now() - start < deadlineMs) {
+    if (!state.health) state.health = (await get('/api/health', false)).status === 200;
+    if (!state.list) state.list = (await get('/api/prints?pageSize=5', true)).status === 200;
+    if (!state.job) state.job = await jobRuns(Math.min(1_500, Math.max(100, deadlineMs - (Date.now() - start))));
+    if (state.health && state.list && state.job) return Date.now() - start;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  throw new Error(`not recovered within ${deadlineMs} ms: ${JSON.stringify(state)}`);
+}
+
+/** Light traffic until stopped: a health check and a signed-in list every 50 ms. */
+function traffic() {
+  let running = true;
+  let requests = 0;
+  const loop = (async () => {
+    while (running) {
+      await Promise.all([get('/api/health', false), get('/api/prints?pageSize=5', true)]);
+      requests += 2;
+      await new Promise((r) => setTimeout(r, 50));
+    }
+  })();
+  return async () => {
+    running = false;
+    await loop;
+    return requests;
+  };
+}
+
+beforeAll(async () => {
+  process.on('uncaughtException', recordUncaught);
+  process.on('unhandledRejection', recordUncaught);
+  tmp = mkdtempSync(path.join(os.tmpdir(), 'toneledger-restart-'));
+  chmodSync(tmp, 0o755); // the postgres user must be able to enter it when running as root
+  const { startPostgres } = await import('../../scripts/postgres');
+  cluster = await startPostgres({ baseDir: path.join(tmp, 'pg'), port: await freePort(), database: 'toneledger_restart', log: () => {}, fallbackKey: 'restart' });
+  // Nothing in this file has read the environment yet: the app, Sequelize and pg-boss all use this cluster.
+  vi.stubEnv('DATABASE_URL', cluster.url);
+  const { env } = await import('../src/config/env');
+  expect(env().DATABASE_URL).toBe(cluster.url);
+  const { migrateUp } = await import('../src/migrate');
+  const { db } = await import('../src/db');
+  await migrateUp(db());
+  const { startQueue } = await import('../src/jobs/queue');
+  queue = await startQueue(cluster.url, pino({ level: 'silent' }));
+  await queue.boss.createQueue(PROBE_QUEUE);
+  await queue.boss.work<{ n: number }>(PROBE_QUEUE, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {
+    jobsDone.add(job.data.n);
+  });
+  const { testApp, signIn } = await import('./app');
+  t = testApp({ queue });
+  const { DEMO_ACCOUNTS } = await import('../src/seed/demo-accounts');
+  const viewer = DEMO_ACCOUNTS.find((a) => a.role === 'viewer')!;
+  cookie = await signIn(t.app, viewer.email, viewer.password);
+  server = await new Promise<Server>((resolve) => {
+    const s = t!.app.listen(0, '127.0.0.1', () => resolve(s));
+  });
+  base = `http://127.0.0.1:${(server.address() as net.AddressInfo).port}`;
+}, 90_000);
+
+afterAll(async () => {
+  if (server) await new Promise<void>((resolve) => { server!.close(() => resolve()); server!.closeAllConnections(); });
+  await cluster?.resume().catch(() => {}); // started again if a failed test left it halted
+  await queue?.stop().catch(() => {});
+  await t?.close().catch(() => {});
+  await cluster?.stop();
+  if (tmp) rmSync(tmp, { recursive: true, force: true });
+  vi.unstubAllEnvs();
+  process.off('uncaughtException', recordUncaught);
+  process.off('unhandledRejection', recordUncaught);
+}, 60_000);
+
+describe('a PostgreSQL restart', () => {
+  it('pg_ctl -m fast restart under light traffic: the app stays up and works again within 5 s', async () => {
+    // Every pool holds idle connections when the server goes: a signed-in request just before.
+    expect((await get('/api/prints?pageSize=5', true)).status).toBe(200);
+    expect((await get('/api/health', false)).status).toBe(200);
+    expect(await jobRuns(5_000)).toBe(true);
+
+    const stopTraffic = traffic();
+    const restartStarted = Date.now();
+    await cluster!.restart();
+    const restartMs = Date.now() - restartStarted;
+    const recoveryMs = await recovered(RECOVERY_MS);
+    const requests = await stopTraffic();
+    console.info(`[restart] pg_ctl restart ${restartMs} ms; health, list and job working again after ${recoveryMs} ms; ${requests} requests meanwhile`);
+
+    expect(uncaught).toEqual([]);
+    expect(server!.listening).toBe(true);
+  }, 60_000);
+
+  it('while PostgreSQL is down health answers 503 naming it; after it starts again everything works within 5 s', async () => {
+    expect((await get('/api/prints?pageSize=5', true)).status).toBe(200);
+    const stopTraffic = traffic();
+    await cluster!.halt();
+
+    const health = await get('/api/health', false);
+    expect(health.status).toBe(503);
+    expect(health.body?.error?.message).toMatch(/PostgreSQL/);
+    // The signed-in list cannot be answered, but it is answered (with an error), not dropped.
+    const list = await get('/api/prints?pageSize=5', true);
+    expect(list.status).toBeGreaterThanOrEqual(500);
+
+    await cluster!.resume();
+    const recoveryMs = await recovered(RECOVERY_MS);
+    const requests = await stopTraffic();
+    console.info(`[restart] after a stop and start: working again after ${recoveryMs} ms; ${requests} requests meanwhile`);
+
+    expect(uncaught).toEqual([]);
+    expect(server!.listening).toBe(true);
+  }, 60_000);
+});
