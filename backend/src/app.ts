@@ -11,6 +11,7 @@ import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { loadUser, sessionMiddleware } from './auth/session';
 import { mount, type RouteDef } from './http/route';
 import { openApiDocument } from './http/openapi';
+import { pgIdempotencyStore } from './http/idempotency';
 import { authRoutes } from './routes/auth/auth.routes';
 import { meRoutes } from './routes/me/me.routes';
 import { usersRoutes } from './routes/users/users.routes';
@@ -124,7 +125,7 @@ export function buildApp(deps: AppDeps, logger: Logger): Express {
   app.use(loadUser(env, deps.pool));
 
   const router = express.Router();
-  mount(router, allRoutes(deps), { checkResponses: env.NODE_ENV !== 'production' });
+  mount(router, allRoutes(deps), { checkResponses: env.NODE_ENV !== 'production', idempotency: pgIdempotencyStore(deps.pool) });
   app.use(router);
   app.use('/api', apiNotFound);
   app.use('/auth', apiNotFound);

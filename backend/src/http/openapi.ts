@@ -19,6 +19,15 @@ function parametersOf(def: Endpoint): Json[] {
     const key = name.slice(1);
     params.push({ name: key, in: 'path', required: true, schema: pathProps[key] ?? { type: 'string' } });
   }
+  if (def.idempotent) {
+    params.push({
+      name: 'Idempotency-Key', in: 'header', required: false, schema: { type: 'string', minLength: 1, maxLength: 200 },
+      description:
+        'Makes the create safe to retry: the same key (per user) with the same request within 24 hours returns the first answer '
+        + '(status and body, with the header Idempotent-Replayed: true) and creates nothing more; the same key with a different '
+        + 'request is 422 unprocessable; while the first request is still running, 409 conflict. A refused request keeps nothing.',
+    });
+  }
   if (def.query) {
     const json = schemaOf(def.query, 'input');
     const props = (json.properties ?? {}) as Record<string, Json>;
@@ -51,6 +60,10 @@ export function openApiDocument(defs: RouteDef[], version: string): Json {
     if (def.access !== 'public' && def.access !== 'signed_in') responses['403'] = { description: `forbidden (needs ${def.access})`, ...error };
     if (def.method !== 'get') responses['403'] ??= { description: 'forbidden (cross-site request)', ...error };
     if (def.params) responses['404'] = { description: 'not_found', ...error };
+    if (def.idempotent) {
+      responses['409'] ??= { description: 'conflict (also: a request with the same Idempotency-Key is still running)', ...error };
+      responses['422'] = { description: 'unprocessable (the Idempotency-Key was used for a different request)', ...error };
+    }
     responses['500'] = { description: 'internal_error', ...error };
     paths[path] ??= {};
     paths[path][def.method] = {

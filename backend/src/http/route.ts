@@ -9,6 +9,7 @@ import { forbidden, unauthenticated, validationFailed, AppError } from '../error
 import type { CurrentUser } from '../auth/current-user';
 import { idOf } from '../middleware/request-id';
 import { textProblems } from './input-text';
+import { bodyHash, idempotencyKeyOf, IDEMPOTENCY_HEADER, type IdempotencyStore } from './idempotency';
 
 export type { Access };
 
@@ -72,6 +73,11 @@ export function checkAccess(access: Access, user: CurrentUser | null): void {
 export interface MountOptions {
   /** In development and test, responses are checked against their declared schema. */
   checkResponses: boolean;
+  /**
+   * Where `Idempotency-Key`s of endpoints marked `idempotent` are kept. Without a store the header
+   * is ignored (unit tests of mount() alone).
+   */
+  idempotency?: IdempotencyStore;
 }
 
 export function mount(router: Router, defs: RouteDef[], options: MountOptions): void {
@@ -81,6 +87,8 @@ export function mount(router: Router, defs: RouteDef[], options: MountOptions): 
       next();
     };
     router[def.method](def.path, access, ...before, async (req: Request, res: Response) => {
+      const key = def.idempotent && options.idempotency && req.user ? idempotencyKeyOf(req.headers[IDEMPOTENCY_HEADER]) : null;
+      const rawBody: unknown = req.body;
       const parts = [
         ['params', def.params],
         ['query', def.query],
@@ -100,24 +108,55 @@ export function mount(router: Router, defs: RouteDef[], options: MountOptions): 
         const nf = found.find((i) => i.path.startsWith('params'));
         throw validationFailed(found, nf ? nf.message : 'The request has invalid fields.');
       }
-      const result = await handler({
-        params: req.params as never,
-        query: req.query as never,
-        body: req.body as never,
-        actor: (req.user ?? null) as never,
-        requestId: idOf(req),
-        req,
-        res,
-      });
-      if (res.headersSent || result === undefined) return;
-      if (options.checkResponses && def.response.schema) {
-        const check = def.response.schema.safeParse(result);
-        if (!check.success) {
-          req.log?.error({ endpoint: `${def.method.toUpperCase()} ${def.path}`, issues: check.error.issues }, 'response did not match its contract');
-          throw new AppError('internal_error', 500, 'Response did not match its contract.', undefined);
+      const run = async () => {
+        const result = await handler({
+          params: req.params as never,
+          query: req.query as never,
+          body: req.body as never,
+          actor: (req.user ?? null) as never,
+          requestId: idOf(req),
+          req,
+          res,
+        });
+        if (res.headersSent || result === undefined) return undefined;
+        if (options.checkResponses && def.response.schema) {
+          const check = def.response.schema.safeParse(result);
+          if (!check.success) {
+            req.log?.error({ endpoint: `${def.method.toUpperCase()} ${def.path}`, issues: check.error.issues }, 'response did not match its contract');
+            throw new AppError('internal_error', 500, 'Response did not match its contract.', undefined);
+          }
         }
+        return result;
+      };
+      const status = def.status ?? 200;
+      if (!key || !options.idempotency || !req.user) {
+        const result = await run();
+        if (result !== undefined) res.status(status).json(result);
+        return;
       }
-      res.status(def.status ?? 200).json(result);
+      // A create sent with an Idempotency-Key: the first answer is kept and a retry gets it again.
+      const store = options.idempotency;
+      const userId = req.user.id;
+      const claim = await store.claim(userId, key, `${def.method.toUpperCase()} ${req.baseUrl}${req.path}`, bodyHash(rawBody));
+      if (claim.kind === 'replay') {
+        res.setHeader('Idempotent-Replayed', 'true');
+        res.status(claim.status).json(claim.response);
+        return;
+      }
+      let result: unknown;
+      try {
+        result = await run();
+      } catch (err) {
+        // A refusal or failure wrote nothing (services work in one transaction): the key is free again.
+        await store.release(userId, key);
+        throw err;
+      }
+      if (result === undefined) {
+        await store.release(userId, key);
+        return;
+      }
+      await store.settle(userId, key, status, result);
+      res.status(status).json(result);
     });
   }
 }

@@ -24,7 +24,7 @@ export const conditionTermsApi = {
   }),
   create: endpoint({
     method: 'post', path: '/api/condition-terms', summary: 'Adds a term to the vocabulary (409 if the code is taken)', tags: ['condition'],
-    access: 'settings.manage', body: conditionTermInputSchema, status: 201, response: { description: 'The new term', schema: termEnvelope },
+    access: 'settings.manage', body: conditionTermInputSchema, status: 201, idempotent: true, response: { description: 'The new term', schema: termEnvelope },
   }),
   update: endpoint({
     method: 'patch', path: '/api/condition-terms/:code', summary: 'Renames, describes or (de)activates a term; terms are never deleted', tags: ['condition'],
@@ -40,7 +40,7 @@ export const reportsApi = {
   }),
   create: endpoint({
     method: 'post', path: '/api/prints/:id/condition-reports', summary: 'Starts a draft report by the signed-in examiner', tags: ['condition'],
-    access: 'condition.write', params: idParamsSchema, body: reportInputSchema, status: 201, response: { description: 'The draft', schema: reportEnvelope },
+    access: 'condition.write', params: idParamsSchema, body: reportInputSchema, status: 201, idempotent: true, response: { description: 'The draft', schema: reportEnvelope },
   }),
   get: endpoint({
     method: 'get', path: '/api/condition-reports/:id', summary: 'One condition report with its observations and addenda', tags: ['condition'],
@@ -61,7 +61,7 @@ export const reportsApi = {
   }),
   addAddendum: endpoint({
     method: 'post', path: '/api/condition-reports/:id/addenda', summary: 'Adds a dated, attributed addendum to a signed report', tags: ['condition'],
-    access: 'condition.write', params: idParamsSchema, body: addendumInputSchema, status: 201,
+    access: 'condition.write', params: idParamsSchema, body: addendumInputSchema, status: 201, idempotent: true,
     response: { description: 'The report with its addenda', schema: reportEnvelope },
   }),
 };

@@ -25,6 +25,12 @@ export interface Endpoint {
   response: { description: string; schema?: z.ZodType; contentType?: string };
   /** A request body other than JSON (file uploads), for the OpenAPI document and the client. */
   requestContentType?: 'multipart/form-data';
+  /**
+   * A POST that creates a record: it honours an `Idempotency-Key` header, so a retry after a lost
+   * answer returns the first answer instead of creating a second record (`backend/src/http/idempotency.ts`).
+   * JSON bodies only: a multipart upload is not marked (its file is not part of the fingerprint).
+   */
+  idempotent?: true;
 }
 
 /** Declares an endpoint, keeping every literal (access, method, schemas) for the types below. */

@@ -28,7 +28,7 @@ export const importsApi = {
   commit: endpoint({
     method: 'post', path: '/api/imports/:id/commit',
     summary: 'Writes every row of a checked file in one transaction (all or nothing); `mode` create_only refuses rows that match prints already in the catalogue, create_or_update updates them',
-    tags: ['imports'], access: 'catalogue.write', params: idParamsSchema, body: importCommitSchema, status: 202,
+    tags: ['imports'], access: 'catalogue.write', params: idParamsSchema, body: importCommitSchema, status: 202, idempotent: true,
     response: { description: 'The import job, committing', schema: dataEnvelope(importSchema) },
   }),
 };

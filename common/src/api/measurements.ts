@@ -22,7 +22,7 @@ export const measurementsApi = {
   }),
   createSpot: endpoint({
     method: 'post', path: '/api/prints/:id/measurement-spots', summary: 'Registers a spot to measure (409 if the print has one of that name)', tags: ['measurements'],
-    access: 'measurements.write', params: idParamsSchema, body: spotInputSchema, status: 201, response: { description: 'The new spot', schema: spotEnvelope },
+    access: 'measurements.write', params: idParamsSchema, body: spotInputSchema, status: 201, idempotent: true, response: { description: 'The new spot', schema: spotEnvelope },
   }),
   updateSpot: endpoint({
     method: 'patch', path: '/api/measurement-spots/:id', summary: 'Renames, moves or describes a spot; a stale version gets 409', tags: ['measurements'],
@@ -38,7 +38,7 @@ export const measurementsApi = {
   recordSession: endpoint({
     method: 'post', path: '/api/prints/:id/measurement-sessions',
     summary: 'Records a measurement session with its readings, all or nothing; readings are averaged per spot', tags: ['measurements'],
-    access: 'measurements.write', params: idParamsSchema, body: sessionInputSchema, status: 201,
+    access: 'measurements.write', params: idParamsSchema, body: sessionInputSchema, status: 201, idempotent: true,
     response: { description: 'The session as stored', schema: dataEnvelope(sessionSchema) },
   }),
   previewCsv: endpoint({

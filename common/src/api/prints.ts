@@ -26,7 +26,7 @@ export const printsApi = {
   }),
   create: endpoint({
     method: 'post', path: '/api/prints', summary: 'Catalogues a print (409 if the accession number is taken)', tags: ['prints'],
-    access: 'catalogue.write', body: printInputSchema, status: 201, response: { description: 'The new print', schema: printEnvelope },
+    access: 'catalogue.write', body: printInputSchema, status: 201, idempotent: true, response: { description: 'The new print', schema: printEnvelope },
   }),
   get: endpoint({
     method: 'get', path: '/api/prints/:id', summary: 'One print with its process history and warnings', tags: ['prints'],
@@ -50,7 +50,7 @@ export const printsApi = {
   }),
   move: endpoint({
     method: 'post', path: '/api/prints/:id/movements', summary: 'Moves a print and records from, to, when, who and why', tags: ['prints'],
-    access: 'catalogue.write', params: idParamsSchema, body: movementInputSchema, status: 201, response: { description: 'The print', schema: printEnvelope },
+    access: 'catalogue.write', params: idParamsSchema, body: movementInputSchema, status: 201, idempotent: true, response: { description: 'The print', schema: printEnvelope },
   }),
   history: endpoint({
     method: 'get', path: '/api/prints/:id/history', summary: 'Every change to the print: who, when, before and after', tags: ['prints'],

@@ -22,7 +22,7 @@ function referenceRecord<
     }),
     create: endpoint({
       method: 'post', path: `/api/${s.path}`, summary: `Creates a ${s.noun}`, tags, access: 'catalogue.write',
-      body: s.input, status: 201, response: { description: `The new ${s.noun}`, schema: dataEnvelope(s.item) },
+      body: s.input, status: 201, idempotent: true, response: { description: `The new ${s.noun}`, schema: dataEnvelope(s.item) },
     }),
     get: endpoint({
       method: 'get', path: `/api/${s.path}/:id`, summary: `One ${s.noun}`, tags, access: s.read,

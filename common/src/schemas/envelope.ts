@@ -4,6 +4,8 @@ import './messages';
 
 export const ERROR_CODES = [
   'validation_failed', 'unauthenticated', 'forbidden', 'not_found', 'conflict',
+  // 422: the request cannot be applied as sent (an Idempotency-Key reused for a different request).
+  'unprocessable',
   'payload_too_large', 'unsupported_media_type', 'service_unavailable', 'internal_error',
 ] as const;
 export type ErrorCode = (typeof ERROR_CODES)[number];

@@ -5,6 +5,8 @@ import { devMailApi } from '@toneledger/common/api/dev-mail';
 import { imagesApi } from '@toneledger/common/api/images';
 import { importsApi } from '@toneledger/common/api/imports';
 import { printsApi } from '@toneledger/common/api/prints';
+import { makersApi } from '@toneledger/common/api/reference';
+import { fixityApi } from '@toneledger/common/api/images';
 import { systemApi } from '@toneledger/common/api/system';
 import { auditApi, meApi, usersApi } from '@toneledger/common/api/users';
 import { dataEnvelope } from '@toneledger/common/schemas/envelope';
@@ -126,6 +128,55 @@ describe('call / callData', () => {
   it('returns an answer as it is when the endpoint has no envelope (the OpenAPI document)', async () => {
     mockFetch({ 'GET /api/openapi.json': () => json({ openapi: '3.1.0' }) });
     expect(await call(systemApi.openapi)).toEqual({ openapi: '3.1.0' });
+  });
+});
+
+describe('Idempotency-Key', () => {
+  const maker = { id: PRINT_ID, name: 'A. Maker', lifeDates: null, notes: null, printCount: 0, version: 1 };
+  const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-4[0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-f]{12}$/;
+
+  it('is sent on creates marked idempotent in the contract, a fresh one per request, and on nothing else', async () => {
+    const { requests } = mockFetch({
+      'POST /api/makers': () => json({ data: maker }, 201),
+      [`POST /api/images/${PRINT_ID}/fixity`]: () => new Response('{}', { status: 500 }),
+      [`PATCH /api/users/${USER_ID}/role`]: () => json({ data: makeUser({ id: USER_ID }) }),
+    });
+    await call(makersApi.create, { body: { name: 'A. Maker' } }).catch(() => undefined);
+    await call(makersApi.create, { body: { name: 'A. Maker' } }).catch(() => undefined);
+    await call(fixityApi.check, { params: { id: PRINT_ID }, body: {} }).catch(() => undefined);
+    await call(usersApi.changeRole, { params: { id: USER_ID }, body: { role: 'viewer' } }).catch(() => undefined);
+    expect(requests[0]?.headers['idempotency-key']).toMatch(UUID);
+    // Both creates were answered: the second is a new request with a new key.
+    expect(requests[1]?.headers['idempotency-key']).toMatch(UUID);
+    expect(requests[1]?.headers['idempotency-key']).not.toBe(requests[0]?.headers['idempotency-key']);
+    expect(requests[2]?.headers['idempotency-key']).toBeUndefined();
+    expect(requests[3]?.headers['idempotency-key']).toBeUndefined();
+  });
+
+  it('keeps the key when a create got no answer, so sending it again unchanged is a retry; a changed body gets a new key', async () => {
+    let drop = true;
+    const { requests } = mockFetch({
+      'POST /api/makers': () => {
+        if (drop) throw new TypeError('Failed to fetch');
+        return json({ data: maker }, 201);
+      },
+    });
+    await expect(call(makersApi.create, { body: { name: 'A. Maker', notes: 'x' } })).rejects.toMatchObject({ status: 0 });
+    await expect(call(makersApi.create, { body: { name: 'Another maker' } })).rejects.toMatchObject({ status: 0 });
+    drop = false;
+    // The same submission, keys in another order: the same request.
+    await call(makersApi.create, { body: { notes: 'x', name: 'A. Maker' } });
+    const keys = requests.map((r) => r.headers['idempotency-key']);
+    expect(keys[2]).toBe(keys[0]);
+    expect(keys[1]).not.toBe(keys[0]);
+    // Answered now: the next create of the same body is a new request.
+    await call(makersApi.create, { body: { name: 'A. Maker', notes: 'x' } });
+    expect(requests[3]?.headers['idempotency-key']).not.toBe(keys[0]);
+  });
+
+  it('maps a 422 without an envelope to unprocessable', async () => {
+    mockFetch({ 'POST /api/makers': () => new Response('', { status: 422 }) });
+    await expect(call(makersApi.create, { body: { name: 'A. Maker' } })).rejects.toMatchObject({ code: 'unprocessable', status: 422 });
   });
 });
 

@@ -59,6 +59,8 @@ interface RequestOptions {
   /** Sent as JSON, or as multipart/form-data when it is a FormData (file uploads). */
   body?: unknown;
   signal?: AbortSignal;
+  /** Sent as the `Idempotency-Key` header (creates marked `idempotent` in the contract). */
+  idempotencyKey?: string;
 }
 
 const STATUS_CODES: Record<number, ErrorCode> = {
@@ -67,6 +69,7 @@ const STATUS_CODES: Record<number, ErrorCode> = {
   403: 'forbidden',
   404: 'not_found',
   409: 'conflict',
+  422: 'unprocessable',
   413: 'payload_too_large',
   415: 'unsupported_media_type',
   503: 'service_unavailable',
@@ -107,8 +110,9 @@ const unreadable = (status: number, requestId: string | null) =>
  * its status and request id. Any non-2xx answer becomes an ApiError; so does a failure to reach the server.
  */
 async function send(path: string, options: RequestOptions): Promise<{ json: unknown; status: number; requestId: string | null }> {
-  const { method, query, body, signal } = options;
+  const { method, query, body, signal, idempotencyKey } = options;
   const headers: Record<string, string> = { accept: 'application/json' };
+  if (idempotencyKey) headers['idempotency-key'] = idempotencyKey;
   const isForm = typeof FormData !== 'undefined' && body instanceof FormData;
   // The browser sets a multipart content type, with its boundary, for a FormData body.
   if (body !== undefined && !isForm) headers['content-type'] = 'application/json';
@@ -160,13 +164,48 @@ function parseAnswer<E extends Endpoint>(e: E, json: unknown, status: number, re
 }
 
 /**
+ * Idempotency keys of creates whose outcome is unknown, by request (method, path, canonical body).
+ * A create marked `idempotent` gets a fresh key (crypto.randomUUID); when it gets no answer (the
+ * connection dropped, a gateway timed out) or the server is still handling it, the key is kept, so
+ * sending the same request again (the person presses Save again on the unchanged form) carries the
+ * same key and the server answers with the first result instead of a second record. Any answer
+ * ends the key; a changed form is a different request and gets a new one.
+ */
+const pendingKeys = new Map<string, string>();
+
+function canonical(value: unknown): string {
+  if (value === null || typeof value !== 'object') return JSON.stringify(value) ?? 'null';
+  if (Array.isArray(value)) return `[${value.map(canonical).join(',')}]`;
+  const entries = Object.entries(value as Record<string, unknown>).filter(([, v]) => v !== undefined).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
+  return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonical(v)}`).join(',')}}`;
+}
+
+/** The outcome of a create is still unknown after this error: keep its key for a retry. */
+function outcomeUnknown(error: unknown): boolean {
+  if (!isApiError(error)) return false;
+  if (error.status === 0 || error.status >= 502) return true;
+  return error.status === 409 && (error.details as { idempotency?: string } | undefined)?.idempotency === 'in_progress';
+}
+
+/**
  * Calls an endpoint of the contract by name: builds the URL from its path and params, sends the
  * query and body, and returns the envelope parsed with its response schema. Errors are ApiErrors.
+ * A create marked `idempotent` carries an `Idempotency-Key` (see `pendingKeys`).
  */
 export async function call<E extends Endpoint>(e: E, ...[input]: OptionalIfEmpty<E>): Promise<ResponseOf<E>> {
   const { params, query, body, signal } = (input ?? {}) as { params?: Record<string, unknown>; query?: Record<string, QueryValue>; body?: unknown; signal?: AbortSignal };
-  const { json, status, requestId } = await send(pathOf(e, params), { method: METHODS[e.method], query, body, signal });
-  return parseAnswer(e, json, status, requestId);
+  const path = pathOf(e, params);
+  const request = e.idempotent ? `${e.method} ${path} ${canonical(body ?? {})}` : null;
+  const idempotencyKey = request ? (pendingKeys.get(request) ?? crypto.randomUUID()) : undefined;
+  if (request && idempotencyKey) pendingKeys.set(request, idempotencyKey);
+  try {
+    const { json, status, requestId } = await send(path, { method: METHODS[e.method], query, body, signal, idempotencyKey });
+    if (request) pendingKeys.delete(request);
+    return parseAnswer(e, json, status, requestId);
+  } catch (error) {
+    if (request && !outcomeUnknown(error)) pendingKeys.delete(request);
+    throw error;
+  }
 }
 
 /** `call`, returning the `data` of the envelope. */
