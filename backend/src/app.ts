@@ -38,7 +38,7 @@ export function allRoutes(deps: AppDeps): RouteDef[] {
     ...printsRoutes(),
     ...referenceRoutes(),
     ...settingsRoutes(),
-    ...importsRoutes(),
+    ...importsRoutes(deps),
     ...imagesRoutes(deps),
     ...conditionRoutes(),
     ...measurementsRoutes(),

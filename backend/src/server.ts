@@ -24,9 +24,6 @@ export async function startServer(options: { migrate?: boolean } = {}): Promise<
     const done = await migrateUp(db(), (m) => logger.debug(m));
     if (done.length) logger.info({ migrations: done }, 'migrations applied');
   }
-  const { failInterruptedImports } = await import('./services/import.service');
-  const interrupted = await failInterruptedImports();
-  if (interrupted) logger.warn({ interrupted }, 'imports left unfinished by the last run were marked failed');
   const queue = await startQueue(e.DATABASE_URL, logger);
   const deps = composeDeps(e, queue, logger);
   await startWorkers(queue, deps.store, logger, { fixityCron: e.TONELEDGER_FIXITY_CRON, retentionDays: e.IMAGE_RETENTION_DAYS });

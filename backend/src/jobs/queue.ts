@@ -6,6 +6,8 @@ export const QUEUES = {
   derivatives: 'image-derivatives',
   fixity: 'fixity-sweep',
   purge: 'image-purge',
+  importCheck: 'import-check',
+  importCommit: 'import-commit',
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 

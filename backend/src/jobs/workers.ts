@@ -2,6 +2,7 @@ import type { Logger } from 'pino';
 import type { ObjectStore } from '@toneledger/storage/object-store';
 import { QUEUES, type JobQueue } from './queue';
 import { fixitySweep, makeDerivatives, purgeWithdrawn } from '../services/image.service';
+import { resumeImports, runImportJob } from '../services/import.service';
 
 export interface WorkerSettings {
   /** When the fixity sweep runs (cron, UTC): env TONELEDGER_FIXITY_CRON. */
@@ -10,7 +11,11 @@ export interface WorkerSettings {
   retentionDays: number;
 }
 
-/** The server's workers: derivatives on upload, a nightly fixity sweep, and the purge of withdrawn images past retention. */
+/**
+ * The server's workers: derivatives on upload, a nightly fixity sweep, the purge of withdrawn images
+ * past retention, and the check and commit of CSV imports (queued again here when a stopped server
+ * left them unfinished).
+ */
 export async function startWorkers(queue: JobQueue, store: ObjectStore, logger: Logger, settings: WorkerSettings): Promise<void> {
   const { boss } = queue;
   await boss.work<{ imageId: string }>(QUEUES.derivatives, { batchSize: 1, pollingIntervalSeconds: 1 }, async ([job]) => {
@@ -24,6 +29,13 @@ export async function startWorkers(queue: JobQueue, store: ObjectStore, logger: 
     const purged = await purgeWithdrawn(store, settings.retentionDays);
     if (purged) logger.info({ purged }, 'withdrawn images purged after retention');
   });
+  for (const [queueName, kind] of [[QUEUES.importCheck, 'check'], [QUEUES.importCommit, 'commit']] as const) {
+    await boss.work<{ importId: string }>(queueName, { batchSize: 1, pollingIntervalSeconds: 1 }, async ([job]) => {
+      await runImportJob(kind, job.data.importId, logger);
+    });
+  }
+  const resumed = await resumeImports(queue);
+  if (resumed.checks + resumed.commits) logger.warn(resumed, 'imports left unfinished by a stopped server were queued again');
   await boss.schedule(QUEUES.fixity, settings.fixityCron, {}, { tz: 'UTC' });
   await boss.schedule(QUEUES.purge, '15 3 * * *', {}, { tz: 'UTC' });
 }

@@ -176,6 +176,9 @@ export class ImportJobModel extends Model<Attrs<ImportJobModel>, Create<ImportJo
   declare updatedPrints: CreationOptional<number>;
   declare message: string | null;
   declare createdBy: string | null;
+  /** Who asked for the commit, and that request's id: a commit resumed after a restart writes for them. */
+  declare committedBy: CreationOptional<string | null>;
+  declare commitRequestId: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare finishedAt: Date | null;
 }
@@ -344,6 +347,8 @@ export function initCatalogueModels(sequelize: Sequelize): void {
       updatedPrints: { type: DataTypes.INTEGER, defaultValue: 0 },
       message: DataTypes.TEXT,
       createdBy: DataTypes.UUID,
+      committedBy: DataTypes.UUID,
+      commitRequestId: DataTypes.TEXT,
       createdAt: DataTypes.DATE,
       finishedAt: DataTypes.DATE,
     },

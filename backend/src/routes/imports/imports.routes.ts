@@ -1,4 +1,5 @@
 import { importsApi } from '@toneledger/common/api/imports';
+import type { AppDeps } from '../../deps';
 import { implement, type RouteDef } from '../../http/route';
 import { fileUploads, uploadedText, uploadedTextOf } from '../../middleware/single-upload';
 import { templateCsv } from '../../services/import-csv';
@@ -6,7 +7,7 @@ import { MAX_IMPORT_BYTES, commitImport, getImport, listImportRows, startImport 
 
 const SAVE_AS = 'Save the spreadsheet as "CSV UTF-8".';
 
-export function importsRoutes(): RouteDef[] {
+export function importsRoutes(deps: Pick<AppDeps, 'queue'>): RouteDef[] {
   return implement(importsApi, {
     template: ({ query, res }) => {
       res.setHeader('Content-Type', 'text/csv; charset=utf-8');
@@ -22,6 +23,7 @@ export function importsRoutes(): RouteDef[] {
           data: await startImport(
             { prints: { name: prints.name || 'prints.csv', text: prints.text }, steps: steps ? { name: steps.name || 'steps.csv', text: steps.text } : null },
             actor,
+            { queue: deps.queue, log: req.log },
           ),
         };
       },
@@ -31,6 +33,6 @@ export function importsRoutes(): RouteDef[] {
       const { rows, total } = await listImportRows(params.id, query);
       return { data: rows, pagination: { page: query.page, pageSize: query.pageSize, total } };
     },
-    commit: async ({ params, body, actor, requestId, req }) => ({ data: await commitImport(params.id, body.mode, actor, requestId, req.log) }),
+    commit: async ({ params, body, actor, requestId, req }) => ({ data: await commitImport(params.id, body.mode, actor, requestId, { queue: deps.queue, log: req.log }) }),
   });
 }
