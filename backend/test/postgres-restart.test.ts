@@ -10,6 +10,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { pino } from 'pino';
 import type { LocalPostgres } from '../../scripts/postgres';
+import { freePort } from '../../scripts/services';
 import type { JobQueue } from '../src/jobs/queue';
 import type { TestApp } from './app';
 
@@ -27,17 +28,6 @@ const jobsDone = new Set<number>();
 let jobNo = 0;
 const uncaught: unknown[] = [];
 const recordUncaught = (err: unknown) => uncaught.push(err);
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const s = net.createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as net.AddressInfo;
-      s.close(() => resolve(port));
-    });
-  });
-}
 
 async function get(url: string, withSession: boolean): Promise<{ status: number; body: { error?: { message?: string } } | null }> {
   try {

@@ -60,25 +60,25 @@ export function ImportUploadForm({ onStarted }: { onStarted: (job: ImportJob) =>
     upload.mutate({ prints, steps }, { onSuccess: onStarted });
   }
 
+  /** A file chosen for one of the two inputs: kept, and its earlier problem cleared. */
+  const chosen = (key: 'prints' | 'steps', keep: (file: File | null) => void) => (file: File | null) => {
+    keep(file);
+    setProblems((p) => ({ ...p, [key]: null }));
+  };
+
   return (
     <form onSubmit={submit} aria-label="Upload CSV files" className="flex flex-col gap-4 rounded border border-paper-300 bg-white p-4" noValidate>
       <FileInput
         label="Prints (CSV)"
         hint="One row per print. A row whose accession number is already in the catalogue can update that print; you choose before anything is written."
         problem={problems.prints}
-        onChange={(file) => {
-          setPrints(file);
-          setProblems((p) => ({ ...p, prints: null }));
-        }}
+        onChange={chosen('prints', setPrints)}
       />
       <FileInput
         label="Process steps (CSV, optional)"
         hint="One row per step, by accession number and step number. A print with rows here gets exactly these steps; a print without keeps its history."
         problem={problems.steps}
-        onChange={(file) => {
-          setSteps(file);
-          setProblems((p) => ({ ...p, steps: null }));
-        }}
+        onChange={chosen('steps', setSteps)}
       />
       {upload.isError ? <ErrorNotice error={upload.error} title="The files were not accepted." /> : null}
       <div>
