@@ -36,6 +36,16 @@ export const PERMISSIONS = {
   'fixity.manage': ['admin'],
   'measurements.read': ['admin', 'registrar', 'conservator', 'researcher'],
   'measurements.write': ['conservator'],
+  /** Loans and exhibitions: everyone reads them (values need `valuation.read`); registrars manage them. */
+  'loans.read': ['admin', 'registrar', 'conservator', 'researcher', 'viewer'],
+  'loans.write': ['admin', 'registrar'],
+  /** Display periods (dates, illuminance, hours): registrars plan them, conservators record the conditions. */
+  'displays.write': ['admin', 'registrar', 'conservator'],
+  /** Approving or refusing a print for display, with a reason. */
+  'displays.approve': ['conservator'],
+  'light.read': ['admin', 'registrar', 'conservator', 'researcher'],
+  /** Overriding a print's light responsivity category, with a reason. */
+  'light.write': ['conservator'],
   'schedule.read': ['admin', 'registrar', 'conservator', 'researcher'],
   'research.run': ['admin', 'conservator', 'researcher'],
   'users.manage': ['admin'],
