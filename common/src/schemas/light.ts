@@ -13,7 +13,7 @@ const categorySchema = z.enum(LIGHT_RESPONSIVITY.codes);
 const budgetSchema = z.object({
   /** Highest illuminance on the object, lux; null: no limit. */
   maxLux: z.number().min(0).max(100000).nullable(),
-  /** Exposure allowed in a calendar year, lux-hours; null: no limit. */
+  /** Exposure allowed in any 12 months (the rolling 365 days, so a display across New Year cannot use two years), lux-hours; null: no limit. */
   annualLuxHours: z.number().min(0).max(100_000_000).nullable(),
 });
 
