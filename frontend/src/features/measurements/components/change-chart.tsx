@@ -1,6 +1,6 @@
 import { CartesianGrid, ComposedChart, Line, ReferenceArea, ReferenceLine, XAxis, YAxis } from 'recharts';
 import type { ChangeChartData, ChartPoint } from '@/features/measurements/utils/chart-data';
-import { yearLabel, type Axis } from '@/features/measurements/utils/axis';
+import { yearLabel, type Axis } from '@/lib/chart-axis';
 import { formatThreshold } from '@/features/measurements/utils/format';
 import '@/features/measurements/components/change-chart.css';
 

@@ -1,6 +1,6 @@
 import { MS_PER_YEAR } from '@toneledger/common/domain/fading';
 import type { SpotAnalysis } from '@toneledger/common/schemas/measurements';
-import { valueAxis, yearAxis, type Axis } from '@/features/measurements/utils/axis';
+import { valueAxis, yearAxis, type Axis } from '@/lib/chart-axis';
 
 export interface ChartPoint {
   /** Milliseconds since the epoch (UTC midnight of the session date). */

@@ -1,5 +1,7 @@
 import { nice, tickStep, ticks } from 'd3-array';
 
+// Chart axes shared by the features that draw charts (measurements, light dose).
+
 /** What a chart axis is given: its extent and the values it labels. */
 export interface Axis {
   domain: [number, number];

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { decimalYear, valueAxis, yearAxis, yearLabel } from '@/features/measurements/utils/axis';
+import { decimalYear, valueAxis, yearAxis, yearLabel } from '@/lib/chart-axis';
 
 /** Every step between neighbouring ticks is the same. */
 const evenSteps = (ticks: number[]) => new Set(ticks.slice(1).map((t, i) => +(t - ticks[i]!).toFixed(9))).size === 1;
