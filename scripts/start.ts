@@ -9,11 +9,17 @@ const production = process.env.NODE_ENV === 'production';
 let stopServices: () => Promise<void> = async () => {};
 let closeServer: () => Promise<void> = async () => {};
 let stopping = false;
+// Ctrl-C during the first start's demo seed stops the seed at its next record; the server and the
+// services close only once the seed has stopped (the next start carries the seed on).
+const seedStop = new AbortController();
+let seeding: Promise<unknown> = Promise.resolve();
 
 async function shutdown(code: number) {
   if (stopping) return;
   stopping = true;
   log('Stopping…');
+  seedStop.abort();
+  await seeding.catch(() => {});
   await closeServer().catch(() => {});
   await stopServices();
   log('Stopped.');
@@ -35,10 +41,20 @@ try {
   const { db } = await import('../backend/src/db');
   const running = await startServer({ migrate: true });
   closeServer = running.close;
-  if (!production) {
+  if (!production && !stopping) {
     const { seedDemoIfEmpty } = await import('../backend/src/seed/demo');
-    if (await seedDemoIfEmpty(db(), { store: running.deps.store })) log(`Seeded the demo collection of the ${DEMO_INSTITUTION}.`);
+    const { isAbort } = await import('../backend/src/seed/pool');
+    const seeded = seedDemoIfEmpty(db(), { store: running.deps.store, signal: seedStop.signal });
+    seeding = seeded;
+    try {
+      if (await seeded) log(`Seeded the demo collection of the ${DEMO_INSTITUTION}.`);
+    } catch (err) {
+      if (!isAbort(err)) throw err;
+      log('Demo seed stopped; the next start carries it on.');
+    }
   }
+  // A Ctrl-C during the start: shutdown() is closing everything and ends the process.
+  if (stopping) await new Promise(() => {});
   const url = process.env.PUBLIC_URL ?? running.url;
   console.log('');
   console.log(`  Toneledger is running at ${url}`);

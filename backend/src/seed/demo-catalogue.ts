@@ -5,10 +5,12 @@ import {
   type PrintInput, type ProcessStepInput,
 } from '@toneledger/common/schemas/catalogue';
 import { db } from '../db';
+import { BathRecipe, EnclosureType, Location, Maker, Paper, Print, ProcessStep } from '../models';
 import { createReference, enclosures, locations, makers, papers, recipes } from '../services/reference.service';
 import { createPrint, movePrint, replaceSteps } from '../services/print.service';
 import { putCatalogueSettings } from '../services/settings.service';
 import { DEMO_INSTITUTION } from './demo-accounts';
+import { inPool } from './pool';
 
 /**
  * The demo catalogue of the (invented) Calder Reach Photographic Trust: fictional printers,
@@ -33,6 +35,8 @@ export interface DemoCatalogueOptions {
   prints?: number;
   /** Prints written at once (each through its own transactions). */
   concurrency?: number;
+  /** Stops the seed between records (it then rejects with the signal's reason). */
+  signal?: AbortSignal;
 }
 
 // ── Deterministic pseudo-random numbers ─────────────────────────────────────
@@ -650,13 +654,13 @@ function planPrints(r: Rng, ids: Ids, target: number): PlannedPrint[] {
 
 // ── Writing it through the services ────────────────────────────────────────
 
-async function inPool<T>(items: T[], width: number, fn: (item: T) => Promise<void>): Promise<void> {
-  let next = 0;
-  await Promise.all(
-    Array.from({ length: Math.max(1, width) }, async () => {
-      while (next < items.length) await fn(items[next++]);
-    }),
-  );
+/**
+ * The id of a record an earlier, interrupted seed wrote already, or of the one made now: a seed
+ * run again after a stop carries on where it stopped instead of writing anything twice.
+ */
+async function existingOr(find: () => Promise<{ id: string } | null>, create: () => Promise<{ id: string }>, signal?: AbortSignal): Promise<string> {
+  signal?.throwIfAborted();
+  return (await find())?.id ?? (await create()).id;
 }
 
 /** Builds the invented collection through the real services. Returns how many prints it wrote. */
@@ -666,54 +670,76 @@ export async function seedDemoCatalogue(actor: SeedActor, log: (m: string) => vo
   const who = { ...actor, role: 'registrar' as const };
   const requestId = 'seed';
 
+  options.signal?.throwIfAborted();
   const settingsRows = await db().query<{ n: number }>("SELECT count(*)::int AS n FROM settings WHERE key = 'catalogue'", { type: QueryTypes.SELECT });
   if (settingsRows[0].n === 0) {
     await putCatalogueSettings({ accessionPattern: DEFAULT_ACCESSION_PATTERN, institutionName: DEMO_INSTITUTION }, actor, requestId);
   }
 
   const ids: Ids = { makers: new Map(), papers: new Map(), recipes: new Map(), locations: new Map(), enclosures: new Map() };
+  const signal = options.signal;
   for (const m of MAKERS) {
-    const row = await createReference(makers, makerInputSchema.parse({ name: m.name, lifeDates: m.lifeDates, notes: m.notes }), actor, requestId);
-    ids.makers.set(m.name, row.id);
+    ids.makers.set(m.name, await existingOr(
+      () => Maker.findOne({ where: { name: m.name }, attributes: ['id'] }),
+      () => createReference(makers, makerInputSchema.parse({ name: m.name, lifeDates: m.lifeDates, notes: m.notes }), actor, requestId),
+      signal,
+    ));
   }
   for (const p of PAPERS) {
     const { key: _k, made: _m, warm: _w, ...fields } = p;
-    const row = await createReference(papers, paperInputSchema.parse(fields), actor, requestId);
-    ids.papers.set(p.key, row.id);
+    ids.papers.set(p.key, await existingOr(
+      () => Paper.findOne({ where: { manufacturer: fields.manufacturer, product: fields.product, surface: fields.surface }, attributes: ['id'] }),
+      () => createReference(papers, paperInputSchema.parse(fields), actor, requestId),
+      signal,
+    ));
   }
   for (const rec of RECIPES) {
     const { key: _k, ...fields } = rec;
-    const row = await createReference(recipes, recipeInputSchema.parse(fields), actor, requestId);
-    ids.recipes.set(rec.key, row.id);
+    ids.recipes.set(rec.key, await existingOr(
+      () => BathRecipe.findOne({ where: { name: fields.name }, attributes: ['id'] }),
+      () => createReference(recipes, recipeInputSchema.parse(fields), actor, requestId),
+      signal,
+    ));
   }
   for (const l of LOCATIONS) {
-    const row = await createReference(
-      locations,
-      locationInputSchema.parse({ name: l.name, kind: l.kind, parentId: l.parent ? ids.locations.get(l.parent) : null, code: l.code, notes: l.notes }),
-      actor,
-      requestId,
-    );
-    ids.locations.set(l.key, row.id);
+    const parentId = l.parent ? ids.locations.get(l.parent)! : null;
+    ids.locations.set(l.key, await existingOr(
+      () => Location.findOne({ where: { name: l.name, parentId }, attributes: ['id'] }),
+      () => createReference(locations, locationInputSchema.parse({ name: l.name, kind: l.kind, parentId, code: l.code, notes: l.notes }), actor, requestId),
+      signal,
+    ));
   }
   for (const e of ENCLOSURES) {
     const { key: _k, ...fields } = e;
-    const row = await createReference(enclosures, enclosureInputSchema.parse(fields), actor, requestId);
-    ids.enclosures.set(e.key, row.id);
+    ids.enclosures.set(e.key, await existingOr(
+      () => EnclosureType.findOne({ where: { name: fields.name }, attributes: ['id'] }),
+      () => createReference(enclosures, enclosureInputSchema.parse(fields), actor, requestId),
+      signal,
+    ));
   }
   log(`Demo catalogue: ${MAKERS.length} makers, ${PAPERS.length} papers, ${RECIPES.length} recipes, ${LOCATIONS.length} places, ${ENCLOSURES.length} enclosure types.`);
 
   const planned = planPrints(r, ids, options.prints ?? 300);
   let done = 0;
   await inPool(planned, options.concurrency ?? 4, async (p) => {
-    const created = await createPrint(p.input, who, requestId);
+    // A print an interrupted seed wrote is completed (its steps, its move), not written again.
+    const earlier = await Print.findOne({ where: { accessionNumber: p.input.accessionNumber }, attributes: ['id', 'version', 'locationId'] });
+    signal?.throwIfAborted();
+    const created = earlier
+      ? { id: earlier.id, version: earlier.version, locationId: earlier.locationId, hasSteps: (await ProcessStep.count({ where: { printId: earlier.id } })) > 0 }
+      : await createPrint(p.input, who, requestId).then((c) => ({ id: c.id, version: c.version, locationId: c.location?.id ?? null, hasSteps: false }));
     let version = created.version;
-    if (p.steps.length) version = (await replaceSteps(created.id, { version, steps: p.steps }, who, requestId)).version;
-    if (p.move && ids.locations.get(p.move.to) !== created.location?.id) {
+    if (p.steps.length && !created.hasSteps) {
+      signal?.throwIfAborted();
+      version = (await replaceSteps(created.id, { version, steps: p.steps }, who, requestId)).version;
+    }
+    if (p.move && ids.locations.get(p.move.to) !== created.locationId) {
+      signal?.throwIfAborted();
       await movePrint(created.id, { toLocationId: ids.locations.get(p.move.to)!, reason: p.move.reason, version }, who, requestId);
     }
     done += 1;
     if (done % 100 === 0) log(`Demo catalogue: ${done} of ${planned.length} prints…`);
-  });
+  }, signal);
   log(`Demo catalogue: ${planned.length} prints in ${((Date.now() - started) / 1000).toFixed(1)} s.`);
   return { prints: planned.length };
 }

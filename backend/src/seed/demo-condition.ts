@@ -8,11 +8,13 @@ import type { ObjectStore } from '@toneledger/storage/object-store';
 import { reportInputSchema, type ObservationInput, type ReportInput } from '@toneledger/common/schemas/condition';
 import { imageUploadFieldsSchema } from '@toneledger/common/schemas/images';
 import { db } from '../db';
+import { Addendum, ConditionReport, Image } from '../models';
 import { addAddendum, createReport, signReport, type Actor } from '../services/condition.service';
 import { storeImage } from '../services/image.service';
 import type { ReceivedFile } from '../services/image-ingest';
 import { DEMO_INSTITUTION } from './demo-accounts';
 import { prng } from './demo-catalogue';
+import { inPool } from './pool';
 
 /**
  * Condition histories and photographs for part of the (invented) demo collection: dated reports
@@ -1146,15 +1148,6 @@ export function chooseConditionPrints(prints: DemoPrint[]): Story[] {
   return chosen.sort((a, b) => a.print.accessionNumber.localeCompare(b.print.accessionNumber, 'en', { numeric: true }));
 }
 
-async function inPool<T>(items: T[], width: number, fn: (item: T) => Promise<void>): Promise<void> {
-  let next = 0;
-  await Promise.all(
-    Array.from({ length: Math.max(1, width) }, async () => {
-      while (next < items.length) await fn(items[next++]);
-    }),
-  );
-}
-
 export interface DemoConditionResult {
   prints: number;
   images: number;
@@ -1168,8 +1161,12 @@ export interface DemoConditionResult {
  * photographs), for about 40 prints. The two most recent reports are left as drafts, as a
  * survey under way would leave them; every other report is signed.
  */
-export async function seedDemoCondition(store: ObjectStore, actor: Actor, log: (m: string) => void, options: { concurrency?: number } = {}): Promise<DemoConditionResult> {
+export async function seedDemoCondition(
+  store: ObjectStore, actor: Actor, log: (m: string) => void, options: { concurrency?: number; signal?: AbortSignal } = {},
+): Promise<DemoConditionResult> {
   const started = Date.now();
+  const signal = options.signal;
+  signal?.throwIfAborted();
   const today = seedToday();
   const stories = chooseConditionPrints(await loadDemoPrints());
 
@@ -1200,7 +1197,16 @@ export async function seedDemoCondition(store: ObjectStore, actor: Actor, log: (
     const s = plan.story;
     const p = s.print;
     const stored: StoredCapture[] = [];
-    for (const c of plan.captures) {
+    // Photographs an interrupted seed stored already are used, not made again (they come in plan order).
+    const earlier = await Image.findAll({ where: { printId: p.id, withdrawnAt: null }, order: [['uploadedAt', 'ASC'], ['id', 'ASC']], attributes: ['id', 'viewType', 'capturedOn'] });
+    for (const [i, c] of plan.captures.entries()) {
+      const kept = earlier[i];
+      if (kept) {
+        if (kept.viewType !== c.view || kept.capturedOn !== c.date) throw new Error(`The demo photographs of ${p.accessionNumber} are not the ones the seed plans; seed an empty database.`);
+        stored.push({ ...c, imageId: kept.id, layout: layoutOf(p, shiftFor(p, c.date), c.view === 'verso') });
+        continue;
+      }
+      signal?.throwIfAborted();
       const layout = layoutOf(p, shiftFor(p, c.date), c.view === 'verso');
       const damage = plan.damage && c.t >= plan.damage.t - 1e-9 ? plan.damage : null;
       const seed = rngFor(p.accessionNumber, `grain:${c.date}:${c.view}`).int(1, 2 ** 31);
@@ -1214,7 +1220,7 @@ export async function seedDemoCondition(store: ObjectStore, actor: Actor, log: (
       images += 1;
     }
     written.set(plan, writeReports(plan, stored));
-  });
+  }, signal);
   const photographed = Date.now();
 
   // Drafts: the two most recent examinations. Addenda: on the damaged prints' return reports,
@@ -1248,18 +1254,29 @@ export async function seedDemoCondition(store: ObjectStore, actor: Actor, log: (
 
   // The reports are database work only: more at once than the (CPU-bound) photographs.
   await inPool(plans, (options.concurrency ?? 2) * 2, async (plan) => {
-    for (const d of written.get(plan) ?? []) {
-      const report = await createReport(plan.story.print.id, d.input, actor, 'seed');
-      reports += 1;
+    // Reports an interrupted seed wrote are completed (signed, their addendum added), not written again.
+    const earlier = await ConditionReport.findAll({ where: { printId: plan.story.print.id }, order: [['createdAt', 'ASC'], ['id', 'ASC']], attributes: ['id', 'examinedOn', 'status', 'version'] });
+    for (const [i, d] of (written.get(plan) ?? []).entries()) {
+      signal?.throwIfAborted();
+      let report: { id: string; version: number; status: string } | undefined = earlier[i];
+      if (report && earlier[i].examinedOn !== d.input.examinedOn) throw new Error(`The demo reports of ${plan.story.print.accessionNumber} are not the ones the seed plans; seed an empty database.`);
+      if (!report) {
+        report = await createReport(plan.story.print.id, d.input, actor, 'seed');
+        reports += 1;
+      }
       if (!d.sign) continue;
-      await signReport(report.id, report.version, actor, 'seed');
-      signed += 1;
-      if (d.addendum) {
+      if (report.status !== 'signed') {
+        signal?.throwIfAborted();
+        await signReport(report.id, report.version, actor, 'seed');
+        signed += 1;
+      }
+      if (d.addendum && (await Addendum.count({ where: { reportId: report.id } })) === 0) {
+        signal?.throwIfAborted();
         await addAddendum(report.id, d.addendum, actor, 'seed');
         addenda += 1;
       }
     }
-  });
+  }, signal);
   const secs = (a: number, b: number) => ((b - a) / 1000).toFixed(1);
   log(
     `Demo condition: ${plans.length} prints, ${images} photographs (${secs(rendering, photographed)} s), ` +

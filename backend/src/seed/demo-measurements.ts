@@ -1,9 +1,10 @@
 import { baselineChoiceSchema, sessionInputSchema, spotInputSchema, type SessionInput } from '@toneledger/common/schemas/measurements';
-import { Image } from '../models';
+import { Image, MeasurementSession, MeasurementSpot } from '../models';
 import { chooseBaseline, createSpot, recordSession, type Actor } from '../services/measurement.service';
 import {
   chooseConditionPrints, hasMargin, labAt, loadDemoPrints, rngFor, seedToday, spotPointOf, storyOf, type Lab3, type SpotPurpose, type Story,
 } from './demo-condition';
+import { inPool } from './pool';
 
 /**
  * Colour and density measurements of about 60 demo prints, from the early 1990s to now: two or
@@ -119,18 +120,13 @@ export interface DemoMeasurementResult {
   readings: number;
 }
 
-async function inPool<T>(items: T[], width: number, fn: (item: T) => Promise<void>): Promise<void> {
-  let next = 0;
-  await Promise.all(
-    Array.from({ length: Math.max(1, width) }, async () => {
-      while (next < items.length) await fn(items[next++]);
-    }),
-  );
-}
-
 /** Records spots and sessions for about 60 prints; spots are placed on the latest recto photograph when there is one. */
-export async function seedDemoMeasurements(actor: Actor, log: (m: string) => void, options: { concurrency?: number } = {}): Promise<DemoMeasurementResult> {
+export async function seedDemoMeasurements(
+  actor: Actor, log: (m: string) => void, options: { concurrency?: number; signal?: AbortSignal } = {},
+): Promise<DemoMeasurementResult> {
   const started = Date.now();
+  const signal = options.signal;
+  signal?.throwIfAborted();
   const today = seedToday();
   const prints = await loadDemoPrints();
   const all = prints.map(storyOf);
@@ -163,8 +159,17 @@ export async function seedDemoMeasurements(actor: Actor, log: (m: string) => voi
     const photo = await Image.findOne({ where: { printId: p.id, viewType: 'recto', withdrawnAt: null }, order: [['capturedOn', 'DESC']], attributes: ['id', 'capturedOn'] });
     const purposes: SpotPurpose[] = ['dmax', 'mid_tone'];
     if (s.kind === 'rc_untoned' || r.chance(0.7)) purposes.push(hasMargin(p) ? 'paper_base' : 'highlight');
-    const made: { id: string; purpose: SpotPurpose; version: number }[] = [];
+    const made: { id: string; purpose: SpotPurpose; version: number; baselineSessionId: string | null }[] = [];
+    // Spots and sessions an interrupted seed recorded are kept and not recorded again (sessions come in plan order).
+    const earlierSpots = await MeasurementSpot.findAll({ where: { printId: p.id }, attributes: ['id', 'name', 'version', 'baselineSessionId'] });
+    const earlierSessions = await MeasurementSession.findAll({ where: { printId: p.id }, order: [['createdAt', 'ASC'], ['id', 'ASC']], attributes: ['id', 'measuredOn'] });
     for (const purpose of purposes) {
+      const kept = earlierSpots.find((x) => x.name === SPOT_NAMES[purpose]);
+      if (kept) {
+        made.push({ id: kept.id, purpose, version: kept.version, baselineSessionId: kept.baselineSessionId });
+        continue;
+      }
+      signal?.throwIfAborted();
       const at = photo?.capturedOn ? spotPointOf(p, photo.capturedOn, purpose) : null;
       const spot = await createSpot(
         p.id,
@@ -175,7 +180,7 @@ export async function seedDemoMeasurements(actor: Actor, log: (m: string) => voi
         actor,
         'seed',
       );
-      made.push({ id: spot.id, purpose, version: spot.version });
+      made.push({ id: spot.id, purpose, version: spot.version, baselineSessionId: null });
       spots += 1;
     }
     const recorded: string[] = [];
@@ -197,11 +202,20 @@ export async function seedDemoMeasurements(actor: Actor, log: (m: string) => voi
         };
       });
       const input = sessionInputSchema.parse({ ...session.input, readings: spotReadings });
+      const kept = earlierSessions[recorded.length];
+      if (kept) {
+        if (kept.measuredOn !== input.measuredOn) throw new Error(`The demo measurements of ${p.accessionNumber} are not the ones the seed plans; seed an empty database.`);
+        recorded.push(kept.id);
+        continue;
+      }
+      signal?.throwIfAborted();
       recorded.push((await recordSession(p.id, input, actor, 'seed')).id);
       sessions += 1;
     }
     if (moved && moved.story === s) {
       for (const spot of made) {
+        if (spot.baselineSessionId === recorded[1]) continue;
+        signal?.throwIfAborted();
         await chooseBaseline(
           spot.id,
           baselineChoiceSchema.parse({
@@ -213,7 +227,7 @@ export async function seedDemoMeasurements(actor: Actor, log: (m: string) => voi
         );
       }
     }
-  });
+  }, signal);
   log(`Demo measurements: ${planned.length} prints, ${spots} spots, ${sessions} sessions, ${readings} readings in ${((Date.now() - started) / 1000).toFixed(1)} s.`);
   return { prints: planned.length, spots, sessions, readings };
 }

@@ -1,7 +1,7 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { ObjectStore } from '@toneledger/storage/object-store';
 import { env } from '../config/env';
-import { User } from '../models';
+import { Setting, User } from '../models';
 import { recordAudit } from '../services/audit.service';
 import { DEMO_ACCOUNTS } from './demo-accounts';
 import { seedDemoCatalogue } from './demo-catalogue';
@@ -22,6 +22,28 @@ export interface SeedDemoOptions {
   /** Where the demo photographs go (the running server's object store); without it, no condition histories are seeded. */
   store?: ObjectStore;
   log?: (m: string) => void;
+  /**
+   * Stops the seed at the next record (start's Ctrl-C): the returned promise then rejects with the
+   * signal's reason once nothing of the seed is running any more. The next seed carries on.
+   */
+  signal?: AbortSignal;
+}
+
+/**
+ * Which parts of the demo a seed began and which it finished, kept in the settings table. A part
+ * begun and not finished (a stop during the seed) is carried on by the next seed, which skips what
+ * is there and writes the rest, so an interrupted first start never leaves the demo half made.
+ */
+type Part = 'catalogue' | 'condition' | 'measurements';
+type Progress = Partial<Record<Part, 'started' | 'done'>>;
+const PROGRESS_KEY = 'demo_seed';
+
+async function progress(): Promise<Progress> {
+  return ((await Setting.findByPk(PROGRESS_KEY))?.value as Progress | undefined) ?? {};
+}
+
+async function mark(part: Part, state: 'started' | 'done'): Promise<void> {
+  await Setting.upsert({ key: PROGRESS_KEY, value: { ...(await progress()), [part]: state } });
 }
 
 /**
@@ -30,6 +52,8 @@ export interface SeedDemoOptions {
  * part of it when those are empty. Returns whether anything was seeded.
  */
 export async function seedDemoIfEmpty(sequelize: Sequelize, options: SeedDemoOptions = {}): Promise<boolean> {
+  const signal = options.signal;
+  signal?.throwIfAborted();
   const seededUsers = await sequelize.transaction(async (t) => {
     // One seeder at a time, even if two starts race.
     await sequelize.query('SELECT pg_advisory_xact_lock(727001)', { transaction: t });
@@ -44,9 +68,9 @@ export async function seedDemoIfEmpty(sequelize: Sequelize, options: SeedDemoOpt
   const catalogue = options.catalogue ?? env().NODE_ENV === 'development';
   if (!catalogue) return seededUsers;
   const log = options.log ?? ((m: string) => console.log(`[toneledger] ${m}`));
-  const seededCatalogue = await seedCatalogueIfEmpty(sequelize, log);
+  const seededCatalogue = await seedCatalogueIfEmpty(sequelize, log, signal);
   if (!(options.histories ?? catalogue)) return seededUsers || seededCatalogue;
-  const seededHistories = await seedHistoriesIfEmpty(sequelize, options.store ?? null, log);
+  const seededHistories = await seedHistoriesIfEmpty(sequelize, options.store ?? null, log, signal);
   return seededUsers || seededCatalogue || seededHistories;
 }
 
@@ -54,7 +78,8 @@ export async function seedDemoIfEmpty(sequelize: Sequelize, options: SeedDemoOpt
  * The catalogue seed runs through the services, which open their own transactions; this
  * transaction only holds the advisory lock (so two starts never seed twice) while they run.
  */
-async function seedCatalogueIfEmpty(sequelize: Sequelize, log: (m: string) => void): Promise<boolean> {
+async function seedCatalogueIfEmpty(sequelize: Sequelize, log: (m: string) => void, signal?: AbortSignal): Promise<boolean> {
+  signal?.throwIfAborted();
   const lock = await sequelize.transaction();
   try {
     await sequelize.query('SELECT pg_advisory_xact_lock(727002)', { transaction: lock });
@@ -63,12 +88,15 @@ async function seedCatalogueIfEmpty(sequelize: Sequelize, log: (m: string) => vo
             + (SELECT count(*) FROM bath_recipes) + (SELECT count(*) FROM locations) + (SELECT count(*) FROM enclosure_types) AS n`,
       { type: QueryTypes.SELECT, transaction: lock },
     );
-    if (Number(n) > 0) return false;
+    const resuming = (await progress()).catalogue === 'started';
+    if (Number(n) > 0 && !resuming) return false;
     // The registrar of the demo catalogues it, so the audit trail and history name a person.
     const registrar = DEMO_ACCOUNTS.find((a) => a.role === 'registrar')!;
     const user = await User.findOne({ where: { email: registrar.email }, transaction: lock });
-    log('Seeding the demo catalogue (about 300 prints; takes a few seconds)…');
-    await seedDemoCatalogue({ id: user?.id ?? null, name: user?.name ?? registrar.name }, log);
+    log(resuming ? 'Carrying on with the demo catalogue an earlier start began…' : 'Seeding the demo catalogue (about 300 prints; takes a few seconds)…');
+    await mark('catalogue', 'started');
+    await seedDemoCatalogue({ id: user?.id ?? null, name: user?.name ?? registrar.name }, log, { signal });
+    await mark('catalogue', 'done');
     return true;
   } finally {
     await lock.commit();
@@ -80,7 +108,8 @@ async function seedCatalogueIfEmpty(sequelize: Sequelize, log: (m: string) => vo
  * (and there is a catalogue to describe). Like the catalogue, they run through the services,
  * signed in as the demo conservator, under an advisory lock held by a transaction of their own.
  */
-async function seedHistoriesIfEmpty(sequelize: Sequelize, store: ObjectStore | null, log: (m: string) => void): Promise<boolean> {
+async function seedHistoriesIfEmpty(sequelize: Sequelize, store: ObjectStore | null, log: (m: string) => void, signal?: AbortSignal): Promise<boolean> {
+  signal?.throwIfAborted();
   const lock = await sequelize.transaction();
   try {
     await sequelize.query('SELECT pg_advisory_xact_lock(727003)', { transaction: lock });
@@ -90,7 +119,10 @@ async function seedHistoriesIfEmpty(sequelize: Sequelize, store: ObjectStore | n
               ((SELECT count(*) FROM measurement_spots) + (SELECT count(*) FROM measurement_sessions))::int AS measurements`,
       { type: QueryTypes.SELECT, transaction: lock },
     );
-    if (counts.prints === 0 || (counts.condition > 0 && counts.measurements > 0)) return false;
+    const begun = await progress();
+    const condition = counts.condition === 0 || begun.condition === 'started';
+    const measurements = counts.measurements === 0 || begun.measurements === 'started';
+    if (counts.prints === 0 || (!condition && !measurements)) return false;
     const conservator = DEMO_ACCOUNTS.find((a) => a.role === 'conservator')!;
     const user = await User.findOne({ where: { email: conservator.email }, transaction: lock });
     if (!user) {
@@ -99,18 +131,24 @@ async function seedHistoriesIfEmpty(sequelize: Sequelize, store: ObjectStore | n
     }
     const actor = { id: user.id, name: user.name ?? conservator.name };
     let seeded = false;
-    if (counts.condition === 0) {
+    if (condition) {
       if (store) {
-        log('Seeding demo condition histories with photographs (about 40 prints; takes under a minute)…');
-        await seedDemoCondition(store, actor, log);
+        log(begun.condition === 'started'
+          ? 'Carrying on with the demo condition histories an earlier start began…'
+          : 'Seeding demo condition histories with photographs (about 40 prints; takes under a minute)…');
+        await mark('condition', 'started');
+        await seedDemoCondition(store, actor, log, { signal });
+        await mark('condition', 'done');
         seeded = true;
       } else {
         log('No object store given: the demo condition histories and photographs were not seeded.');
       }
     }
-    if (counts.measurements === 0) {
-      log('Seeding demo measurement histories (about 60 prints)…');
-      await seedDemoMeasurements(actor, log);
+    if (measurements) {
+      log(begun.measurements === 'started' ? 'Carrying on with the demo measurement histories an earlier start began…' : 'Seeding demo measurement histories (about 60 prints)…');
+      await mark('measurements', 'started');
+      await seedDemoMeasurements(actor, log, { signal });
+      await mark('measurements', 'done');
       seeded = true;
     }
     return seeded;
