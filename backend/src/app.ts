@@ -25,6 +25,7 @@ import { importsRoutes } from './routes/imports/imports.routes';
 import { imagesRoutes } from './routes/images/images.routes';
 import { conditionRoutes } from './routes/condition/condition.routes';
 import { measurementsRoutes } from './routes/measurements/measurements.routes';
+import { loansRoutes } from './routes/loans/loans.routes';
 
 /** Every route the app serves, in one list: Express mounts it and OpenAPI describes it. */
 export function allRoutes(deps: AppDeps): RouteDef[] {
@@ -42,6 +43,7 @@ export function allRoutes(deps: AppDeps): RouteDef[] {
     ...imagesRoutes(deps),
     ...conditionRoutes(),
     ...measurementsRoutes(),
+    ...loansRoutes(),
   ];
   return routes;
 }

@@ -108,6 +108,7 @@ export class Print extends Model<Attrs<Print>, Create<Print>> {
   declare staffNotes: string | null;
   declare valuationAmount: number | null;
   declare valuationCurrency: string | null;
+  declare borrowed: CreationOptional<boolean>;
   declare tonerClasses: CreationOptional<string[]>;
   declare warningCodes: CreationOptional<string[]>;
   declare version: CreationOptional<number>;
@@ -278,6 +279,7 @@ export function initCatalogueModels(sequelize: Sequelize): void {
       staffNotes: DataTypes.TEXT,
       valuationAmount: num('valuationAmount'),
       valuationCurrency: DataTypes.TEXT,
+      borrowed: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
       tonerClasses: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false, defaultValue: [] },
       warningCodes: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false, defaultValue: [] },
     },

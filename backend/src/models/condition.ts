@@ -27,6 +27,7 @@ export class ConditionReport extends Model<Attrs<ConditionReport>, Create<Condit
   declare summary: string | null;
   declare recommendations: string | null;
   declare nextCheckOn: string | null;
+  declare loanId: CreationOptional<string | null>;
   declare status: CreationOptional<'draft' | 'signed'>;
   declare signedAt: Date | null;
   declare version: CreationOptional<number>;
@@ -90,6 +91,7 @@ export function initConditionModels(sequelize: Sequelize): void {
       summary: DataTypes.TEXT,
       recommendations: DataTypes.TEXT,
       nextCheckOn: DataTypes.DATEONLY,
+      loanId: DataTypes.UUID,
       status: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'draft' },
       signedAt: DataTypes.DATE,
       version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },

@@ -4,11 +4,13 @@ import { initCatalogueModels } from './catalogue';
 import { initImageModels } from './images';
 import { initConditionModels } from './condition';
 import { initMeasurementModels } from './measurements';
+import { initLoanModels } from './loans';
 
 export * from './catalogue';
 export * from './images';
 export * from './condition';
 export * from './measurements';
+export * from './loans';
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<string>;
@@ -72,4 +74,5 @@ export function initModels(sequelize: Sequelize): void {
   initImageModels(sequelize);
   initConditionModels(sequelize);
   initMeasurementModels(sequelize);
+  initLoanModels(sequelize);
 }

@@ -5,7 +5,8 @@ import {
 } from '@toneledger/common/schemas/condition';
 import type { FieldIssue } from '@toneledger/common/schemas/envelope';
 import { db } from '../db';
-import { Addendum, ConditionReport, ConditionTerm, Image, Observation, Print, Setting } from '../models';
+import { Addendum, ConditionReport, ConditionTerm, Image, Loan, LoanObject, Observation, Print, Setting } from '../models';
+import { getCatalogueSettings } from './settings.service';
 import { conflict, forbidden, notFound, validationFailed } from '../errors';
 import { presentReport, presentTerm, type LoadedReport } from '../presenters/condition.presenter';
 import { recordAudit } from './audit.service';
@@ -96,7 +97,23 @@ const INCLUDE = [
   { model: Print, as: 'print' },
   { model: Observation, as: 'observations', include: [{ model: ConditionTerm, as: 'term' }] },
   { model: Addendum, as: 'addenda' },
+  { model: Loan, as: 'loan' },
 ];
+
+/** The report as the API answers it; a report made for a loan names the institution as lender or borrower. */
+async function present(r: LoadedReport) {
+  return presentReport(r, r.loan ? (await getCatalogueSettings()).institutionName : '');
+}
+
+/** A report made for a loan is about one of the loan's prints. */
+async function loanIssues(printId: string, loanId: string | null | undefined, t: Transaction): Promise<FieldIssue[]> {
+  if (!loanId) return [];
+  if (!(await Loan.findByPk(loanId, { attributes: ['id'], transaction: t }))) return [{ path: 'loanId', message: 'No such loan', code: 'not_found' }];
+  if (!(await LoanObject.findOne({ where: { loanId, printId }, transaction: t }))) {
+    return [{ path: 'loanId', message: 'This print is not on that loan; add it to the loan first', code: 'not_on_loan' }];
+  }
+  return [];
+}
 
 export async function loadReport(id: string, transaction?: Transaction): Promise<LoadedReport> {
   const r = (await ConditionReport.findByPk(id, { include: INCLUDE, transaction })) as LoadedReport | null;
@@ -105,7 +122,7 @@ export async function loadReport(id: string, transaction?: Transaction): Promise
 }
 
 export async function getReport(id: string) {
-  return presentReport(await loadReport(id));
+  return present(await loadReport(id));
 }
 
 /** Every report on a print, newest examination first; drafts included, marked by their status. */
@@ -116,13 +133,14 @@ export async function listReports(printId: string) {
     include: INCLUDE,
     order: [['examinedOn', 'DESC'], ['createdAt', 'DESC']],
   })) as LoadedReport[];
-  return rows.map(presentReport);
+  const institutionName = (await getCatalogueSettings()).institutionName;
+  return rows.map((r) => presentReport(r, institutionName));
 }
 
 /** What the audit trail keeps of a report: everything the examiner wrote, with the print it is about. */
 function snapshot(r: LoadedReport) {
-  const { version: _v, createdAt: _c, updatedAt: _u, ...rest } = presentReport(r);
-  return rest as Record<string, unknown>;
+  const { version: _v, createdAt: _c, updatedAt: _u, loan, ...rest } = presentReport(r, '');
+  return { ...rest, loanId: loan?.id ?? null } as Record<string, unknown>;
 }
 
 /** A YYYY-MM-DD that names a real day. */
@@ -187,19 +205,23 @@ function observationRow(reportId: string, position: number, o: ObservationInput)
 export async function createReport(printId: string, input: ReportInput, actor: Actor, requestId: string | null) {
   return db().transaction(async (t) => {
     if ((await Print.count({ where: { id: printId }, transaction: t })) === 0) throw notFound('The print');
-    const issues = [...dateIssues(input.examinedOn, input.nextCheckOn ?? null), ...(await observationIssues(printId, input.observations, t))];
+    const issues = [
+      ...dateIssues(input.examinedOn, input.nextCheckOn ?? null), ...(await observationIssues(printId, input.observations, t)),
+      ...(await loanIssues(printId, input.loanId, t)),
+    ];
     if (issues.length) throw validationFailed(issues);
     const report = await ConditionReport.create(
       {
         printId, examinedOn: input.examinedOn, examinerId: actor.id, examinerName: actor.name, context: input.context, grade: input.grade ?? null,
         summary: input.summary ?? null, recommendations: input.recommendations ?? null, nextCheckOn: input.nextCheckOn ?? null, signedAt: null,
+        loanId: input.loanId ?? null,
       },
       { transaction: t },
     );
     await Observation.bulkCreate(input.observations.map((o, i) => observationRow(report.id, i + 1, o)), { transaction: t });
     const after = await loadReport(report.id, t);
     await recordAudit({ actor, action: 'condition_report.created', entityType: ENTITY, entityId: report.id, after: snapshot(after), requestId }, t);
-    return presentReport(after);
+    return present(after);
   });
 }
 
@@ -213,7 +235,7 @@ async function lockDraft(id: string, version: number, actor: Actor, t: Transacti
   if (row.status === 'signed') throw conflict(LOCKED);
   if (row.examinerId !== actor.id) throw forbidden(NOT_AUTHOR);
   const loaded = await loadReport(id, t);
-  if (row.version !== version) throw await staleEdit(ENTITY, id, presentReport(loaded), t);
+  if (row.version !== version) throw await staleEdit(ENTITY, id, await present(loaded), t);
   return loaded;
 }
 
@@ -225,10 +247,13 @@ export async function updateReport(id: string, update: ReportChanges, actor: Act
     const before = await lockDraft(id, version, actor, t);
     const examinedOn = changes.examinedOn ?? before.examinedOn;
     const nextCheckOn = changes.nextCheckOn !== undefined ? changes.nextCheckOn : before.nextCheckOn;
-    const issues = [...dateIssues(examinedOn, nextCheckOn), ...(observations ? await observationIssues(before.printId, observations, t) : [])];
+    const issues = [
+      ...dateIssues(examinedOn, nextCheckOn), ...(observations ? await observationIssues(before.printId, observations, t) : []),
+      ...(await loanIssues(before.printId, changes.loanId, t)),
+    ];
     if (issues.length) throw validationFailed(issues);
     const values: Record<string, unknown> = {};
-    for (const key of ['examinedOn', 'context', 'grade', 'summary', 'recommendations', 'nextCheckOn'] as const) {
+    for (const key of ['examinedOn', 'context', 'grade', 'summary', 'recommendations', 'nextCheckOn', 'loanId'] as const) {
       if (changes[key] !== undefined) values[key] = changes[key];
     }
     await ConditionReport.update({ ...values, version: before.version + 1 }, { where: { id }, transaction: t });
@@ -240,7 +265,7 @@ export async function updateReport(id: string, update: ReportChanges, actor: Act
     const b = snapshot(before);
     const a = snapshot(after);
     if (changedFields(b, a).length) await recordAudit({ actor, action: 'condition_report.updated', entityType: ENTITY, entityId: id, before: b, after: a, requestId }, t);
-    return presentReport(after);
+    return present(after);
   });
 }
 
@@ -267,7 +292,7 @@ export async function signReport(id: string, version: number, actor: Actor, requ
       { actor, action: 'condition_report.signed', entityType: ENTITY, entityId: id, before: { status: 'draft' }, after: snapshot(after), requestId },
       t,
     );
-    return presentReport(after);
+    return present(after);
   });
 }
 
@@ -286,6 +311,6 @@ export async function addAddendum(id: string, text: string, actor: Actor, reques
       },
       t,
     );
-    return presentReport(await loadReport(id, t));
+    return present(await loadReport(id, t));
   });
 }

@@ -87,24 +87,32 @@ export async function storeWarnings(p: LoadedPrint, t: Transaction) {
 
 export async function createPrint(input: PrintInput, actor: Actor, requestId: string | null) {
   const accessionNumber = await checkAccessionNumber(input.accessionNumber);
-  return db().transaction(async (t) => {
-    await checkReferences(input, t);
-    const { locationId, ...fields } = input;
-    const values = { ...fields, accessionNumber, ...(await derived({ ...input, accessionNumber }, t)) };
-    let print: Print;
-    try {
-      print = await Print.create({ ...(values as Record<string, unknown>), locationId: locationId ?? null } as never, { transaction: t });
-    } catch (err) {
-      rethrowUnique(err, 'accessionNumber', DUPLICATE);
-    }
-    if (locationId) {
-      await Movement.create({ printId: print.id, fromLocationId: null, toLocationId: locationId, movedBy: actor.id, movedByName: actor.name, reason: 'First placement at cataloguing' }, { transaction: t });
-    }
-    const loaded = await loadPrint(print.id, t);
-    await storeWarnings(loaded, t);
-    await recordAudit({ actor, action: 'print.created', entityType: 'print', entityId: print.id, after: snapshot(loaded), requestId }, t);
-    return presentPrint(await loadPrint(print.id, t), actor.role);
-  });
+  return db().transaction((t) => insertPrint({ ...input, accessionNumber }, actor, requestId, t));
+}
+
+/**
+ * Writes a new print inside the caller's transaction: derived columns, first placement, warnings and
+ * the `print.created` audit row. The accession number is taken as given (`createPrint` checks it
+ * against the pattern first; a borrowed print keeps its lender's number unchecked).
+ */
+export async function insertPrint(input: PrintInput, actor: Actor, requestId: string | null, t: Transaction, options: { borrowed?: boolean } = {}) {
+  const accessionNumber = input.accessionNumber;
+  await checkReferences(input, t);
+  const { locationId, ...fields } = input;
+  const values = { ...fields, accessionNumber, ...(await derived({ ...input, accessionNumber }, t)), borrowed: options.borrowed ?? false };
+  let print: Print;
+  try {
+    print = await Print.create({ ...(values as Record<string, unknown>), locationId: locationId ?? null } as never, { transaction: t });
+  } catch (err) {
+    rethrowUnique(err, 'accessionNumber', DUPLICATE);
+  }
+  if (locationId) {
+    await Movement.create({ printId: print.id, fromLocationId: null, toLocationId: locationId, movedBy: actor.id, movedByName: actor.name, reason: 'First placement at cataloguing' }, { transaction: t });
+  }
+  const loaded = await loadPrint(print.id, t);
+  await storeWarnings(loaded, t);
+  await recordAudit({ actor, action: 'print.created', entityType: 'print', entityId: print.id, after: snapshot(loaded), requestId }, t);
+  return presentPrint(await loadPrint(print.id, t), actor.role);
 }
 
 async function lockForEdit(id: string, version: number, t: Transaction, role: Role): Promise<LoadedPrint> {
@@ -120,6 +128,7 @@ export async function updatePrint(id: string, update: PrintUpdate, actor: Actor,
   const accessionNumber = changes.accessionNumber !== undefined ? await checkAccessionNumber(changes.accessionNumber) : undefined;
   return db().transaction(async (t) => {
     const before = await lockForEdit(id, version, t, actor.role);
+    if (changes.status !== undefined && changes.status !== before.status) await checkLoanStatus(id, before.status, changes.status, t);
     await checkReferences(changes, t);
     const values = { ...changes, ...(accessionNumber ? { accessionNumber } : {}), ...(await derived({ ...changes, ...(accessionNumber ? { accessionNumber } : {}) }, t)) };
     try {
@@ -134,6 +143,48 @@ export async function updatePrint(id: string, update: PrintUpdate, actor: Actor,
     if (changedFields(b, a).length) await recordAudit({ actor, action: 'print.updated', entityType: 'print', entityId: id, before: b, after: a, requestId }, t);
     return presentPrint(await loadPrint(id, t), actor.role);
   });
+}
+
+const SET_BY_LOAN = 'On loan is set by the loan: a print goes on loan when its loan is dispatched and comes back when the loan is returned.';
+
+/**
+ * A print's status "on loan" follows its loan: it cannot be set by hand, nor cleared while the print
+ * is on a loan out that has left (one marked on loan before loans were recorded can be cleared).
+ */
+async function checkLoanStatus(id: string, from: string, to: string, t: Transaction) {
+  if (to === 'on_loan') throw validationFailed([{ path: 'status', message: SET_BY_LOAN, code: 'set_by_loan' }]);
+  if (from !== 'on_loan') return;
+  const [away] = await db().query<{ n: number }>(
+    `SELECT count(*)::int AS n FROM loan_objects o JOIN loans l ON l.id = o.loan_id
+      WHERE o.print_id = $1 AND l.direction = 'out' AND l.status IN ('in_transit', 'on_loan')`,
+    { bind: [id], type: QueryTypes.SELECT, transaction: t },
+  );
+  if (away.n > 0) throw validationFailed([{ path: 'status', message: SET_BY_LOAN, code: 'set_by_loan' }]);
+}
+
+/**
+ * A movement made by a loan, inside the loan's transaction: the print goes to `toLocationId` with the
+ * given status, the movement is recorded and the print's history shows it (`print.moved`).
+ */
+export async function moveForLoan(
+  id: string, toLocationId: string, status: string, reason: string, actor: Actor, requestId: string | null, t: Transaction,
+) {
+  const row = await Print.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
+  if (!row) throw notFound('The print');
+  const before = await loadPrint(id, t);
+  const to = await Location.findByPk(toLocationId, { transaction: t });
+  if (!to) throw notFound('The location');
+  if (before.locationId !== to.id) {
+    await Movement.create({ printId: id, fromLocationId: before.locationId, toLocationId: to.id, movedBy: actor.id, movedByName: actor.name, reason }, { transaction: t });
+  }
+  await Print.update({ locationId: to.id, status, version: before.version + 1 }, { where: { id }, transaction: t });
+  await recordAudit(
+    {
+      actor, action: 'print.moved', entityType: 'print', entityId: id,
+      before: { location: before.location?.pathLabel ?? null, status: before.status }, after: { location: to.pathLabel, status, reason }, requestId,
+    },
+    t,
+  );
 }
 
 export async function deletePrint(id: string, version: number, actor: Actor, requestId: string | null) {

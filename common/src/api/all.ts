@@ -4,6 +4,7 @@ import { conditionSettingsApi, conditionTermsApi, reportsApi } from './condition
 import { devMailApi } from './dev-mail';
 import { fixityApi, imagesApi } from './images';
 import { importsApi } from './imports';
+import { loansApi } from './loans';
 import { measurementSettingsApi, measurementsApi } from './measurements';
 import { printsApi } from './prints';
 import { catalogueSettingsApi, enclosuresApi, locationsApi, makersApi, papersApi, recipesApi } from './reference';
@@ -14,5 +15,5 @@ import { auditApi, meApi, usersApi } from './users';
 export const allContracts: Record<string, Contract> = {
   systemApi, authApi, meApi, usersApi, auditApi, devMailApi, printsApi, importsApi, makersApi, papersApi, recipesApi, enclosuresApi,
   locationsApi, catalogueSettingsApi, imagesApi, fixityApi, conditionSettingsApi, conditionTermsApi, reportsApi, measurementSettingsApi,
-  measurementsApi,
+  measurementsApi, loansApi,
 };

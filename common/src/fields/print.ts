@@ -153,6 +153,12 @@ export const PRINT_FIELDS = [
     importNote: 'Computed; ignored on import.',
   },
   {
+    key: 'borrowed', label: 'Borrowed', column: 'borrowed', read: R, origin: 'system', type: { kind: 'yes_no' }, required: false, default: null,
+    output: z.boolean(), example: 'no',
+    description: 'Lent to the collection by another institution (a loan in), not part of it; the catalogue list hides it unless asked.',
+    importNote: 'Kept by the server (set when a print is recorded on a loan in); ignored on import.',
+  },
+  {
     key: 'id', label: 'Record id', column: 'id', read: R, origin: 'system', type: { kind: 'id' }, required: false, default: null,
     output: id, list: true, example: '11111111-2222-4333-8444-555555555555',
     description: "The record's id in Toneledger (used in its web address).",

@@ -182,6 +182,8 @@ export const printListQuerySchema = pageQuerySchema.extend({
   hasWarnings: z.enum(['true', 'false']).optional(),
   madeFrom: z.coerce.number().int().min(1800).max(2200).optional().describe('Year: made no earlier than'),
   madeTo: z.coerce.number().int().min(1800).max(2200).optional().describe('Year: made no later than'),
+  /** The collection's own prints (the default), prints lent to it on a loan in, or both. */
+  holding: z.enum(['collection', 'borrowed', 'all']).default('collection').describe('collection (default): borrowed prints hidden; borrowed: only those; all'),
 });
 export type PrintListQuery = z.infer<typeof printListQuerySchema>;
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { loanConditionsOutputSchema } from './loans';
 import { id, isoDate } from './primitives';
 
 /** Contexts in which a print's condition is checked. */
@@ -80,6 +81,8 @@ export const reportInputSchema = z.object({
   recommendations: optionalText(10000),
   nextCheckOn: isoDate.nullable().optional(),
   observations: z.array(observationInputSchema).max(200).default([]),
+  /** The loan the report is made for (outgoing, incoming or returning); the print must be on it. */
+  loanId: z.preprocess((v) => (v === '' ? null : v), id.nullable()).optional(),
 });
 export type ReportInput = z.infer<typeof reportInputSchema>;
 /** A partial edit: fields left out stay as they are (observations too: no default here, unlike on create). */
@@ -90,12 +93,23 @@ export const reportUpdateSchema = reportInputSchema
 export const addendumInputSchema = z.object({ text: z.string().trim().min(1, 'Write the correction or addition').max(10000) });
 export const addendumSchema = z.object({ id, writtenAt: z.string().datetime(), authorName: z.string(), text: z.string() });
 
+/** What a condition report made for a loan prints: who lends, who borrows, where, when, and the agreed conditions. */
+export const reportLoanSchema = z.object({
+  id, reference: z.string(), direction: z.enum(['out', 'in']), otherInstitution: z.string(), venue: z.string().nullable(),
+  lender: z.string(), borrower: z.string(),
+  dispatchOn: isoDate.nullable(), opensOn: isoDate.nullable(), closesOn: isoDate.nullable(), returnOn: isoDate.nullable(),
+  conditions: loanConditionsOutputSchema,
+});
+export type ReportLoan = z.infer<typeof reportLoanSchema>;
+
 export const reportSchema = z.object({
   id, printId: id, accessionNumber: z.string(), printTitle: z.string(),
   examinedOn: isoDate, examinerId: id.nullable(), examinerName: z.string(), context: z.enum(CONDITION_CONTEXTS), grade: z.enum(GRADES).nullable(),
   summary: z.string().nullable(), recommendations: z.string().nullable(), nextCheckOn: isoDate.nullable(),
   status: z.enum(['draft', 'signed']), signedAt: z.string().datetime().nullable(),
   observations: z.array(observationSchema), addenda: z.array(addendumSchema),
+  /** The loan the report was made for, with what the printed loan report fills in; null for any other report. */
+  loan: reportLoanSchema.nullable(),
   version: z.number().int(), createdAt: z.string().datetime(), updatedAt: z.string().datetime(),
 });
 export type ConditionReport = z.infer<typeof reportSchema>;

@@ -150,16 +150,19 @@ export const loanStatusChangeSchema = z.object({
   by: userRef.nullable(), at: z.string().datetime(),
 });
 
+/** The conditions as a loan answers them (every key present). */
+export const loanConditionsOutputSchema = z.object({
+  maxLux: z.number().nullable(), maxAnnualLuxHours: z.number().nullable(), temperatureMinC: z.number().nullable(),
+  temperatureMaxC: z.number().nullable(), rhMinPercent: z.number().nullable(), rhMaxPercent: z.number().nullable(),
+  noAlkalineBufferedMounts: z.boolean(), other: z.string().nullable(),
+});
+
 export const loanSchema = z.object({
   id, direction: z.enum(LOAN_DIRECTIONS), reference: z.string(), otherInstitution: z.string(),
   contactName: z.string().nullable(), contactEmail: z.string().nullable(), purpose: z.enum(LOAN_PURPOSES),
   exhibition: z.object({ id, title: z.string() }).nullable(), venue: z.string().nullable(),
   dispatchOn: isoDate.nullable(), opensOn: isoDate.nullable(), closesOn: isoDate.nullable(), returnOn: isoDate.nullable(),
-  courier: z.string().nullable(), conditions: z.object({
-    maxLux: z.number().nullable(), maxAnnualLuxHours: z.number().nullable(), temperatureMinC: z.number().nullable(),
-    temperatureMaxC: z.number().nullable(), rhMinPercent: z.number().nullable(), rhMaxPercent: z.number().nullable(),
-    noAlkalineBufferedMounts: z.boolean(), other: z.string().nullable(),
-  }),
+  courier: z.string().nullable(), conditions: loanConditionsOutputSchema,
   creditLine: z.string().nullable(), notes: z.string().nullable(),
   status: z.enum(LOAN_STATUSES), objectCount: z.number().int(),
   version: z.number().int(), createdAt: z.string().datetime(), updatedAt: z.string().datetime(),
