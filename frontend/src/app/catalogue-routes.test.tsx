@@ -26,12 +26,12 @@ describe('catalogue area', () => {
   it('opens the print list with the sub-navigation a registrar may use', async () => {
     signedIn('registrar', '/catalogue');
     expect(await screen.findByRole('heading', { level: 1, name: 'Prints' })).toBeTruthy();
-    expect(await sections()).toEqual(['Prints', 'Import', 'Makers', 'Papers', 'Bath recipes', 'Locations', 'Enclosures', 'Data dictionary']);
+    expect(await sections()).toEqual(['Prints', 'Import', 'Makers', 'Papers', 'Bath recipes', 'Locations', 'Enclosures', 'Data dictionary', 'Light budgets']);
   });
 
   it('shows an administrator the settings as well', async () => {
     signedIn('admin', '/catalogue');
-    expect(await sections()).toEqual(['Prints', 'Import', 'Makers', 'Papers', 'Bath recipes', 'Locations', 'Enclosures', 'Data dictionary', 'Settings']);
+    expect(await sections()).toEqual(['Prints', 'Import', 'Makers', 'Papers', 'Bath recipes', 'Locations', 'Enclosures', 'Data dictionary', 'Light budgets', 'Settings']);
   });
 
   it('gives a viewer neither Import nor Locations', async () => {
@@ -50,6 +50,8 @@ describe('catalogue area', () => {
     ['researcher', '/catalogue/prints/new'],
     ['viewer', '/catalogue/locations'],
     ['registrar', '/catalogue/settings'],
+    ['viewer', '/catalogue/light-budgets'],
+    ['viewer', '/catalogue/light-settings'],
   ] as const)('refuses a %s at %s without asking for its data', async (role, path) => {
     const { requests } = signedIn(role, path);
     expect(await screen.findByRole('heading', { name: 'Not allowed' })).toBeTruthy();

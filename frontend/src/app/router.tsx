@@ -73,7 +73,16 @@ function catalogueRoute(area: Area): RouteObject {
           what: 'Adding prints',
         }),
       },
-      { path: 'prints/:id', lazy: page(() => import('@/features/catalogue/routes/print-page').then((m) => m.PrintPage)) },
+      {
+        // The print page with the panels other features add to it (composed here, not in the catalogue).
+        path: 'prints/:id',
+        lazy: page(() =>
+          Promise.all([import('@/features/catalogue/routes/print-page'), import('@/features/light/components/light-panel')]).then(
+            ([{ PrintPage }, { LightPanel }]) =>
+              () => <PrintPage panels={[LightPanel]} />,
+          ),
+        ),
+      },
       {
         path: 'prints/:id/edit',
         lazy: page(() => import('@/features/catalogue/routes/print-edit-page').then((m) => m.PrintEditPage), {
@@ -113,6 +122,20 @@ function catalogueRoute(area: Area): RouteObject {
         lazy: page(() => import('@/features/reference/routes/catalogue-settings-page').then((m) => m.CatalogueSettingsPage), {
           permission: 'settings.manage',
           what: 'Catalogue settings',
+        }),
+      },
+      {
+        path: 'light-budgets',
+        lazy: page(() => import('@/features/light/routes/light-budgets-page').then((m) => m.LightBudgetsPage), {
+          permission: 'light.read',
+          what: 'Light budgets',
+        }),
+      },
+      {
+        path: 'light-settings',
+        lazy: page(() => import('@/features/light/routes/light-settings-page').then((m) => m.LightSettingsPage), {
+          permission: 'light.read',
+          what: 'Light settings',
         }),
       },
       { path: '*', Component: NotFoundPage },

@@ -19,6 +19,7 @@ export const CATALOGUE_SECTIONS: Item[] = [
   { to: '/catalogue/locations', label: 'Locations', permission: 'catalogue.read_restricted' },
   { to: '/catalogue/enclosures', label: 'Enclosures' },
   { to: '/catalogue/fields', label: 'Data dictionary' },
+  { to: '/catalogue/light-budgets', label: 'Light budgets', permission: 'light.read' },
   { to: '/catalogue/settings', label: 'Settings', permission: 'settings.manage' },
 ];
 

@@ -1,4 +1,4 @@
-import { useId, type ReactNode } from 'react';
+import { useId, type ComponentType, type ReactNode } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { can } from '@toneledger/common/domain/roles';
 import type { Print } from '@toneledger/common/schemas/catalogue';
@@ -85,7 +85,13 @@ function formatMoney(amount: number, currency: string | null | undefined): strin
   return `${new Intl.NumberFormat('en-GB').format(amount)}${currency ? ` ${currency}` : ''}`;
 }
 
-function PrintView({ print }: { print: Print }) {
+/**
+ * A panel another feature adds to the print page (the light dose). The app composes them in its
+ * router, so the catalogue never imports another feature; each panel decides who may see it.
+ */
+export type PrintPagePanel = ComponentType<{ printId: string }>;
+
+function PrintView({ print, panels }: { print: Print; panels: readonly PrintPagePanel[] }) {
   const me = useMe();
   const mayWrite = can(me.role, 'catalogue.write');
   const restricted = can(me.role, 'catalogue.read_restricted');
@@ -160,6 +166,9 @@ function PrintView({ print }: { print: Print }) {
               </div>
             </Panel>
           ) : null}
+          {panels.map((Extra, i) => (
+            <Extra key={i} printId={print.id} />
+          ))}
         </div>
         <div className="flex min-w-0 flex-col gap-5">
           <WarningsPanel warnings={print.warnings} />
@@ -172,7 +181,7 @@ function PrintView({ print }: { print: Print }) {
   );
 }
 
-export function PrintPage() {
+export function PrintPage({ panels = [] }: { panels?: readonly PrintPagePanel[] }) {
   const { id = '' } = useParams();
   const print = usePrint(id);
   useDocumentTitle(print.data ? `${print.data.accessionNumber} ${print.data.title}` : 'Print');
@@ -191,5 +200,5 @@ export function PrintPage() {
       </section>
     );
   }
-  return <PrintView print={print.data} />;
+  return <PrintView print={print.data} panels={panels} />;
 }
