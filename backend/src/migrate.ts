@@ -38,7 +38,18 @@ export function migrator(sequelize: Sequelize, log: (msg: string) => void = () =
   });
 }
 
+/** The advisory lock migrations run under (pg_advisory_xact_lock key; the others live beside their use). */
+const MIGRATION_LOCK = 727000;
+
+/**
+ * Applies every pending migration. Servers started together (several behind a load balancer) migrate
+ * one at a time: a transaction of its own holds an advisory lock while the migrations run on other
+ * connections, so a second server waits, then finds nothing left to do.
+ */
 export async function migrateUp(sequelize: Sequelize, log?: (msg: string) => void): Promise<string[]> {
-  const done = await migrator(sequelize, log).up();
-  return done.map((m) => m.name);
+  return sequelize.transaction(async (lock) => {
+    await sequelize.query('SELECT pg_advisory_xact_lock(:key)', { replacements: { key: MIGRATION_LOCK }, transaction: lock });
+    const done = await migrator(sequelize, log).up();
+    return done.map((m) => m.name);
+  });
 }

@@ -51,9 +51,10 @@ class Jar {
 
 /**
  * Signs in through the real flow: the app's /auth/login, the identity provider's own login page
- * and consent, and back to /auth/callback. Returns the app's session cookie header.
+ * and consent, and back to /auth/callback. Returns the app's session cookie header. `app` is the app
+ * in this process or the base URL of a running server (then the whole flow goes to that server).
  */
-export async function signIn(app: Express, email: string, password: string): Promise<string> {
+export async function signIn(app: Express | string, email: string, password: string): Promise<string> {
   const appJar = new Jar();
   const idpJar = new Jar();
   const issuer = new URL(env().OIDC_ISSUER);

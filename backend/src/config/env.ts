@@ -20,7 +20,8 @@ const envSchema = z
     STATIC_DIR: z.string().optional(),
 
     DATABASE_URL: z.string().min(1, 'DATABASE_URL is required'),
-    DATABASE_POOL_MAX: z.coerce.number().int().min(1).default(10),
+    // Two at least: migrations run on one connection while another holds their advisory lock.
+    DATABASE_POOL_MAX: z.coerce.number().int().min(2, 'DATABASE_POOL_MAX must be at least 2').default(10),
 
     S3_ENDPOINT: z.string().url().optional(),
     S3_REGION: z.string().default('us-east-1'),

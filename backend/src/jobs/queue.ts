@@ -21,10 +21,26 @@ export async function startQueue(connectionString: string, logger: Logger): Prom
   const boss = new PgBoss({ connectionString, schema: 'pgboss', max: 4 });
   boss.on('error', (err) => logger.error({ err }, 'job queue error'));
   await boss.start();
-  for (const q of Object.values(QUEUES)) await boss.createQueue(q);
+  for (const q of Object.values(QUEUES)) await createQueueOnce(boss, q);
   return {
     boss,
     send: (name, data) => boss.send(name, data, { retryLimit: 3, retryDelay: 5, retryBackoff: true }),
     stop: () => boss.stop({ graceful: true, wait: true, timeout: 10_000 }),
   };
+}
+
+/**
+ * Creating a queue does nothing when it exists, but servers started together on a new database
+ * create the same queue at the same moment and PostgreSQL may end one of them as a deadlock victim
+ * (40P01): that one tries again and finds the queue made.
+ */
+async function createQueueOnce(boss: PgBoss, name: QueueName): Promise<void> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      await boss.createQueue(name);
+      return;
+    } catch (err) {
+      if ((err as { code?: string }).code !== '40P01' || attempt >= 5) throw err;
+    }
+  }
 }
