@@ -37,6 +37,7 @@ export function makePrint(overrides: Partial<Print> = {}): Print {
     paper: { id: PAPER_ID, label: 'Harbourline Velvet Fibre' },
     inscriptions: null, provenance: 'Gift of the maker, 1987', creditLine: null,
     status: 'in_store',
+    borrowed: false,
     enclosure: { id: UNBUFFERED_ID, name: 'Plain sleeve', alkalineBuffered: false, patResult: 'passed' },
     lightResponsivity: 'medium',
     tonerClasses: [],

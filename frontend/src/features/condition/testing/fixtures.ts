@@ -23,7 +23,7 @@ export function makePrint(overrides: Partial<Print> = {}): Print {
     id: PRINT_ID, accessionNumber: '1987.14.3', title: 'Harbour wall, low tide', maker: null, dateMade: null, dateDisplay: null, dateEarliest: null,
     dateLatest: null, imageWidthMm: null, imageHeightMm: null, sheetWidthMm: null, sheetHeightMm: null, mountWidthMm: null, mountHeightMm: null,
     process: 'gelatin_silver_developing_out', support: 'fibre_baryta', paper: null, inscriptions: null, provenance: null, creditLine: null,
-    status: 'in_store', enclosure: null, lightResponsivity: null, tonerClasses: ['iron_blue'],
+    status: 'in_store', borrowed: false, enclosure: null, lightResponsivity: null, tonerClasses: ['iron_blue'],
     warnings: [{ code: 'prussian_blue_in_buffered_enclosure', severity: 'high', message: 'Iron blue in a buffered enclosure.', basis: 'Guidance.' }],
     steps: [], version: 3, createdAt: '2024-01-01T10:00:00.000Z', updatedAt: '2024-06-01T10:00:00.000Z', ...overrides,
   };
@@ -70,7 +70,7 @@ export function makeReport(overrides: Partial<ConditionReport> = {}): ConditionR
   return {
     id: REPORT_ID, printId: PRINT_ID, accessionNumber: '1987.14.3', printTitle: 'Harbour wall, low tide', examinedOn: '2024-03-12',
     examinerId: ME_ID, examinerName: 'Iris Penhale', context: 'routine', grade: 'fair', summary: 'Slight mirroring at the upper margin.',
-    recommendations: null, nextCheckOn: null, status: 'draft', signedAt: null, observations: [makeObservation()], addenda: [], version: 2,
+    recommendations: null, nextCheckOn: null, status: 'draft', signedAt: null, observations: [makeObservation()], addenda: [], loan: null, version: 2,
     createdAt: '2024-03-12T10:00:00.000Z', updatedAt: '2024-03-12T10:00:00.000Z', ...overrides,
   };
 }

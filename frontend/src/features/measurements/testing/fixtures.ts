@@ -30,6 +30,7 @@ export function makePrint(overrides: Partial<Print> = {}): Print {
     paper: null,
     inscriptions: null, provenance: null, creditLine: null,
     status: 'in_store',
+    borrowed: false,
     enclosure: null,
     lightResponsivity: 'medium',
     tonerClasses: ['iron_blue'],
