@@ -7,3 +7,9 @@ export interface CurrentUser {
   email: string | null;
   role: Role;
 }
+
+/** What the server reads of the signed-in user on each request (with the session, in one query). */
+export interface SignedInUser extends CurrentUser {
+  createdAt: Date;
+  lastSignInAt: Date | null;
+}

@@ -3,7 +3,8 @@ import type { Role } from '@toneledger/common/domain/roles';
 import type { Me, User as UserDto, UserListQuery } from '@toneledger/common/schemas/users';
 import { db } from '../db';
 import { User } from '../models';
-import { conflict, notFound, unauthenticated } from '../errors';
+import { conflict, notFound } from '../errors';
+import type { SignedInUser } from '../auth/current-user';
 import { recordAudit, type AuditActor } from './audit.service';
 import { presentMe, presentUser } from '../presenters/user.presenter';
 
@@ -73,11 +74,12 @@ export async function findUser(id: string): Promise<User | null> {
   return User.findByPk(id);
 }
 
-/** The signed-in user as they see themselves: role, permissions, when the session ends (401 if the row is gone). */
-export async function getMe(id: string, sessionExpiresAt: Date, environment: Me['environment']): Promise<Me> {
-  const found = await findUser(id);
-  if (!found) throw unauthenticated();
-  return presentMe(found, sessionExpiresAt, environment);
+/**
+ * The signed-in user as they see themselves: role, permissions, when the session ends. `user` is
+ * the row read on this request with the session (auth/session.ts), so there is no second read.
+ */
+export function getMe(user: SignedInUser, sessionExpiresAt: Date, environment: Me['environment']): Me {
+  return presentMe(user, sessionExpiresAt, environment);
 }
 
 const SORTS: Record<string, [string, 'ASC' | 'DESC']> = {

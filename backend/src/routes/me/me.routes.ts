@@ -6,6 +6,7 @@ import type { AppDeps } from '../../deps';
 
 export function meRoutes(deps: AppDeps): RouteDef[] {
   return implement(meApi, {
-    get: ({ actor, req }) => getMe(actor.id, sessionExpiresAt(req, deps.env), deps.env.NODE_ENV).then((data) => ({ data })),
+    // req.user is the actor, with the columns GET /api/me shows, read with the session on this request.
+    get: ({ req }) => ({ data: getMe(req.user!, sessionExpiresAt(req, deps.env), deps.env.NODE_ENV) }),
   });
 }

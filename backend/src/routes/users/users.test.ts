@@ -108,6 +108,27 @@ describe('PATCH /api/users/:id/role', () => {
     expect(audit?.actorName).toBe((await User.findOne({ where: { role: 'admin', subject: 'demo-admin' } }))!.name);
   });
 
+  it('a demoted user loses access on their very next request, and a promotion applies as soon (no role kept between requests)', async () => {
+    const registrar = (await supertest(t.app).get('/api/me').set('Cookie', cookies.registrar)).body.data;
+    expect(registrar.role).toBe('registrar');
+    // An empty body: the access check passes (400, validation) for a registrar and refuses (403) otherwise; nothing is written.
+    const createMaker = () => supertest(t.app).post('/api/makers').set('Origin', t.origin).set('Cookie', cookies.registrar).send({});
+    expect((await createMaker()).status).toBe(400);
+    try {
+      expect((await patch(registrar.id, { role: 'viewer', reason: 'moved to the reading room' }, cookies.admin)).status).toBe(200);
+      const refused = await createMaker();
+      expect(refused.status).toBe(403);
+      expect(refused.body.error.code).toBe('forbidden');
+      const me = await supertest(t.app).get('/api/me').set('Cookie', cookies.registrar);
+      expect(me.body.data.role).toBe('viewer');
+      expect(me.body.data.permissions).not.toContain('catalogue.write');
+    } finally {
+      expect((await patch(registrar.id, { role: 'registrar', reason: 'back to the registry' }, cookies.admin)).status).toBe(200);
+    }
+    expect((await createMaker()).status).toBe(400);
+    expect((await supertest(t.app).get('/api/me').set('Cookie', cookies.registrar)).body.data.role).toBe('registrar');
+  });
+
   it('refuses to remove the last administrator (409) and changes nothing', async () => {
     const me = (await supertest(t.app).get('/api/me').set('Cookie', cookies.admin)).body.data;
     const others = await User.findAll({ where: { role: 'admin', id: { [Op.ne]: me.id } } });
