@@ -45,8 +45,8 @@ describe('roles and permissions', () => {
 });
 
 describe('areas by role', () => {
-  it('shows a viewer only the catalogue', () => {
-    expect(areasFor('viewer').map((a) => a.id)).toEqual(['catalogue']);
+  it('shows a viewer the catalogue, loans and exhibitions (read only)', () => {
+    expect(areasFor('viewer').map((a) => a.id)).toEqual(['catalogue', 'loans', 'exhibitions']);
     expect(areasFor('viewer', ADMIN_AREAS)).toEqual([]);
   });
 

@@ -19,11 +19,11 @@ function navLinks(role: Role, environment: 'development' | 'test' | 'production'
 describe('MainNav', () => {
   // Written out by hand from the product's role table, so a change to the permissions shows up here.
   const expected: Record<Role, string[]> = {
-    admin: ['Catalogue', 'Condition', 'Measurements', 'Inspections', 'Research', 'People and roles', 'Audit trail', 'Outgoing mail'],
-    registrar: ['Catalogue', 'Condition', 'Measurements', 'Inspections'],
-    conservator: ['Catalogue', 'Condition', 'Measurements', 'Inspections', 'Research'],
-    researcher: ['Catalogue', 'Condition', 'Measurements', 'Inspections', 'Research'],
-    viewer: ['Catalogue'],
+    admin: ['Catalogue', 'Condition', 'Measurements', 'Loans', 'Exhibitions', 'Inspections', 'Research', 'People and roles', 'Audit trail', 'Outgoing mail'],
+    registrar: ['Catalogue', 'Condition', 'Measurements', 'Loans', 'Exhibitions', 'Inspections'],
+    conservator: ['Catalogue', 'Condition', 'Measurements', 'Loans', 'Exhibitions', 'Inspections', 'Research'],
+    researcher: ['Catalogue', 'Condition', 'Measurements', 'Loans', 'Exhibitions', 'Inspections', 'Research'],
+    viewer: ['Catalogue', 'Loans', 'Exhibitions'],
   };
 
   it.each(ROLES)('shows a %s only the areas the role opens', (role) => {

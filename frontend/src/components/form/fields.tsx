@@ -100,3 +100,40 @@ export function useFieldError(name: string): string | undefined {
   const node = get(errors, name) as { message?: string; root?: { message?: string } } | undefined;
   return node?.message ?? node?.root?.message;
 }
+
+export interface CheckboxInputProps extends Omit<Common, 'liveError'>, Native<InputHTMLAttributes<HTMLInputElement>> {}
+
+/** A yes/no box bound to a schema form (the form holds a boolean), with its label beside it. */
+export function CheckboxInput({ name, id, label, hint, fieldClassName = '', ...rest }: CheckboxInputProps) {
+  const setup = useFieldSetup(name);
+  const { field, fieldState } = useController({ name });
+  const controlId = id ?? setup.id;
+  const error = fieldState.error?.message;
+  return (
+    <div className={`flex flex-col gap-0.5 ${fieldClassName}`}>
+      <label htmlFor={controlId} className="inline-flex items-center gap-2 text-sm">
+        <input
+          {...rest}
+          id={controlId}
+          type="checkbox"
+          name={field.name}
+          checked={field.value === true}
+          onChange={(event) => field.onChange(event.target.checked)}
+          onBlur={field.onBlur}
+          aria-invalid={error ? true : undefined}
+          aria-describedby={error ? `${controlId}-error` : hint ? `${controlId}-hint` : undefined}
+        />
+        {label}
+      </label>
+      {error ? (
+        <p id={`${controlId}-error`} className="text-xs font-medium text-danger-700">
+          {error}
+        </p>
+      ) : hint ? (
+        <p id={`${controlId}-hint`} className="text-xs text-ink-600">
+          {hint}
+        </p>
+      ) : null}
+    </div>
+  );
+}
