@@ -214,6 +214,21 @@ function measurementsRoute(area: Area): RouteObject {
   };
 }
 
+/** Loans: everyone reads them (values need `valuation.read`); registrars and administrators manage them. */
+function loansRoute(area: Area): RouteObject {
+  const WRITE_LOANS = { permission: 'loans.write', what: 'Managing loans' } as const;
+  return {
+    path: area.path,
+    children: [
+      { index: true, lazy: inArea(area, () => import('@/features/loans/routes/loans-page').then((m) => m.LoansPage)) },
+      { path: 'new', lazy: page(() => import('@/features/loans/routes/loan-form-pages').then((m) => m.LoanCreatePage), WRITE_LOANS) },
+      { path: ':id', lazy: inArea(area, () => import('@/features/loans/routes/loan-page').then((m) => m.LoanPage)) },
+      { path: ':id/edit', lazy: page(() => import('@/features/loans/routes/loan-form-pages').then((m) => m.LoanEditPage), WRITE_LOANS) },
+      { path: '*', Component: NotFoundPage },
+    ],
+  };
+}
+
 function PlainErrorPage() {
   return (
     <PlainPage>
@@ -221,6 +236,14 @@ function PlainErrorPage() {
     </PlainPage>
   );
 }
+
+/** Areas with screens of their own (the others show the "not built yet" page or a single screen). */
+const AREA_ROUTES: Record<string, (area: Area) => RouteObject> = {
+  catalogue: catalogueRoute,
+  condition: conditionRoute,
+  measurements: measurementsRoute,
+  loans: loansRoute,
+};
 
 export const routes: RouteObject[] = [
   {
@@ -239,7 +262,7 @@ export const routes: RouteObject[] = [
         errorElement: <ErrorPage />,
         children: [
           { index: true, lazy: () => import('@/app/routes/home-page').then((m) => ({ Component: m.HomePage })) },
-          ...AREAS.map((area) => (area.id === 'catalogue' ? catalogueRoute(area) : area.id === 'condition' ? conditionRoute(area) : area.id === 'measurements' ? measurementsRoute(area) : areaRoute(area))),
+          ...AREAS.map((area) => (AREA_ROUTES[area.id] ?? areaRoute)(area)),
           ...ADMIN_AREAS.map(areaRoute),
           { path: '*', Component: NotFoundPage },
         ],
