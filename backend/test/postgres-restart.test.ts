@@ -24,20 +24,37 @@ let t: TestApp | undefined;
 let server: Server | undefined;
 let base = '';
 let cookie = '';
+let registrarCookie = '';
 const jobsDone = new Set<number>();
 let jobNo = 0;
 const uncaught: unknown[] = [];
 const recordUncaught = (err: unknown) => uncaught.push(err);
 
-async function get(url: string, withSession: boolean): Promise<{ status: number; body: { error?: { message?: string } } | null }> {
+interface Answer {
+  status: number;
+  body: { error?: { code?: string; message?: string; status?: number } } | null;
+  retryAfter: string | null;
+}
+
+async function get(url: string, withSession: boolean): Promise<Answer> {
+  return send('GET', url, withSession ? cookie : null);
+}
+
+async function send(method: string, url: string, session: string | null, body?: unknown): Promise<Answer> {
   try {
-    const res = await fetch(base + url, { headers: withSession ? { cookie } : {}, signal: AbortSignal.timeout(3_000) });
-    const body = (await res.json().catch(() => null)) as { error?: { message?: string } } | null;
-    return { status: res.status, body };
+    const headers: Record<string, string> = session ? { cookie: session } : {};
+    if (body !== undefined) Object.assign(headers, { 'content-type': 'application/json', origin: t!.origin });
+    const res = await fetch(base + url, { method, headers, body: body === undefined ? undefined : JSON.stringify(body), signal: AbortSignal.timeout(3_000) });
+    const json = (await res.json().catch(() => null)) as Answer['body'];
+    return { status: res.status, body: json, retryAfter: res.headers.get('retry-after') };
   } catch {
-    return { status: 0, body: null }; // no answer at all
+    return { status: 0, body: null, retryAfter: null }; // no answer at all
   }
 }
+
+/** A signed-in write: the registrar records a maker. */
+let makerNo = 0;
+const createMaker = () => send('POST', '/api/makers', registrarCookie, { name: `Restart probe maker ${process.pid}-${++makerNo}` });
 
 /** Sends a probe job and waits (at most `ms`) for the app's worker to run it. */
 async function jobRuns(ms: number): Promise<boolean> {
@@ -101,6 +118,9 @@ beforeAll(async () => {
   const { migrateUp } = await import('../src/migrate');
   const { db } = await import('../src/db');
   await migrateUp(db());
+  // The demo accounts, as on the shared test database: each signs in with its own role.
+  const { seedDemoIfEmpty } = await import('../src/seed/demo');
+  await seedDemoIfEmpty(db(), { catalogue: false });
   const { startQueue } = await import('../src/jobs/queue');
   queue = await startQueue(cluster.url, pino({ level: 'silent' }));
   await queue.boss.createQueue(PROBE_QUEUE);
@@ -112,6 +132,8 @@ beforeAll(async () => {
   const { DEMO_ACCOUNTS } = await import('../src/seed/demo-accounts');
   const viewer = DEMO_ACCOUNTS.find((a) => a.role === 'viewer')!;
   cookie = await signIn(t.app, viewer.email, viewer.password);
+  const registrar = DEMO_ACCOUNTS.find((a) => a.role === 'registrar')!;
+  registrarCookie = await signIn(t.app, registrar.email, registrar.password);
   server = await new Promise<Server>((resolve) => {
     const s = t!.app.listen(0, '127.0.0.1', () => resolve(s));
   });
@@ -149,7 +171,7 @@ describe('a PostgreSQL restart', () => {
     expect(server!.listening).toBe(true);
   }, 60_000);
 
-  it('while PostgreSQL is down health answers 503 naming it; after it starts again everything works within 5 s', async () => {
+  it('while PostgreSQL is down health, a signed-in list and a signed-in write answer 503 naming it; after it starts again everything works within 5 s', async () => {
     expect((await get('/api/prints?pageSize=5', true)).status).toBe(200);
     const stopTraffic = traffic();
     await cluster!.halt();
@@ -157,12 +179,19 @@ describe('a PostgreSQL restart', () => {
     const health = await get('/api/health', false);
     expect(health.status).toBe(503);
     expect(health.body?.error?.message).toMatch(/PostgreSQL/);
-    // The signed-in list cannot be answered, but it is answered (with an error), not dropped.
-    const list = await get('/api/prints?pageSize=5', true);
-    expect(list.status).toBeGreaterThanOrEqual(500);
+    // A signed-in list and a signed-in write cannot be done: both are answered 503 in the error
+    // envelope, naming the database, with a Retry-After (not 500, not dropped).
+    for (const answer of [await get('/api/prints?pageSize=5', true), await createMaker()]) {
+      expect(answer.status).toBe(503);
+      expect(answer.body?.error).toMatchObject({ code: 'service_unavailable', status: 503 });
+      expect(answer.body?.error?.message).toMatch(/PostgreSQL/);
+      expect(Number(answer.retryAfter)).toBeGreaterThan(0);
+    }
 
     await cluster!.resume();
     const recoveryMs = await recovered(RECOVERY_MS);
+    const written = await createMaker();
+    expect(written.status, JSON.stringify(written.body)).toBe(201);
     const requests = await stopTraffic();
     console.info(`[restart] after a stop and start: working again after ${recoveryMs} ms; ${requests} requests meanwhile`);
 

@@ -1,6 +1,6 @@
 import type { NextFunction, Request, Response } from 'express';
 import type { ErrorEnvelope } from '@toneledger/common/schemas/envelope';
-import { AppError } from '../errors';
+import { AppError, DATABASE_RETRY_AFTER_S, databaseUnavailable, isDatabaseUnavailable } from '../errors';
 import { idOf } from './request-id';
 
 interface HttpishError {
@@ -46,9 +46,14 @@ export function envelopeFor(err: AppError, requestId: string): ErrorEnvelope {
 }
 
 export function errorHandler(err: unknown, req: Request, res: Response, _next: NextFunction): void {
-  const known = err instanceof AppError ? err : fromLibrary(err as HttpishError);
+  // The database stopped or restarting (from a query, the session store or the job queue): 503, not 500.
+  const down = !(err instanceof AppError) && isDatabaseUnavailable(err);
+  const known = err instanceof AppError ? err : down ? databaseUnavailable() : fromLibrary(err as HttpishError);
   const appErr = known ?? new AppError('internal_error', 500, 'Something went wrong on the server. The request id identifies it in the log.');
-  if (!known || appErr.status >= 500) {
+  if (down) {
+    req.log?.warn({ err }, 'request failed: the database cannot be reached');
+    if (!res.headersSent) res.setHeader('Retry-After', String(DATABASE_RETRY_AFTER_S));
+  } else if (!known || appErr.status >= 500) {
     req.log?.error({ err }, 'request failed');
   } else {
     req.log?.info({ code: appErr.code, status: appErr.status }, 'request refused');
