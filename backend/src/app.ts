@@ -25,6 +25,8 @@ import { importsRoutes } from './routes/imports/imports.routes';
 import { imagesRoutes } from './routes/images/images.routes';
 import { conditionRoutes } from './routes/condition/condition.routes';
 import { measurementsRoutes } from './routes/measurements/measurements.routes';
+import { exhibitionsRoutes } from './routes/exhibitions/exhibitions.routes';
+import { lightRoutes } from './routes/light/light.routes';
 import { loansRoutes } from './routes/loans/loans.routes';
 
 /** Every route the app serves, in one list: Express mounts it and OpenAPI describes it. */
@@ -43,6 +45,8 @@ export function allRoutes(deps: AppDeps): RouteDef[] {
     ...imagesRoutes(deps),
     ...conditionRoutes(),
     ...measurementsRoutes(),
+    ...exhibitionsRoutes(),
+    ...lightRoutes(),
     ...loansRoutes(),
   ];
   return routes;

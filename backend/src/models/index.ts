@@ -4,12 +4,14 @@ import { initCatalogueModels } from './catalogue';
 import { initImageModels } from './images';
 import { initConditionModels } from './condition';
 import { initMeasurementModels } from './measurements';
+import { initExhibitionModels } from './exhibitions';
 import { initLoanModels } from './loans';
 
 export * from './catalogue';
 export * from './images';
 export * from './condition';
 export * from './measurements';
+export * from './exhibitions';
 export * from './loans';
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
@@ -74,5 +76,6 @@ export function initModels(sequelize: Sequelize): void {
   initImageModels(sequelize);
   initConditionModels(sequelize);
   initMeasurementModels(sequelize);
+  initExhibitionModels(sequelize);
   initLoanModels(sequelize);
 }

@@ -295,6 +295,17 @@ export async function printMeasurements(printId: string): Promise<PrintMeasureme
   };
 }
 
+/** Every spot of a print with its change against its baseline (for the light-cost fit in light.service.ts). */
+export async function printSpotChanges(printId: string, t?: Transaction) {
+  const [spots, sessions, settings] = await Promise.all([
+    printSpots(printId, t),
+    MeasurementSession.findAll({ where: { printId }, include: [{ model: SpotReading, as: 'readings' }], transaction: t }) as Promise<(MeasurementSession & { readings?: SpotReading[] })[]>,
+    getMeasurementSettings(t),
+  ]);
+  const histories = historiesBySpot(sessions);
+  return { threshold: settings.noticeableDeltaE, spots: spots.map((s) => analyseSpot(s, histories.get(s.id) ?? [], settings.noticeableDeltaE)) };
+}
+
 // ── CSV from an instrument: preview only (measurement-csv.service.ts) ──
 
 export { MAX_CSV_BYTES, previewCsv } from './measurement-csv.service';

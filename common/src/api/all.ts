@@ -2,8 +2,10 @@ import type { Contract } from './endpoint';
 import { authApi } from './auth';
 import { conditionSettingsApi, conditionTermsApi, reportsApi } from './condition';
 import { devMailApi } from './dev-mail';
+import { displaysApi, exhibitionsApi } from './exhibitions';
 import { fixityApi, imagesApi } from './images';
 import { importsApi } from './imports';
+import { lightApi, lightSettingsApi } from './light';
 import { loansApi } from './loans';
 import { measurementSettingsApi, measurementsApi } from './measurements';
 import { printsApi } from './prints';
@@ -15,5 +17,5 @@ import { auditApi, meApi, usersApi } from './users';
 export const allContracts: Record<string, Contract> = {
   systemApi, authApi, meApi, usersApi, auditApi, devMailApi, printsApi, importsApi, makersApi, papersApi, recipesApi, enclosuresApi,
   locationsApi, catalogueSettingsApi, imagesApi, fixityApi, conditionSettingsApi, conditionTermsApi, reportsApi, measurementSettingsApi,
-  measurementsApi, loansApi,
+  measurementsApi, exhibitionsApi, displaysApi, lightApi, lightSettingsApi, loansApi,
 };
