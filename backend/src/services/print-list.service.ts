@@ -1,4 +1,3 @@
-import { QueryTypes } from 'sequelize';
 import { can, type Role } from '@toneledger/common/domain/roles';
 import type { PrintListQuery, PrintListItem } from '@toneledger/common/schemas/catalogue';
 import { db } from '../db';
@@ -127,17 +126,35 @@ export function presentListRow(r: ListRow, restricted: boolean): PrintListItem {
   return item;
 }
 
+/**
+ * Runs one statement with pg's own query on a connection of Sequelize's pool (same type parsers,
+ * same pool). Sequelize's handling of a raw SELECT's rows costs a few milliseconds on a page of 50
+ * wide rows, more than the fixed cost of the whole request; the rows are the same plain objects.
+ */
+async function pgRows<T>(text: string, values: unknown[]): Promise<T[]> {
+  const manager = db().connectionManager as unknown as {
+    getConnection(): Promise<{ query(text: string, values: unknown[]): Promise<{ rows: T[] }> }>;
+    releaseConnection(connection: unknown): Promise<void>;
+  };
+  const connection = await manager.getConnection();
+  try {
+    return (await connection.query(text, values)).rows;
+  } finally {
+    await manager.releaseConnection(connection);
+  }
+}
+
 export async function listPrints(query: PrintListQuery, role: Role | null) {
   const sql = buildListSql(query, role);
   const [rows, count] = await Promise.all([
-    db().query<ListRow>(sql.select, { bind: sql.params, type: QueryTypes.SELECT }),
-    db().query<{ total: number }>(sql.count, { bind: sql.countParams, type: QueryTypes.SELECT }),
+    pgRows<ListRow>(sql.select, sql.params),
+    pgRows<{ total: number }>(sql.count, sql.countParams),
   ]);
   const restricted = can(role, 'catalogue.read_restricted');
   let total = count[0].total;
   let estimated = false;
   if (total > EXACT_COUNT_CAP) {
-    const [plan] = await db().query<{ 'QUERY PLAN': [{ Plan: { 'Plan Rows': number } }] }>(sql.estimate, { bind: sql.countParams, type: QueryTypes.SELECT });
+    const [plan] = await pgRows<{ 'QUERY PLAN': [{ Plan: { 'Plan Rows': number } }] }>(sql.estimate, sql.countParams);
     total = Math.max(EXACT_COUNT_CAP + 1, Math.round(plan['QUERY PLAN'][0].Plan['Plan Rows']));
     estimated = true;
   }
