@@ -130,7 +130,7 @@ export interface DisplayCost {
  * `threshold` (default DEFAULT_NOTICEABLE_DELTA_E, the project's setting).
  */
 export function predictDisplayCost(
-  fit: LightCostFit,
+  fit: Pick<LightCostFit, 'slopePerMlxh' | 'ci95'>,
   plannedLuxHours: number,
   currentDeltaE: number,
   threshold: number = DEFAULT_NOTICEABLE_DELTA_E,

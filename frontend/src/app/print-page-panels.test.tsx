@@ -20,6 +20,7 @@ function openPrint(role: Role) {
     [`GET /api/prints/${PRINT_ID}/history`]: () => json({ data: [] }),
     [`GET /api/prints/${PRINT_ID}/timeline`]: () => json({ data: [] }),
     [`GET /api/prints/${PRINT_ID}/light`]: () => json({ data: makePrintLight({ printId: PRINT_ID }) }),
+    'GET /api/settings/measurements': () => json({ data: { noticeableDeltaE: 2 } }),
   });
   renderRoutes(routes, { path: `/catalogue/prints/${PRINT_ID}` });
   return fetch;

@@ -1,5 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { catalogueSettingsApi } from '@toneledger/common/api/reference';
+import { measurementSettingsApi } from '@toneledger/common/api/measurements';
 import { callData } from '@/lib/api-client';
 
 /**
@@ -19,4 +20,23 @@ export function catalogueSettingsQueryOptions() {
 
 export function useCatalogueSettings() {
   return useQuery(catalogueSettingsQueryOptions());
+}
+
+/**
+ * The measurement settings (the ΔE00 taken as a noticeable change), read by the measurements
+ * screens and by the light panel (whether a planned display would reach it). One key and one query.
+ */
+export const measurementSettingsKey = ['settings', 'measurements'] as const;
+
+export function measurementSettingsQueryOptions() {
+  return queryOptions({
+    queryKey: measurementSettingsKey,
+    queryFn: ({ signal }) => callData(measurementSettingsApi.get, { signal }),
+    staleTime: 5 * 60_000,
+  });
+}
+
+/** `enabled: false` for a role that may not read them, so nothing is asked. */
+export function useMeasurementSettings(enabled = true) {
+  return useQuery({ ...measurementSettingsQueryOptions(), enabled });
 }

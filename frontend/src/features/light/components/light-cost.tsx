@@ -2,8 +2,9 @@ import { useId } from 'react';
 import { CartesianGrid, ComposedChart, Line, XAxis, YAxis } from 'recharts';
 import type { z } from 'zod';
 import type { lightCostSchema } from '@toneledger/common/schemas/light';
+import { predictDisplayCost } from '@toneledger/common/domain/light-cost';
 import { valueAxis } from '@/lib/chart-axis';
-import { formatDeltaE } from '@/features/light/utils/format';
+import { formatDeltaE, formatLuxHours } from '@/features/light/utils/format';
 
 type LightCost = z.infer<typeof lightCostSchema>;
 type CostFit = Extract<LightCost, { status: 'ok' }>;
@@ -49,8 +50,33 @@ function CostScatter({ cost, describedBy }: { cost: CostFit; describedBy: string
   );
 }
 
+/** A small change with the digits it needs: 0.00704 → "0.007", 0.8 → "0.80". */
+const formatChange = (n: number) => (Math.abs(n) < 0.1 ? n.toFixed(3) : n.toFixed(2));
+
+/**
+ * What the planned displays are expected to add (the fitted rate times their lux-hours), from the
+ * last measured ΔE00, and whether that reaches the noticeable change (when the threshold is known).
+ */
+export function plannedCostSentence(cost: CostFit, plannedLuxHours: number, threshold: number | null): string {
+  const last = cost.points.at(-1);
+  const current = last?.deltaE00 ?? 0;
+  const p = predictDisplayCost(cost, plannedLuxHours, current, threshold ?? undefined);
+  const added = `The planned displays (${formatLuxHours(plannedLuxHours)}) are expected to add ΔE00 ${formatChange(p.addedDeltaE)} (95 % interval ${formatChange(p.addedInterval[0])}–${formatChange(p.addedInterval[1])})`;
+  const from = last ? `; from ΔE00 ${formatChange(current)} measured on ${last.date}, that makes ${formatChange(p.expectedDeltaE)}` : '';
+  if (threshold === null) return `${added}${from}.`;
+  const limit = `the noticeable change of ΔE00 ${formatDeltaE(threshold)}`;
+  const verdict = p.alreadyOver
+    ? `already at or past ${limit}`
+    : p.crosses
+      ? `reaching ${limit}`
+      : p.mayCross
+        ? `below ${limit}, though the upper end of the interval reaches it`
+        : `below ${limit}`;
+  return `${added}${from}: ${verdict}.`;
+}
+
 /** What light has cost the print, from its measurements; or, honestly, why that cannot be said yet. */
-export function LightCostSection({ cost }: { cost: LightCost }) {
+export function LightCostSection({ cost, planned, threshold }: { cost: LightCost; planned: number; threshold: number | null }) {
   const sentenceId = useId();
   return (
     <div className="flex flex-col gap-2">
@@ -64,6 +90,7 @@ export function LightCostSection({ cost }: { cost: LightCost }) {
           <p id={sentenceId} className="num text-sm text-ink-900">
             {costSentence(cost)}
           </p>
+          {planned > 0 ? <p className="num text-sm text-ink-900">{plannedCostSentence(cost, planned, threshold)}</p> : null}
           <CostScatter cost={cost} describedBy={sentenceId} />
           <div className="text-xs text-ink-700">
             <p className="font-medium">Assumptions</p>

@@ -12,7 +12,7 @@ const LIGHT = `GET /api/prints/${PRINT_ID}/light`;
 const PUT = `PUT /api/prints/${PRINT_ID}/light-responsivity`;
 
 function show(role: Parameters<typeof makeMe>[0], light = makePrintLight(), extra: Parameters<typeof mockFetch>[0] = {}) {
-  const fetch = mockFetch({ [LIGHT]: () => json({ data: light }), ...extra });
+  const fetch = mockFetch({ [LIGHT]: () => json({ data: light }), 'GET /api/settings/measurements': () => json({ data: { noticeableDeltaE: 2 } }), ...extra });
   renderPage(<LightPanel printId={PRINT_ID} />, { path: `/catalogue/prints/${PRINT_ID}`, me: makeMe(role) });
   return fetch;
 }
@@ -57,6 +57,13 @@ describe('LightPanel', () => {
     show('researcher');
     expect(await screen.findByText('ΔE00 per million lux-hours: 0.80 (95 % interval 0.70–0.91, n = 5, spot B (sky))')).toBeTruthy();
     expect(screen.getByRole('img', { name: /ΔE00 against exposure in million lux-hours/ })).toBeTruthy();
+    // Hand arithmetic: 8,800 lx·h = 0.0088 Mlx·h; × 0.80 = 0.00704, × 0.70 = 0.00616, × 0.912 = 0.0080256;
+    // from the last measured 0.014 that makes 0.02104, far below the threshold of 2.
+    expect(
+      await screen.findByText(
+        'The planned displays (8,800 lx·h) are expected to add ΔE00 0.007 (95 % interval 0.006–0.008); from ΔE00 0.014 measured on 2026-05-04, that makes 0.021: below the noticeable change of ΔE00 2.00.',
+      ),
+    ).toBeTruthy();
     for (const assumption of LIGHT_COST_ASSUMPTIONS) expect(screen.getByText(assumption)).toBeTruthy();
     expect(screen.getByText(/Dark recovery of Prussian blue/)).toBeTruthy();
   });
@@ -135,7 +142,11 @@ describe('Change category', { timeout: 20_000 }, () => {
 
   it('sends "Use the default" as no category, with no reason needed', async () => {
     const overridden = makePrintLight({ category: 'medium', categorySource: 'override', overrideReason: 'Gold toned', overriddenBy: { id: '7a0e1b2c-3d4e-4f50-8a6b-7c8d9e0f1a2b', name: 'Orla Venn' } });
-    const { requests } = mockFetch({ [LIGHT]: () => json({ data: overridden }), [PUT]: () => json({ data: makePrintLight({ version: 4 }) }) });
+    const { requests } = mockFetch({
+      [LIGHT]: () => json({ data: overridden }),
+      [PUT]: () => json({ data: makePrintLight({ version: 4 }) }),
+      'GET /api/settings/measurements': () => json({ data: { noticeableDeltaE: 2 } }),
+    });
     renderPage(<LightPanel printId={PRINT_ID} />, { me: makeMe('conservator') });
     fireEvent.click(await screen.findByRole('button', { name: 'Change category' }));
     fireEvent.change(screen.getByLabelText('Category'), { target: { value: '' } });

@@ -5,6 +5,7 @@ import { Button } from '@/components/ui/button';
 import { Loading } from '@/components/ui/loading';
 import { ErrorNotice, Notice } from '@/components/ui/notice';
 import { useMe } from '@/lib/auth';
+import { useMeasurementSettings } from '@/lib/settings-api';
 import { usePrintLight } from '@/features/light/api/print-light';
 import { CategoryForm } from '@/features/light/components/category-form';
 import { DisplaysTable } from '@/features/light/components/displays-table';
@@ -26,7 +27,7 @@ function Heading({ children }: { children: ReactNode }) {
   return <h3 className="font-sans text-xs font-semibold tracking-wider text-ink-700 uppercase">{children}</h3>;
 }
 
-function LightFigures({ light, mayChange }: { light: PrintLight; mayChange: boolean }) {
+function LightFigures({ light, mayChange, threshold }: { light: PrintLight; mayChange: boolean; threshold: number | null }) {
   const [changing, setChanging] = useState(false);
   const [saved, setSaved] = useState(false);
   const chartNote = useId();
@@ -103,7 +104,7 @@ function LightFigures({ light, mayChange }: { light: PrintLight; mayChange: bool
         <DisplaysTable displays={light.displays} asOf={light.asOf} />
       </div>
 
-      <LightCostSection cost={light.cost} />
+      <LightCostSection cost={light.cost} planned={light.planned} threshold={threshold} />
     </div>
   );
 }
@@ -117,6 +118,9 @@ export function LightPanel({ printId }: { printId: string }) {
   const me = useMe();
   const mayRead = can(me.role, 'light.read');
   const light = usePrintLight(printId, mayRead);
+  // The noticeable-change threshold, for whether planned displays would reach it; asked only when there is a cost to weigh.
+  const costOk = light.data?.cost.status === 'ok' && light.data.planned > 0;
+  const settings = useMeasurementSettings(mayRead && costOk && can(me.role, 'measurements.read'));
   const headingId = useId();
   if (!mayRead) return null;
   return (
@@ -126,7 +130,7 @@ export function LightPanel({ printId }: { printId: string }) {
       </h2>
       {light.isPending ? <Loading label="Loading the light dose…" /> : null}
       {light.isError ? <ErrorNotice error={light.error} title="The light dose could not be loaded." /> : null}
-      {light.data ? <LightFigures light={light.data} mayChange={can(me.role, 'light.write')} /> : null}
+      {light.data ? <LightFigures light={light.data} mayChange={can(me.role, 'light.write')} threshold={settings.data?.noticeableDeltaE ?? null} /> : null}
     </section>
   );
 }

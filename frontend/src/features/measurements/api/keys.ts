@@ -31,9 +31,3 @@ export const sessionKeys = {
   details: () => [...sessionKeys.all, 'detail'] as const,
   detail: (id: string) => [...sessionKeys.details(), id] as const,
 };
-
-/** Query keys for the `settings` resource; this feature reads its own section. */
-export const settingsKeys = {
-  all: ['settings'] as const,
-  measurements: () => [...settingsKeys.all, 'measurements'] as const,
-};

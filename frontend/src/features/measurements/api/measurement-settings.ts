@@ -1,20 +1,11 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { BodyIn } from '@toneledger/common/api/endpoint';
 import { measurementSettingsApi } from '@toneledger/common/api/measurements';
 import { callData } from '@/lib/api-client';
-import { measurementKeys, settingsKeys } from '@/features/measurements/api/keys';
+import { measurementSettingsKey } from '@/lib/settings-api';
+import { measurementKeys } from '@/features/measurements/api/keys';
 
-export function measurementSettingsQueryOptions() {
-  return queryOptions({
-    queryKey: settingsKeys.measurements(),
-    queryFn: ({ signal }) => callData(measurementSettingsApi.get, { signal }),
-    staleTime: 5 * 60_000,
-  });
-}
-
-export function useMeasurementSettings() {
-  return useQuery(measurementSettingsQueryOptions());
-}
+// The settings are read through `useMeasurementSettings` in `@/lib/settings-api` (the light panel reads them too).
 
 export function updateMeasurementSettings(settings: BodyIn<typeof measurementSettingsApi.put>) {
   return callData(measurementSettingsApi.put, { body: settings });
@@ -26,7 +17,7 @@ export function useUpdateMeasurementSettings() {
   return useMutation({
     mutationFn: updateMeasurementSettings,
     onSuccess: async (settings) => {
-      queryClient.setQueryData(settingsKeys.measurements(), settings);
+      queryClient.setQueryData(measurementSettingsKey, settings);
       await queryClient.invalidateQueries({ queryKey: measurementKeys.all });
     },
   });

@@ -4,7 +4,8 @@ import { NumberInput } from '@/components/form/fields';
 import { SchemaForm } from '@/components/form/schema-form';
 import { Button } from '@/components/ui/button';
 import { useSchemaForm } from '@/lib/forms/use-schema-form';
-import { useMeasurementSettings, useUpdateMeasurementSettings } from '@/features/measurements/api/measurement-settings';
+import { useMeasurementSettings } from '@/lib/settings-api';
+import { useUpdateMeasurementSettings } from '@/features/measurements/api/measurement-settings';
 import { formatThreshold } from '@/features/measurements/utils/format';
 
 function ThresholdForm({ current, onDone }: { current: number; onDone: () => void }) {
