@@ -45,10 +45,12 @@ async function objectRows(loanId: string, t?: Transaction): Promise<ObjectRow[]>
 /** The exhibition a loan is for, when the exhibitions table is there and has it. */
 async function exhibitionOf(exhibitionId: string | null, t?: Transaction): Promise<{ id: string; title: string } | null> {
   if (!exhibitionId) return null;
-  const [row] = await db().query<{ id: string; title: string }>(
-    `SELECT id, title FROM exhibitions WHERE to_regclass('exhibitions') IS NOT NULL AND id = $1`,
-    { bind: [exhibitionId], type: QueryTypes.SELECT, transaction: t },
-  ).catch(() => [] as { id: string; title: string }[]);
+  // Asked first, so a missing table never fails a query inside the caller's transaction.
+  const [table] = await db().query<{ ok: boolean }>(`SELECT to_regclass('exhibitions') IS NOT NULL AS ok`, { type: QueryTypes.SELECT, transaction: t });
+  if (!table.ok) return null;
+  const [row] = await db().query<{ id: string; title: string }>('SELECT id, title FROM exhibitions WHERE id = $1', {
+    bind: [exhibitionId], type: QueryTypes.SELECT, transaction: t,
+  });
   return row ?? null;
 }
 

@@ -134,6 +134,16 @@ describe('loans: access', () => {
       expect(csv.text).toContain(p.accessionNumber);
     }
   });
+
+  it('the checklist neutralises a cell a spreadsheet would run as a formula (DEVELOPERS.md, CSV import and export)', async () => {
+    const p = await newPrint();
+    let loan = await newLoan({ otherInstitution: '=HYPERLINK("http://example.invalid","x")' });
+    loan = await addObjects(loan, [{ printId: p.id, insuranceValue: 10, currency: 'EUR' }]);
+    const csv = await api('registrar').get(`/api/loans/${loan.id}/checklist.csv`);
+    const row = csv.text.trim().split('\n')[1];
+    expect(row).toContain(`"'=HYPERLINK(""http://example.invalid"",""x"")"`);
+    expect(row).not.toMatch(/,=HYPERLINK/);
+  });
 });
 
 describe('loans: input', () => {
