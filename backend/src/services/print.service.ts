@@ -190,6 +190,10 @@ export async function moveForLoan(
 export async function deletePrint(id: string, version: number, actor: Actor, requestId: string | null) {
   await db().transaction(async (t) => {
     const before = await lockForEdit(id, version, t, actor.role);
+    const [onLoans] = await db().query<{ n: number }>('SELECT count(*)::int AS n FROM loan_objects WHERE print_id = $1', {
+      bind: [id], type: QueryTypes.SELECT, transaction: t,
+    });
+    if (onLoans.n > 0) throw conflict('This print is on a loan, which keeps it on its checklist. Take it off the loan first (possible until the loan is in transit).');
     const [kept] = await db().query<{ n: number }>(
       `SELECT (SELECT count(*) FROM images WHERE print_id = $1) + (SELECT count(*) FROM condition_reports WHERE print_id = $1)
             + (SELECT count(*) FROM measurement_sessions WHERE print_id = $1) AS n`,

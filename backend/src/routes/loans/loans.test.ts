@@ -146,6 +146,24 @@ describe('loans: access', () => {
   });
 });
 
+describe('loans: the list', () => {
+  it('filters by words, direction, status and open; latest first', async () => {
+    const word = `Quillmere${Date.now()}`;
+    const a = await newLoan({ otherInstitution: `${word} Hall` });
+    const b = await newLoan({ direction: 'in', otherInstitution: `${word} Hall`, purpose: 'research' });
+    await stepOk(b, 'cancelled');
+    const ids = async (qs: string) => ((await api('viewer').get(`/api/loans?q=${word}${qs}`)).body.data as { id: string }[]).map((l) => l.id);
+    expect(await ids('')).toEqual([b.id, a.id]);
+    expect(await ids('&direction=out')).toEqual([a.id]);
+    expect(await ids('&status=cancelled')).toEqual([b.id]);
+    expect(await ids('&open=true')).toEqual([a.id]);
+    expect(await ids('&open=false')).toEqual([b.id]);
+    const res = await api('viewer').get(`/api/loans?q=${word}&direction=sideways`);
+    expect(res.status).toBe(400);
+    expect(paths(res)).toContain('query.direction');
+  });
+});
+
 describe('loans: input', () => {
   it('bad input is refused with the field named', async () => {
     const base = { direction: 'out', reference: ref(), otherInstitution: 'Harrowgate Gallery of Light', purpose: 'exhibition' };
@@ -366,10 +384,13 @@ describe('loans: the print follows the loan', () => {
     expect(paths(res)).toEqual(['status']);
   });
 
-  it('a print may be taken off a loan before it leaves', async () => {
+  it('a print may be taken off a loan before it leaves; a print on a loan cannot be deleted', async () => {
     const p = await newPrint();
     let loan = await newLoan();
     loan = await addObjects(loan, [{ printId: p.id }]);
+    const del = await api('registrar').del(`/api/prints/${p.id}?version=${p.version}`);
+    expect(del.status).toBe(409);
+    expect(del.body.error.message).toMatch(/on a loan/);
     const res = await api('registrar').del(`/api/loans/${loan.id}/objects/${p.id}?version=${loan.version}`);
     expect(res.status).toBe(200);
     expect(res.body.data.objects).toEqual([]);
