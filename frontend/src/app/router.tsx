@@ -229,6 +229,21 @@ function loansRoute(area: Area): RouteObject {
   };
 }
 
+/** Exhibitions: everyone reads them; registrars manage them, conservators record displays and approve prints on the page. */
+function exhibitionsRoute(area: Area): RouteObject {
+  const WRITE_EXHIBITIONS = { permission: 'loans.write', what: 'Managing exhibitions' } as const;
+  return {
+    path: area.path,
+    children: [
+      { index: true, lazy: inArea(area, () => import('@/features/exhibitions/routes/exhibitions-page').then((m) => m.ExhibitionsPage)) },
+      { path: 'new', lazy: page(() => import('@/features/exhibitions/routes/exhibition-form-pages').then((m) => m.ExhibitionCreatePage), WRITE_EXHIBITIONS) },
+      { path: ':id', lazy: inArea(area, () => import('@/features/exhibitions/routes/exhibition-page').then((m) => m.ExhibitionPage)) },
+      { path: ':id/edit', lazy: page(() => import('@/features/exhibitions/routes/exhibition-form-pages').then((m) => m.ExhibitionEditPage), WRITE_EXHIBITIONS) },
+      { path: '*', Component: NotFoundPage },
+    ],
+  };
+}
+
 function PlainErrorPage() {
   return (
     <PlainPage>
@@ -243,6 +258,7 @@ const AREA_ROUTES: Record<string, (area: Area) => RouteObject> = {
   condition: conditionRoute,
   measurements: measurementsRoute,
   loans: loansRoute,
+  exhibitions: exhibitionsRoute,
 };
 
 export const routes: RouteObject[] = [
