@@ -68,12 +68,26 @@ function LightFigures({ light, mayChange, threshold }: { light: PrintLight; mayC
       ) : null}
       {mayChange && !changing ? (
         <div>
-          <Button size="sm" onClick={() => (setSaved(false), setChanging(true))}>
+          <Button
+            size="sm"
+            onClick={() => {
+              setSaved(false);
+              setChanging(true);
+            }}
+          >
             Change category
           </Button>
         </div>
       ) : null}
-      {mayChange && changing ? <CategoryForm light={light} onDone={(done) => (setChanging(false), setSaved(done !== null))} /> : null}
+      {mayChange && changing ? (
+        <CategoryForm
+          light={light}
+          onDone={(done) => {
+            setChanging(false);
+            setSaved(done !== null);
+          }}
+        />
+      ) : null}
 
       {light.warnings.length > 0 ? (
         <Notice tone="warning" title="Light warnings">
