@@ -58,8 +58,7 @@ export async function changeLoanStatus(id: string, body: z.infer<typeof loanStat
     }
     const on = body.on ?? new Date().toISOString().slice(0, 10);
     if (HAPPENED.has(body.to) && on > latestToday()) throw validationFailed([{ path: 'on', message: 'This step has to have happened: the date cannot be in the future', code: 'future' }]);
-    const last = await LoanStatusChange.findOne({ where: { loanId: id }, order: [['id', 'DESC']], transaction: t });
-    if (last && on < last.onDate) throw validationFailed([{ path: 'on', message: `On or after ${last.onDate}, the day of the previous change`, code: 'order' }]);
+    // Not checked against the previous change's day: a loan recorded after the fact has its proposal dated the day it was entered.
 
     const objects = await LoanObject.findAll({ where: { loanId: id }, order: [['position', 'ASC']], transaction: t });
     const blocker = blockerFor(loan, body.to, objects.map((o) => o.printId), await signedReportsFor(id, t));
