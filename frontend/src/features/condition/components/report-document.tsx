@@ -4,9 +4,11 @@ import { CONDITION_CONTEXT_LABELS, GRADE_LABELS, type ConditionReport, type Cond
 import type { PrintImage } from '@toneledger/common/schemas/images';
 import { TableHead } from '@/components/ui/table-head';
 import { formatDateTime } from '@/lib/format';
+import { describeConditions } from '@/lib/loan-conditions';
 import { imageLabel } from '@/features/condition/components/region-drawer';
 import { PrintIdentityLine } from '@/features/condition/components/print-identity-line';
 import { RegionOverlay, type MarkedRegion } from '@/features/condition/components/region-overlay';
+import { LoanBlock } from '@/features/condition/components/report-loan';
 import { SignatureBlock } from '@/features/condition/components/signature-block';
 import { formatDay } from '@/features/condition/utils/format';
 import { AREA_LABELS, EXTENT_LABELS, SEVERITY_LABELS, SIDE_LABELS, label } from '@/features/condition/utils/labels';
@@ -95,6 +97,8 @@ export function ReportDocument({ report, print, images, terms, definitions, inst
         </Row>
         <Row term="Next check">{report.nextCheckOn ? formatDay(report.nextCheckOn) : 'Not proposed'}</Row>
       </dl>
+
+      {report.loan ? <LoanBlock loan={report.loan} conditions={describeConditions(report.loan.conditions)} /> : null}
 
       <Block title="Overall grade">
         {report.grade ? (

@@ -33,7 +33,14 @@ interface Shared {
 }
 
 export type ReportFormProps =
-  | (Shared & { mode: 'create'; printId: string; onCreated: (report: ConditionReport) => void; onCancel: () => void })
+  | (Shared & {
+      mode: 'create';
+      printId: string;
+      /** Opened from a loan: the context the loan needs and the loan the report is made for. */
+      prefill?: { context?: ReportFormValues['context']; loanId?: string };
+      onCreated: (report: ConditionReport) => void;
+      onCancel: () => void;
+    })
   | (Shared & { mode: 'edit'; report: ConditionReport; onDiscarded: (report: ConditionReport) => void });
 
 export const SIGN_WARNING = 'Signing locks the report; later corrections are addenda.';
@@ -61,7 +68,13 @@ export function ReportForm(props: ReportFormProps) {
   const discard = useDiscardReport();
   const busy = create.isPending || update.isPending || sign.isPending || discard.isPending;
 
-  const form = useSchemaForm({ schema: reportInputSchema, defaultValues: opened ? reportToValues(opened) : emptyReportValues(todayIso()), toBody: reportValuesToBody });
+  const prefill = props.mode === 'create' ? props.prefill : undefined;
+  const form = useSchemaForm({
+    schema: reportInputSchema,
+    defaultValues: opened ? reportToValues(opened) : { ...emptyReportValues(todayIso()), ...(prefill?.context ? { context: prefill.context } : {}) },
+    // A report made for a loan carries the loan's id (it is not a field of the form).
+    toBody: (values: ReportFormValues) => ({ ...reportValuesToBody(values), ...(prefill?.loanId ? { loanId: prefill.loanId } : {}) }),
+  });
   const edit = useRecordEdit(form, {
     record: opened,
     recordSchema: reportSchema,

@@ -17,14 +17,14 @@ function Party({ role, name }: { role: string; name?: string }) {
   );
 }
 
-/** Lines to sign on paper: lender and borrower for a loan, the examiner otherwise. */
+/** Lines to sign on paper: lender and borrower for a loan (named from the report's loan when it has one), the examiner otherwise. */
 export function SignatureBlock({ report }: { report: ConditionReport }) {
   return (
     <section aria-label="Signatures" className="mt-6 grid gap-8 text-sm sm:grid-cols-2 print:grid-cols-2">
-      {isLoanContext(report.context) ? (
+      {isLoanContext(report.context) || report.loan ? (
         <>
-          <Party role="Lender" />
-          <Party role="Borrower" />
+          <Party role="Lender" name={report.loan?.lender} />
+          <Party role="Borrower" name={report.loan?.borrower} />
         </>
       ) : (
         <Party role="Examiner" name={report.examinerName} />
