@@ -21,6 +21,8 @@ import { startPostgres, type LocalPostgres } from './postgres';
 import { migrateUp } from '../backend/src/migrate';
 import { accessionSortKey, deriveDate, tonerClassesOf, warningsOf, type StepFacts } from '../backend/src/services/print-derive';
 import { prng } from '../backend/src/seed/demo-catalogue';
+import { categorySql } from '../backend/src/services/light-category-sql';
+import { DEFAULT_LIGHT_SETTINGS, categoryByRules } from '@toneledger/common/domain/light-rules';
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const DATABASE = 'toneledger_scale';
@@ -560,9 +562,7 @@ try {
            pl.status,
            CASE WHEN pl.status <> 'deaccessioned' THEN lf.id END,
            en.id,
-           CASE WHEN pr.blue THEN CASE WHEN pl.u < 0.5 THEN 'high' ELSE 'medium' END
-                WHEN pr.process = 'gelatin_silver_printing_out' THEN 'medium'
-                WHEN pl.u > 0.92 THEN NULL ELSE 'low' END,
+           NULL, -- the light category is computed below, as the app does (light-category-sql.ts)
            CASE WHEN pg_temp.rnd(pl.n, ${salt(24)}) < 0.1 THEN 'Matched to the negative register, volume ' || (1 + pl.n % 9) || '.' END,
            CASE WHEN pg_temp.rnd(pl.n, ${salt(25)}) < 0.3 THEN 50 * (3 + floor(pg_temp.rnd(pl.n, ${salt(26)}) * 240)::int) END,
            CASE WHEN pg_temp.rnd(pl.n, ${salt(25)}) < 0.3 THEN 'GBP' END,
@@ -607,6 +607,13 @@ try {
     }
   });
 
+  // ── Light categories: the statement the app runs when the light settings' rules change ──
+  await timed('light categories (one UPDATE, default rules)', () => PRINTS, async () => {
+    const bind: unknown[] = [];
+    const expr = categorySql(DEFAULT_LIGHT_SETTINGS, bind);
+    await c.query(`UPDATE prints p SET light_responsivity = ${expr} WHERE p.light_responsivity IS DISTINCT FROM ${expr}`, bind);
+  });
+
   await timed('VACUUM ANALYZE', () => 0, async () => {
     await c.query('VACUUM (ANALYZE)');
   });
@@ -615,7 +622,7 @@ try {
   await timed('consistency check (2,000 sampled)', () => 2000, async () => {
     const sample = await c.query(
       `SELECT p.accession_number, p.accession_sort, p.date_made, p.date_display, p.date_earliest::text, p.date_latest::text, p.process, p.toner_classes,
-         p.warning_codes, e.name AS enc_name, e.alkaline_buffered, e.pat_result,
+         p.light_responsivity, p.warning_codes, e.name AS enc_name, e.alkaline_buffered, e.pat_result,
          (SELECT json_agg(json_build_object('type', s.type, 'tonerClass', s.toner_class, 'agent', s.agent, 'alkaline', s.alkaline) ORDER BY s.position)
             FROM process_steps s WHERE s.print_id = p.id) AS steps,
          (SELECT count(*) FROM process_steps s WHERE s.print_id = p.id)::int AS n_steps
@@ -633,12 +640,13 @@ try {
         ['date', [row.date_display, row.date_earliest, row.date_latest], [d.dateDisplay, d.dateEarliest, d.dateLatest]],
         ['toner_classes', row.toner_classes, tonerClassesOf(steps)],
         ['warning_codes', row.warning_codes, warnings],
+        ['light_responsivity', row.light_responsivity, categoryByRules(DEFAULT_LIGHT_SETTINGS, row.process, row.toner_classes)],
       ];
       for (const [what, got, want] of checks) if (JSON.stringify(got) !== JSON.stringify(want)) bad.push(`${row.accession_number} ${what}: ${JSON.stringify(got)} ≠ ${JSON.stringify(want)}`);
       if (row.n_steps < 3 || row.n_steps > 9) bad.push(`${row.accession_number}: ${row.n_steps} steps`);
     }
     if (bad.length) throw new Error(`Derived columns disagree with the app in ${bad.length} cases, e.g.\n  ${bad.slice(0, 5).join('\n  ')}`);
-    log(`  ${sample.rowCount} sampled prints match accessionSortKey, deriveDate, tonerClassesOf and warningsOf`);
+    log(`  ${sample.rowCount} sampled prints match accessionSortKey, deriveDate, tonerClassesOf, warningsOf and categoryByRules`);
   });
 
   const summary = (await c.query(`SELECT (SELECT count(*) FROM prints) AS prints, (SELECT count(*) FROM process_steps) AS steps,

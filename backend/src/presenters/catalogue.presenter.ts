@@ -9,6 +9,7 @@ import { mayRead } from '@toneledger/common/fields/field';
 import { PRINT_FIELDS } from '@toneledger/common/fields/print';
 import type { BathRecipe, EnclosureType, ImportJobModel, Location, Maker, Movement, Paper, Print, ProcessStep } from '../models';
 import { warningsOf } from '../services/print-derive';
+import { OVER_LIGHT_BUDGET_WARNING } from '@toneledger/common/domain/compatibility';
 
 const iso = (d: Date) => d.toISOString();
 
@@ -95,7 +96,7 @@ export function presentPrint(p: LoadedPrint, role: Role | null): PrintDto {
   const steps = [...(p.steps ?? [])].sort((a, b) => a.position - b.position);
   const enclosure: EnclosureFacts | null = p.enclosure ? { name: p.enclosure.name, alkalineBuffered: p.enclosure.alkalineBuffered, patResult: p.enclosure.patResult } : null;
   const computed: Record<string, () => unknown> = {
-    warnings: () => warningsOf(p.process, steps, enclosure),
+    warnings: () => [...warningsOf(p.process, steps, enclosure), ...(p.warningCodes?.includes('over_light_budget') ? [OVER_LIGHT_BUDGET_WARNING] : [])],
     updatedAt: () => iso(p.updatedAt),
   };
   const dto: Record<string, unknown> = {};

@@ -607,10 +607,11 @@ function planPrints(r: Rng, ids: Ids, target: number): PlannedPrint[] {
       if (r.chance(0.45)) [w, h] = [h, w];
       const margin = r.pick([0, 6, 12, 20, 25, 38]);
       const mounted = !cyanotype && r.chance(0.3);
-      const light = cyanotype ? r.pick(['medium', 'high'] as const)
-        : blue ? r.pick(['medium', 'high', 'high'] as const)
-          : toning === 'copper' || printOut ? 'medium'
-            : r.chance(0.1) ? null : 'low';
+      // The light category now comes from process and toner (light settings); these draws stay so the rest of
+      // the demo is drawn as before.
+      if (cyanotype) r.pick(['medium', 'high'] as const);
+      else if (blue) r.pick(['medium', 'high', 'high'] as const);
+      else if (!(toning === 'copper' || printOut)) r.chance(0.1);
       const date = dateMade(r, year, lot.year);
       const staffNotes = r.chance(0.15)
         ? r.pick([
@@ -635,7 +636,6 @@ function planPrints(r: Rng, ids: Ids, target: number): PlannedPrint[] {
         creditLine: lot.credit,
         status,
         enclosureId: enc(enclosure),
-        lightResponsivity: light,
         staffNotes,
         ...(r.chance(0.3) ? { valuationAmount: r.int(3, 240) * 50, valuationCurrency: 'GBP' } : {}),
         locationId: status === 'deaccessioned' ? null : ids.locations.get(r.pick(STORE_PLACES)),

@@ -5,6 +5,7 @@ import { presentPrint } from '../presenters/catalogue.presenter';
 import { recordAudit, type AuditActor } from './audit.service';
 import type { Plan, PlannedRow } from './import-check.service';
 import { loadPrint, snapshot, stepRow, storeWarnings } from './print.service';
+import { recomputeCategories } from './light-settings.service';
 import { changedFields } from './versioning';
 
 /**
@@ -48,6 +49,8 @@ async function createPrints(rows: PlannedRow[], makers: Map<string, string>, ctx
     );
     const steps = inserted.flatMap((p, k) => (batch[k].steps ?? []).map((s, n) => stepRow(p.id, n + 1, s)));
     if (steps.length) await ProcessStep.bulkCreate(steps, { transaction: t });
+    // The light category is computed from the process and toning (light-settings.service.ts).
+    await recomputeCategories(t, inserted.map((p) => p.id));
     const moves = inserted.flatMap((p, k) =>
       batch[k].locationId
         ? [{ print_id: p.id, to_location_id: batch[k].locationId, moved_by: ctx.actor.id, moved_by_name: ctx.actor.name, reason: `Placed by CSV import ${ctx.fileName}` }]

@@ -4,6 +4,9 @@ import type { LightSettings } from '@toneledger/common/schemas/light';
 import { DEFAULT_LIGHT_SETTINGS } from '@toneledger/common/domain/light-rules';
 import { Setting } from '../models';
 import { db } from '../db';
+import { categorySql } from './light-category-sql';
+
+export { categorySql };
 
 /**
  * The light settings (budgets per category with their source, the default category rules, the
@@ -17,26 +20,6 @@ const KEY = 'light';
 export async function getLightSettings(transaction?: Transaction): Promise<LightSettings> {
   const row = await Setting.findByPk(KEY, { transaction });
   return { ...DEFAULT_LIGHT_SETTINGS, ...((row?.value as Partial<LightSettings> | undefined) ?? {}) };
-}
-
-/**
- * The SQL expression of a print's effective category (alias `p`): the override, else the first
- * rule that matches, else the fallback. Rule values are bound, never written into the text.
- */
-export function categorySql(settings: LightSettings, bind: unknown[]): string {
-  const arg = (v: unknown) => {
-    bind.push(v);
-    return `$${bind.length}`;
-  };
-  const whens = settings.rules.map((r) => {
-    const conds = [
-      r.process != null ? `p.process = ${arg(r.process)}` : null,
-      r.tonerClass != null ? `${arg(r.tonerClass)}::text = ANY (p.toner_classes)` : null,
-    ].filter(Boolean);
-    return `WHEN ${conds.length ? conds.join(' AND ') : 'true'} THEN ${arg(r.category)}::text`;
-  });
-  const def = `CASE ${whens.join(' ')} ELSE ${arg(settings.fallbackCategory)}::text END`;
-  return `coalesce(p.light_responsivity_override, ${def})`;
 }
 
 /**

@@ -11,6 +11,7 @@ import { recordAudit, type AuditActor } from './audit.service';
 import { getCatalogueSettings, warnUncheckedPattern } from './settings.service';
 import { changedFields, rethrowUnique, staleEdit } from './versioning';
 import { accessionSortKey, deriveDate, tonerClassesOf, warningsOf } from './print-derive';
+import { storeLightDerived } from './light.service';
 import { paperLabel, presentMovement, presentPrint, type LoadedPrint } from '../presenters/catalogue.presenter';
 
 /** Who acts, as every write service takes it: for the audit trail, and the role that decides what the answer shows. */
@@ -83,6 +84,8 @@ export async function storeWarnings(p: LoadedPrint, t: Transaction) {
   const codes = warningsOf(p.process, steps, enclosure).map((w) => w.code);
   const toners = tonerClassesOf(steps);
   await Print.update({ warningCodes: codes, tonerClasses: toners }, { where: { id: p.id }, transaction: t, silent: true });
+  // The effective light category follows the process and toning; the light warning is kept among the codes.
+  await storeLightDerived(p.id, t);
 }
 
 export async function createPrint(input: PrintInput, actor: Actor, requestId: string | null) {

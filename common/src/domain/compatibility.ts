@@ -20,7 +20,8 @@ export type CompatibilityCode =
   | 'enclosure_without_pat'
   | 'enclosure_failed_pat'
   | 'alkaline_after_bath_on_iron_blue'
-  | 'buffering_unknown_for_prussian_blue';
+  | 'buffering_unknown_for_prussian_blue'
+  | 'over_light_budget';
 
 export interface CompatibilityWarning {
   code: CompatibilityCode;
@@ -65,6 +66,19 @@ function whatItIs(input: CompatibilityInput): string {
 const SEVERITY_ORDER = { high: 0, medium: 1, low: 2 } as const;
 
 /** All warnings for one print record, most severe first. */
+/**
+ * The light warning: stored on the print by the server's light service when its display periods,
+ * as recorded (past and scheduled), take it past its light budget (over the annual exposure in any
+ * 12 months, or brighter than its category's maximum in a display not yet ended); its figures need
+ * the display periods, so it is not computed from the record here.
+ */
+export const OVER_LIGHT_BUDGET_WARNING: CompatibilityWarning = {
+  code: 'over_light_budget',
+  severity: 'high',
+  message: 'On display past its light budget: its displays, as planned, exceed the annual exposure or the maximum illuminance of its light category. See its light panel for the figures and the rest owed.',
+  basis: 'Light budgets per light-responsivity category (CIE 157:2004; REFERENCES.md §4), as set in the light settings.',
+};
+
 export function compatibilityWarnings(input: CompatibilityInput): CompatibilityWarning[] {
   const out: CompatibilityWarning[] = [];
   const blue = isPrussianBlue(input);

@@ -14,6 +14,7 @@ const WARNING_LABELS: Record<CompatibilityCode, string> = {
   enclosure_failed_pat: 'Enclosure failed the Photographic Activity Test',
   alkaline_after_bath_on_iron_blue: 'Alkaline after-bath on iron blue',
   buffering_unknown_for_prussian_blue: 'Iron blue in an enclosure whose buffering is unknown',
+  over_light_budget: 'On display past its light budget',
 };
 export const WARNING_CODES = {
   codes: Object.keys(WARNING_LABELS) as [CompatibilityCode, ...CompatibilityCode[]],
@@ -87,9 +88,12 @@ export const PRINT_FIELDS = [
     description: 'The enclosure type the print is housed in, as listed under Enclosures. Its buffering and test result feed the warnings.',
   },
   {
-    key: 'lightResponsivity', inputKey: 'lightResponsivity', label: 'Light responsivity', column: 'light_responsivity', read: R, origin: 'entered',
+    key: 'lightResponsivity', label: 'Light responsivity', column: 'light_responsivity', read: R, origin: 'computed',
     ...code('the light responsivity categories (CIE 157:2004)', LIGHT_RESPONSIVITY), example: 'medium',
-    description: 'How quickly the print responds to light, as a CIE 157 category.',
+    description:
+      "How quickly the print responds to light, as a CIE 157 category: a conservator's override (with a reason) where there is one, " +
+      'otherwise the default the light settings give its process and toner classes.',
+    importNote: 'Computed from the process and toner classes (a conservator overrides it on the print page); ignored on import.',
   },
   {
     key: 'imageWidthMm', inputKey: 'imageWidthMm', label: 'Image width', column: 'image_width_mm', read: R, origin: 'entered',
@@ -149,7 +153,7 @@ export const PRINT_FIELDS = [
     key: 'warnings', label: 'Warnings', column: 'warnings', read: R, origin: 'computed',
     type: { kind: 'codes', vocabulary: 'the compatibility warnings', codes: WARNING_CODES.codes, labels: WARNING_LABELS }, required: false, default: null,
     example: 'prussian_blue_in_buffered_enclosure',
-    description: 'Compatibility warnings computed from the process, the process history and the enclosure.',
+    description: 'Compatibility warnings computed from the process, the process history and the enclosure, and the light warning from its display periods.',
     importNote: 'Computed; ignored on import.',
   },
   {

@@ -124,7 +124,7 @@ describe('CSV round trip of the demo catalogue', () => {
     const first = await importFiles(prints.text, steps.text, 'create_only');
     const importMs = Date.now() - started;
     expect(first.checked).toMatchObject({ toCreate: 300, toUpdate: 0, unchanged: 0, stepRows: stepRows.length, newMakers: [] });
-    expect(first.checked.ignoredColumns).toEqual(['toner_classes', 'warnings', 'borrowed', 'id', 'updated_at']);
+    expect(first.checked.ignoredColumns).toEqual(['light_responsivity', 'toner_classes', 'warnings', 'borrowed', 'id', 'updated_at']);
     expect(first.done).toMatchObject({ status: 'committed', createdPrints: 300, updatedPrints: 0, mode: 'create_only' });
 
     const after = await catalogue();

@@ -5,7 +5,7 @@ import { CURRENCIES } from '@toneledger/common/domain/currencies';
 import { can } from '@toneledger/common/domain/roles';
 import { parseEdtf } from '@toneledger/common/domain/edtf';
 import type { Enclosure, Print } from '@toneledger/common/schemas/catalogue';
-import { LIGHT_RESPONSIVITY, PAT_RESULT, PROCESS, STATUS, SUPPORT } from '@toneledger/common/schemas/vocab';
+import { PAT_RESULT, PROCESS, STATUS, SUPPORT } from '@toneledger/common/schemas/vocab';
 import { NumberInput, SelectInput, TextAreaInput, TextInput, useFieldError } from '@/components/form/fields';
 import { useFieldId } from '@/components/form/form-context';
 import { useMe } from '@/lib/auth';
@@ -105,7 +105,6 @@ function Materials() {
       <SelectInput name="support" label={L.support} empty={NOT_RECORDED} options={SUPPORT.options} />
       <SelectInput name="paperId" label={L.paperId} empty={NOT_RECORDED} options={papers.data?.data.map((p) => ({ value: p.id, label: p.label }))} />
       <SelectInput name="status" label={L.status} options={STATUS.options} />
-      <SelectInput name="lightResponsivity" label={L.lightResponsivity} empty={NOT_RECORDED} options={LIGHT_RESPONSIVITY.options} />
     </fieldset>
   );
 }

@@ -34,6 +34,7 @@ export const WARNING_LABELS: Record<CompatibilityCode, string> = {
   enclosure_failed_pat: 'Enclosure failed the Photographic Activity Test',
   enclosure_without_pat: 'Enclosure has no Photographic Activity Test result',
   alkaline_after_bath_on_iron_blue: 'Alkaline after-bath on iron blue',
+  over_light_budget: 'On display past its light budget',
 };
 
 export function warningLabel(code: string): string {
