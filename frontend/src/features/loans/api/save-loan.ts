@@ -2,7 +2,7 @@ import { useMutation, useQueryClient, type QueryClient } from '@tanstack/react-q
 import type { BodyIn } from '@toneledger/common/api/endpoint';
 import { loansApi } from '@toneledger/common/api/loans';
 import type { LoanDetail } from '@toneledger/common/schemas/loans';
-import { callData } from '@/lib/api-client';
+import { callData, isApiError } from '@/lib/api-client';
 import { printKeys } from '@/lib/prints-api';
 import { loanKeys } from '@/features/loans/api/keys';
 
@@ -38,6 +38,8 @@ export function useChangeLoanStatus(id: string) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: LoanStatusInput) => callData(loansApi.changeStatus, { params: { id }, body: input }),
+    // A refusal (a report missing, someone moved the loan meanwhile) fetches the loan again; the open form keeps its input.
+    onError: (error) => (isApiError(error) && error.code === 'conflict' ? queryClient.invalidateQueries({ queryKey: loanKeys.detail(id) }) : undefined),
     onSuccess: async (loan) => {
       await stored(queryClient, loan);
       // The prints' status and location follow the loan.

@@ -112,7 +112,7 @@ describe('loan page: status', () => {
   });
 
   it('shows a 409 in the form and keeps what was typed', async () => {
-    renderLoan(makeLoan(), 'registrar', {
+    const { requests } = renderLoan(makeLoan(), 'registrar', {
       [`POST /api/loans/${LOAN_ID}/status`]: () =>
         errorResponse(409, 'conflict', 'The loan cannot leave: 1981.7.4 has no signed outgoing condition report for this loan.'),
     });
@@ -128,5 +128,8 @@ describe('loan page: status', () => {
     expect(alert.textContent).toContain('req-test-1');
     expect((within(form).getByLabelText('On') as HTMLInputElement).value).toBe('2026-03-02');
     expect((within(form).getByLabelText('Note') as HTMLTextAreaElement).value).toBe('Courier booked');
+    // The loan is fetched again, so the page shows what stands in the way now; the form stays open with its input.
+    await waitFor(() => expect(requests.filter((r) => r.path === `/api/loans/${LOAN_ID}` && r.method === 'GET')).toHaveLength(2));
+    expect((within(screen.getByRole('form', { name: /Agreed to In transit/ })).getByLabelText('Note') as HTMLTextAreaElement).value).toBe('Courier booked');
   });
 });
