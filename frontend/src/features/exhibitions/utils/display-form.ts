@@ -1,4 +1,5 @@
 import type { Display } from '@toneledger/common/schemas/exhibitions';
+import { typedNumber } from '@/lib/forms/typed-number';
 
 export interface DisplayFormValues {
   printId: string;
@@ -43,14 +44,6 @@ export function displayToValues(d: Display): DisplayFormValues {
     daysOpen: [...d.daysOpen], closedDates: d.closedDates.join('\n'), uvMicrowattsPerLumen: d.uvMicrowattsPerLumen == null ? '' : String(d.uvMicrowattsPerLumen),
     caseOrFrame: d.caseOrFrame ?? '', mountNotes: d.mountNotes ?? '',
   };
-}
-
-/** A figure as typed: empty is null; anything else a number, or the text itself so the schema says "Enter a number". */
-export function typedNumber(value: string): number | string | null {
-  const trimmed = value.trim();
-  if (trimmed === '') return null;
-  const n = Number(trimmed.replace(',', '.'));
-  return Number.isFinite(n) ? n : value;
 }
 
 /** The closed dates as typed, one per line or separated by commas or spaces; each is checked by the schema. */

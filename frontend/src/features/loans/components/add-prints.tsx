@@ -13,7 +13,7 @@ import { SearchField } from '@/components/ui/search-field';
 import { useSchemaForm } from '@/lib/forms/use-schema-form';
 import { useFindPrints } from '@/lib/prints-api';
 import { useSetLoanObjects } from '@/features/loans/api/save-loan';
-import { typedNumber } from '@/features/loans/utils/loan-form';
+import { typedNumber } from '@/lib/forms/typed-number';
 
 const CURRENCY_OPTIONS = CURRENCIES.map((c) => ({ value: c.code, label: `${c.code} · ${c.name}` }));
 

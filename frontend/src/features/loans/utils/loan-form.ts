@@ -1,5 +1,6 @@
 import type { LoanDetail, LoanStatus } from '@toneledger/common/schemas/loans';
 import { fieldList } from '@/lib/forms/stale-edit';
+import { typedNumber } from '@/lib/forms/typed-number';
 
 /** The conditions a lender asks for, as the form's controls hold them (text, yes/no). */
 export interface ConditionsValues {
@@ -92,17 +93,6 @@ export function loanToValues(loan: LoanDetail): LoanFormValues {
       noAlkalineBufferedMounts: c.noAlkalineBufferedMounts, other: text(c.other),
     },
   };
-}
-
-/**
- * A figure as typed: empty is "not asked for" (null); anything else goes to the schema as a number,
- * or as the text itself when it is not one, so the schema says "Enter a number" under the field.
- */
-export function typedNumber(value: string): number | string | null {
-  const trimmed = value.trim();
-  if (trimmed === '') return null;
-  const n = Number(trimmed.replace(',', '.'));
-  return Number.isFinite(n) ? n : value;
 }
 
 /** The form's values as the request body: the conditions' figures as numbers (the rest the schema reads). */
