@@ -89,3 +89,15 @@ export function useDeleteDisplay(exhibitionId: string) {
     onSuccess: (_deleted, { printId }) => displayChanged(queryClient, exhibitionId, printId),
   });
 }
+
+/** Deletes an exhibition that has no display periods and no loan (the server refuses otherwise, saying why). */
+export function useDeleteExhibition(id: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (version: number) => callData(exhibitionsApi.remove, { params: { id }, query: { version } }),
+    onSuccess: async () => {
+      queryClient.removeQueries({ queryKey: exhibitionKeys.detail(id) });
+      await queryClient.invalidateQueries({ queryKey: exhibitionKeys.lists() });
+    },
+  });
+}

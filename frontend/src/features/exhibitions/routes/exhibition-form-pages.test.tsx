@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { fireEvent, screen, waitFor, within } from '@testing-library/react';
-import { json, mockFetch } from '@/test/fetch-mock';
+import { errorResponse, json, mockFetch } from '@/test/fetch-mock';
 import { makeMe } from '@/test/fixtures';
 import { renderRoutes } from '@/test/render';
 import { ExhibitionCreatePage, ExhibitionEditPage } from '@/features/exhibitions/routes/exhibition-form-pages';
@@ -66,5 +66,20 @@ describe('exhibition forms', () => {
       organiser: 'Calder Reach with the Harbour gallery',
       venues: [{ id: VENUE_ID, name: 'Print room', place: 'Calder Reach', opensOn: '2026-04-01', closesOn: '2026-06-30' }],
     });
+  });
+});
+
+describe('deleting an exhibition', () => {
+  it('asks first, then shows the server’s refusal', async () => {
+    const { requests } = mockFetch({
+      [`GET /api/exhibitions/${EXHIBITION_ID}`]: () => json({ data: makeExhibition() }),
+      [`DELETE /api/exhibitions/${EXHIBITION_ID}`]: () => errorResponse(409, 'conflict', 'The exhibition has display periods; delete them first.'),
+    });
+    renderRoutes([{ path: '/exhibitions/:id/edit', element: <ExhibitionEditPage /> }], { path: `/exhibitions/${EXHIBITION_ID}/edit`, me: makeMe('registrar') });
+    fireEvent.click(await screen.findByRole('button', { name: 'Delete this exhibition…' }));
+    expect(requests.some((r) => r.method === 'DELETE')).toBe(false);
+    fireEvent.click(within(screen.getByRole('alertdialog', { name: 'Confirm deletion' })).getByRole('button', { name: 'Delete' }));
+    expect(await screen.findByText('The exhibition has display periods; delete them first.')).toBeTruthy();
+    expect(requests.find((r) => r.method === 'DELETE')?.search.get('version')).toBe('2');
   });
 });

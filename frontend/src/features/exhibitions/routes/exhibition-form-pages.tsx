@@ -4,6 +4,7 @@ import { ErrorNotice } from '@/components/ui/notice';
 import { PageHeader } from '@/components/ui/page-header';
 import { useExhibition } from '@/lib/exhibitions-api';
 import { useDocumentTitle } from '@/lib/use-document-title';
+import { DeleteExhibition } from '@/features/exhibitions/components/delete-exhibition';
 import { ExhibitionForm } from '@/features/exhibitions/components/exhibition-form';
 
 export function ExhibitionCreatePage() {
@@ -34,6 +35,7 @@ export function ExhibitionEditPage() {
       </nav>
       <PageHeader title={`Edit ${exhibition.data.title}`} />
       <ExhibitionForm exhibition={exhibition.data} onSaved={(e) => navigate(`/exhibitions/${e.id}`)} onCancel={() => navigate(`/exhibitions/${id}`)} />
+      <DeleteExhibition exhibition={exhibition.data} onDeleted={() => navigate('/exhibitions', { replace: true })} />
     </section>
   );
 }
