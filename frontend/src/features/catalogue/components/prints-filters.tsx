@@ -15,9 +15,15 @@ export interface PrintsFiltersProps {
 }
 
 const FILTER_KEYS = [
-  'q', 'process', 'support', 'status', 'tonerClass', 'lightResponsivity', 'makerId', 'paperId', 'enclosureId', 'locationId',
+  'q', 'process', 'support', 'status', 'holding', 'tonerClass', 'lightResponsivity', 'makerId', 'paperId', 'enclosureId', 'locationId',
   'hasWarnings', 'madeFrom', 'madeTo',
 ] as const satisfies readonly (keyof PrintListQuery)[];
+
+/** Borrowed prints (loans in) are records of their own, left out of the list unless asked for. */
+const HOLDINGS = [
+  { value: 'borrowed', label: 'Borrowed prints only' },
+  { value: 'all', label: 'Collection and borrowed' },
+];
 
 const WARNINGS = [
   { value: 'true', label: 'With warnings' },
@@ -108,6 +114,13 @@ export function PrintsFilters({ query, onChange, showLocation }: PrintsFiltersPr
         <ChoiceSelect label="Process" empty="Any process" options={PROCESS.options} value={query.process} onChoose={choose('process')} />
         <ChoiceSelect label="Support" empty="Any support" options={SUPPORT.options} value={query.support} onChoose={choose('support')} />
         <ChoiceSelect label="Status" empty="Any status" options={STATUS.options} value={query.status} onChoose={choose('status')} />
+        <ChoiceSelect
+          label="Holding"
+          empty="The collection"
+          options={HOLDINGS}
+          value={query.holding === 'collection' ? undefined : query.holding}
+          onChoose={choose('holding')}
+        />
         <ChoiceSelect label="Toner class" empty="Any toner" options={TONER_CLASS.options} value={query.tonerClass} onChoose={choose('tonerClass')} />
         <ChoiceSelect label="Light responsivity" empty="Any" options={LIGHT_RESPONSIVITY.options} value={query.lightResponsivity} onChoose={choose('lightResponsivity')} />
         <ChoiceSelect label="Warnings" empty="With or without" options={WARNINGS} value={query.hasWarnings} onChoose={choose('hasWarnings')} />

@@ -27,7 +27,7 @@ describe('print list query ↔ URL', () => {
     );
     expect(query).toEqual({
       page: 2, pageSize: 50, q: 'harbour', process: 'cyanotype', tonerClass: 'iron_blue', hasWarnings: 'true', madeFrom: 1950, madeTo: 1975,
-      sort: '-dateMade', makerId: MAKER_ID,
+      sort: '-dateMade', makerId: MAKER_ID, holding: 'collection',
     });
   });
 
@@ -39,7 +39,7 @@ describe('print list query ↔ URL', () => {
 
   it('builds the CSV export address from the filters and sort, without paging', () => {
     const query = printListQuerySchema.parse({ page: '3', pageSize: '100', tonerClass: 'gold', sort: '-title' });
-    expect(printsCsvHref(query)).toBe('/api/prints/export.csv?sort=-title&tonerClass=gold');
+    expect(printsCsvHref(query)).toBe('/api/prints/export.csv?sort=-title&tonerClass=gold&holding=collection');
   });
 });
 
@@ -52,13 +52,13 @@ describe('PrintsPage', () => {
     });
     await screen.findByText('1987.14.3');
     expect(lastListRequest(requests)).toEqual({
-      page: '2', pageSize: '50', q: 'harbour', tonerClass: 'iron_blue', hasWarnings: 'true', sort: '-dateMade', locationId: LOCATION_ID,
+      page: '2', pageSize: '50', q: 'harbour', tonerClass: 'iron_blue', hasWarnings: 'true', sort: '-dateMade', locationId: LOCATION_ID, holding: 'collection',
     });
     expect(screen.getByRole('link', { name: 'Export CSV' }).getAttribute('href')).toBe(
-      `/api/prints/export.csv?q=harbour&sort=-dateMade&tonerClass=iron_blue&locationId=${LOCATION_ID}&hasWarnings=true`,
+      `/api/prints/export.csv?q=harbour&sort=-dateMade&tonerClass=iron_blue&locationId=${LOCATION_ID}&hasWarnings=true&holding=collection`,
     );
     expect(screen.getByRole('link', { name: 'Export steps CSV' }).getAttribute('href')).toBe(
-      `/api/prints/export-steps.csv?q=harbour&sort=-dateMade&tonerClass=iron_blue&locationId=${LOCATION_ID}&hasWarnings=true`,
+      `/api/prints/export-steps.csv?q=harbour&sort=-dateMade&tonerClass=iron_blue&locationId=${LOCATION_ID}&hasWarnings=true&holding=collection`,
     );
   });
 
@@ -77,6 +77,23 @@ describe('PrintsPage', () => {
     fireEvent.click(screen.getByRole('button', { name: /Date made/ }));
     await waitFor(() => expect(lastListRequest(requests)).toMatchObject({ q: 'harbour wall', process: 'cyanotype', sort: 'dateMade', page: '1' }));
     expect(screen.getByRole('columnheader', { name: /Date made/ }).getAttribute('aria-sort')).toBe('ascending');
+  });
+
+  it('shows borrowed prints only when asked, and back to the collection on "The collection"', async () => {
+    const { requests } = mockFetch(listHandlers());
+    const { router } = renderPage(<PrintsPage />, { path: '/catalogue', me: makeMe('registrar') });
+    await screen.findByText('1987.14.3');
+    expect(lastListRequest(requests)).toMatchObject({ holding: 'collection' });
+
+    fireEvent.change(screen.getByRole('combobox', { name: 'Holding' }), { target: { value: 'borrowed' } });
+    await waitFor(() => expect(router.state.location.search).toBe('?holding=borrowed'));
+    await waitFor(() => expect(lastListRequest(requests)).toMatchObject({ holding: 'borrowed' }));
+
+    fireEvent.change(screen.getByRole('combobox', { name: 'Holding' }), { target: { value: '' } });
+    await waitFor(() => expect(router.state.location.search).toBe(''));
+    // The same query as the first page: the list shown is the collection's again (from the query cache).
+    expect((screen.getByRole('combobox', { name: 'Holding' }) as HTMLSelectElement).value).toBe('');
+    expect(parseSearchQuery(printListQuerySchema, new URLSearchParams(router.state.location.search)).holding).toBe('collection');
   });
 
   it('refuses a year outside the allowed range without changing the URL', async () => {
