@@ -6,6 +6,7 @@ import { recordAudit } from '../services/audit.service';
 import { DEMO_ACCOUNTS } from './demo-accounts';
 import { seedDemoCatalogue } from './demo-catalogue';
 import { seedDemoCondition } from './demo-condition';
+import { seedDemoLoans } from './demo-loans';
 import { seedDemoMeasurements } from './demo-measurements';
 
 export interface SeedDemoOptions {
@@ -15,8 +16,8 @@ export interface SeedDemoOptions {
    */
   catalogue?: boolean;
   /**
-   * Also build the demo condition histories (reports and photographs) and measurement histories
-   * when those tables are empty. Follows `catalogue` by default (development only).
+   * Also build the demo condition histories (reports and photographs), measurement histories, and
+   * exhibitions and loans when those tables are empty. Follows `catalogue` by default (development only).
    */
   histories?: boolean;
   /** Where the demo photographs go (the running server's object store); without it, no condition histories are seeded. */
@@ -34,7 +35,7 @@ export interface SeedDemoOptions {
  * begun and not finished (a stop during the seed) is carried on by the next seed, which skips what
  * is there and writes the rest, so an interrupted first start never leaves the demo half made.
  */
-type Part = 'catalogue' | 'condition' | 'measurements';
+type Part = 'catalogue' | 'condition' | 'measurements' | 'loans';
 type Progress = Partial<Record<Part, 'started' | 'done'>>;
 const PROGRESS_KEY = 'demo_seed';
 
@@ -71,7 +72,8 @@ export async function seedDemoIfEmpty(sequelize: Sequelize, options: SeedDemoOpt
   const seededCatalogue = await seedCatalogueIfEmpty(sequelize, log, signal);
   if (!(options.histories ?? catalogue)) return seededUsers || seededCatalogue;
   const seededHistories = await seedHistoriesIfEmpty(sequelize, options.store ?? null, log, signal);
-  return seededUsers || seededCatalogue || seededHistories;
+  const seededLoans = await seedLoansIfEmpty(sequelize, log, signal);
+  return seededUsers || seededCatalogue || seededHistories || seededLoans;
 }
 
 /**
@@ -152,6 +154,44 @@ async function seedHistoriesIfEmpty(sequelize: Sequelize, store: ObjectStore | n
       seeded = true;
     }
     return seeded;
+  } finally {
+    await lock.commit();
+  }
+}
+
+/**
+ * Exhibitions, display periods and loans (demo-loans.ts), after the measurements (the light-cost
+ * fit places displays between measurement sessions): only when there are none yet, or when an
+ * earlier seed began them. Loans and displays are the registrar's, reports and approvals the
+ * conservator's, under an advisory lock of their own.
+ */
+async function seedLoansIfEmpty(sequelize: Sequelize, log: (m: string) => void, signal?: AbortSignal): Promise<boolean> {
+  signal?.throwIfAborted();
+  const lock = await sequelize.transaction();
+  try {
+    await sequelize.query('SELECT pg_advisory_xact_lock(727004)', { transaction: lock });
+    const [counts] = await sequelize.query<{ prints: number; loans: number }>(
+      `SELECT (SELECT count(*) FROM prints)::int AS prints,
+              ((SELECT count(*) FROM exhibitions) + (SELECT count(*) FROM loans))::int AS loans`,
+      { type: QueryTypes.SELECT, transaction: lock },
+    );
+    const begun = await progress();
+    if (counts.prints === 0 || (counts.loans > 0 && begun.loans !== 'started')) return false;
+    const people = await Promise.all((['registrar', 'conservator'] as const).map(async (role) => {
+      const account = DEMO_ACCOUNTS.find((a) => a.role === role)!;
+      const user = await User.findOne({ where: { email: account.email }, transaction: lock });
+      return user ? { id: user.id, name: user.name ?? account.name, role } : null;
+    }));
+    const [registrar, conservator] = people;
+    if (!registrar || !conservator) {
+      log('No demo registrar or conservator account: the demo exhibitions and loans were not seeded.');
+      return false;
+    }
+    log(begun.loans === 'started' ? 'Carrying on with the demo exhibitions and loans an earlier start began…' : 'Seeding demo exhibitions, display periods and loans…');
+    await mark('loans', 'started');
+    await seedDemoLoans(registrar, conservator, log, { signal });
+    await mark('loans', 'done');
+    return true;
   } finally {
     await lock.commit();
   }
