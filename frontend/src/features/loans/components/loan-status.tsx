@@ -7,6 +7,7 @@ import { SubmitCancel } from '@/components/form/submit-cancel';
 import { Button } from '@/components/ui/button';
 import { TableHead } from '@/components/ui/table-head';
 import { formatDateTime, formatDay, todayIso } from '@/lib/format';
+import { isApiError } from '@/lib/api-client';
 import { useSchemaForm } from '@/lib/forms/use-schema-form';
 import { useChangeLoanStatus } from '@/features/loans/api/save-loan';
 import { STATUS_ACTIONS } from '@/features/loans/utils/loan-form';
@@ -70,6 +71,15 @@ interface StatusValues {
   version: number;
 }
 
+/** The prints a refused status change names (the 409's `printIds`), by accession number. */
+export function refusedPrints(failure: unknown, loan: LoanDetail): string[] {
+  if (!isApiError(failure) || failure.status !== 409) return [];
+  const ids = (failure.details as { printIds?: unknown } | null | undefined)?.printIds;
+  if (!Array.isArray(ids)) return [];
+  const names = new Map(loan.objects.map((o) => [o.printId, o.accessionNumber]));
+  return ids.map((id) => names.get(String(id)) ?? String(id));
+}
+
 function StatusForm({ loan, to, onDone }: { loan: LoanDetail; to: LoanStatus; onDone: () => void }) {
   const change = useChangeLoanStatus(loan.id);
   const form = useSchemaForm({
@@ -78,6 +88,7 @@ function StatusForm({ loan, to, onDone }: { loan: LoanDetail; to: LoanStatus; on
     // The form moves the loan as the page shows it: the version it was opened on.
     toBody: (v: StatusValues) => ({ ...v, version: loan.version }),
   });
+  const refused = refusedPrints(form.failure, loan);
   return (
     <SchemaForm
       form={form}
@@ -86,6 +97,11 @@ function StatusForm({ loan, to, onDone }: { loan: LoanDetail; to: LoanStatus; on
       className="gap-3 rounded border border-paper-300 bg-paper-50 p-3"
       onValid={(body) => change.mutate(body, { onSuccess: onDone, onError: form.serverError })}
     >
+      {refused.length > 0 ? (
+        <p className="text-sm text-danger-700">
+          Refused for <span className="mono">{refused.join(', ')}</span>.
+        </p>
+      ) : null}
       <p className="text-sm">
         From <strong>{LOAN_STATUS_LABELS[loan.status]}</strong> to <strong>{LOAN_STATUS_LABELS[to]}</strong>
       </p>
