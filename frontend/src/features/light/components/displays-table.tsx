@@ -11,7 +11,7 @@ export function DisplaysTable({ displays, asOf }: { displays: PrintLight['displa
     <div className="overflow-x-auto">
       <table className="w-full text-sm">
         <caption className="sr-only">Displays</caption>
-        <TableHead columns={['Exhibition', 'From', 'To', { label: 'Illuminance', align: 'right' }, { label: 'Hours a day', align: 'right' }, { label: 'Exposure', align: 'right' }]} />
+        <TableHead columns={['Exhibition', 'Dates', { label: 'Illuminance', align: 'right' }, { label: 'Hours a day', align: 'right' }, { label: 'Exposure', align: 'right' }]} />
         <tbody className="divide-y divide-paper-200">
           {rows.map((d) => (
             <tr key={d.id}>
@@ -19,8 +19,10 @@ export function DisplaysTable({ displays, asOf }: { displays: PrintLight['displa
                 <Link to={`/exhibitions/${d.exhibitionId}`}>{d.exhibitionTitle}</Link>
                 {d.endsOn >= asOf ? <span className="ml-1 text-xs text-ink-700">(planned)</span> : null}
               </td>
-              <td className="num px-2 py-1.5 whitespace-nowrap">{d.startsOn}</td>
-              <td className="num px-2 py-1.5 whitespace-nowrap">{d.endsOn}</td>
+              <td className="num px-2 py-1.5">
+                {/* The two dates may stack, so the exposure column stays in view in the print page's narrow panel. */}
+                <span className="whitespace-nowrap">{d.startsOn}</span> – <span className="whitespace-nowrap">{d.endsOn}</span>
+              </td>
               <td className="num px-2 py-1.5 text-right">{formatLux(d.lux)}</td>
               <td className="num px-2 py-1.5 text-right">{d.hoursPerDay}</td>
               <td className="num px-2 py-1.5 text-right whitespace-nowrap">{formatLuxHours(d.luxHours)}</td>

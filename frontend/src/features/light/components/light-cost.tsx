@@ -83,7 +83,9 @@ export function LightCostSection({ cost, planned, threshold }: { cost: LightCost
       <h3 className="font-sans text-xs font-semibold tracking-wider text-ink-700 uppercase">Light cost</h3>
       {cost.status === 'not_enough_data' ? (
         <p className="text-sm text-ink-800">
-          <span className="font-medium">Not enough data.</span> {cost.reason}
+          {/* The reason may already say so; the words are not repeated. */}
+          {/^not enough data/i.test(cost.reason) ? null : <span className="font-medium">Not enough data. </span>}
+          {cost.reason}
         </p>
       ) : (
         <>

@@ -46,9 +46,9 @@ describe('LightPanel', () => {
     const table = await screen.findByRole('table', { name: 'Displays' });
     const rows = within(table).getAllByRole('row').slice(1);
     expect(rows.map((r) => within(r).getAllByRole('cell').map((c) => c.textContent))).toEqual([
-      ['Tidewater Rooms', '2023-05-01', '2023-05-20', '40 lx', '6', '4,800 lx·h'],
-      ['Blue Hours at Calder Reach', '2026-04-01', '2026-04-30', '50 lx', '8', '12,000 lx·h'],
-      ['Winter Rotation(planned)', '2026-12-10', '2026-12-31', '50 lx', '8', '8,800 lx·h'],
+      ['Tidewater Rooms', '2023-05-01 – 2023-05-20', '40 lx', '6', '4,800 lx·h'],
+      ['Blue Hours at Calder Reach', '2026-04-01 – 2026-04-30', '50 lx', '8', '12,000 lx·h'],
+      ['Winter Rotation(planned)', '2026-12-10 – 2026-12-31', '50 lx', '8', '8,800 lx·h'],
     ]);
     expect(within(table).getByRole('link', { name: 'Winter Rotation' }).getAttribute('href')).toBe('/exhibitions/e1000000-0000-4000-8000-000000000003');
   });
@@ -74,6 +74,14 @@ describe('LightPanel', () => {
     expect(screen.getByText('Not enough data.')).toBeTruthy();
     expect(screen.queryByText(/ΔE00 per million lux-hours/)).toBeNull();
     expect(screen.queryByText('Assumptions')).toBeNull();
+  });
+
+  it('does not repeat "Not enough data" when the reason already says it', async () => {
+    const reason = 'Not enough data: a light cost needs at least three measurement sessions (the baseline included); there are 0.';
+    show('conservator', makePrintLight({ cost: { status: 'not_enough_data', reason } }));
+    expect(await screen.findByText(reason)).toBeTruthy();
+    expect(screen.queryByText('Not enough data.')).toBeNull();
+    expect(screen.getAllByText(/Not enough data/)).toHaveLength(1);
   });
 
   it('names who set an overridden category and why', async () => {
