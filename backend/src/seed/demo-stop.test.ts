@@ -6,8 +6,8 @@ import pg from 'pg';
  * touches the database after it has stopped, and the next seed carries on to the same demo an
  * uninterrupted seed makes (same rows, same audit events, nothing written twice). Each run has a
  * database of its own (created and dropped here), so the shared test database never holds the demo.
- * The demo photographs need an object store and take a minute to render: the catalogue and the
- * measurement histories are the parts seeded here.
+ * The demo photographs need an object store and take a minute to render: the catalogue, the
+ * measurement histories and the exhibitions and loans are the parts seeded here.
  */
 
 const shared = process.env.DATABASE_URL!;
@@ -43,6 +43,7 @@ async function on(name: string) {
 const TABLES = [
   'users', 'settings', 'makers', 'papers', 'bath_recipes', 'locations', 'enclosure_types', 'prints', 'process_steps', 'movements',
   'measurement_spots', 'measurement_sessions', 'spot_readings',
+  'exhibitions', 'exhibition_venues', 'exhibition_objects', 'display_periods', 'loans', 'loan_objects', 'loan_status_changes', 'condition_reports',
 ];
 
 async function countsOf(db: () => import('sequelize').Sequelize): Promise<Record<string, number>> {
@@ -51,6 +52,8 @@ async function countsOf(db: () => import('sequelize').Sequelize): Promise<Record
     const [row] = await db().query<{ n: number }>(`SELECT count(*)::int AS n FROM ${t}`, { type: 'SELECT' as never });
     out[t] = row.n;
   }
+  const [borrowed] = await db().query<{ n: number }>('SELECT count(*)::int AS n FROM prints WHERE borrowed', { type: 'SELECT' as never });
+  out.borrowed = borrowed.n;
   // Every record written once: the audit trail has as many events of each kind.
   const audit = await db().query<{ action: string; n: number }>('SELECT action, count(*)::int AS n FROM audit_events GROUP BY action ORDER BY action', { type: 'SELECT' as never });
   for (const a of audit) out[`audit:${a.action}`] = a.n;
@@ -105,9 +108,11 @@ async function stoppedSeed(s: Awaited<ReturnType<typeof on>>, when: (event: { lo
 }
 
 describe('stopping the demo seed', () => {
-  it('stops within a second or two mid-catalogue and mid-measurements, and the next seed completes the same demo', async () => {
+  it('stops within a second or two mid-catalogue, mid-measurements and mid-loans, and the next seed completes the same demo', async () => {
     expect(reference.prints).toBeGreaterThan(250);
     expect(reference.measurement_sessions).toBeGreaterThan(100);
+    expect(reference.display_periods).toBeGreaterThan(100);
+    expect(reference.loans).toBeGreaterThan(3);
     const s = await on(names.stopped);
 
     // 1. Stopped in the middle of the prints (when the seed reports its first hundred).
@@ -133,11 +138,28 @@ describe('stopping the demo seed', () => {
     expect(second.outcome).toBe('AbortError');
     expect(second.queriesAfterStop).toBe(0);
     expect(second.stopMs).toBeLessThan(3_000);
-    expect(afterSecond.prints).toBe(reference.prints);
+    expect(afterSecond.prints).toBe(reference.prints - reference.borrowed);
     expect(afterSecond.measurement_sessions).toBeGreaterThan(0);
     expect(afterSecond.measurement_sessions).toBeLessThan(reference.measurement_sessions);
 
-    // 3. A seed left alone finishes: the demo equals the uninterrupted one, row for row and event for event.
+    // 3. The next seed finishes the measurements and is stopped in the middle of the exhibitions and loans.
+    let lending = false;
+    let loanQueries = 0;
+    const third = await stoppedSeed(s, (e) => {
+      if (e.log?.includes('exhibitions, display periods and loans')) lending = true;
+      if (lending && e.query) loanQueries += 1;
+      return loanQueries >= 400;
+    });
+    const afterThird = await countsOf(s.db);
+    console.info(`[seed stop] mid-loans: stopped ${third.stopMs.toFixed(0)} ms after the abort; ${afterThird.display_periods} of ${reference.display_periods} display periods`);
+    expect(third.outcome).toBe('AbortError');
+    expect(third.queriesAfterStop).toBe(0);
+    expect(third.stopMs).toBeLessThan(3_000);
+    expect(afterThird.measurement_sessions).toBe(reference.measurement_sessions);
+    expect(afterThird.display_periods).toBeGreaterThan(0);
+    expect(afterThird.display_periods).toBeLessThan(reference.display_periods);
+
+    // 4. A seed left alone finishes: the demo equals the uninterrupted one, row for row and event for event.
     expect(await s.seedDemoIfEmpty(s.db(), { catalogue: true, histories: true, log: () => {} })).toBe(true);
     expect(await countsOf(s.db)).toEqual(reference);
     // Once finished, the demo is not seeded again.
