@@ -26,6 +26,15 @@ export function objectsEditable(loan: LoanDetail): boolean {
   return loan.status === 'proposed' || loan.status === 'approved' || loan.status === 'agreed';
 }
 
+/**
+ * Whether a report at this end of the loan can be written now: the first (outgoing, or arrival for a
+ * loan in) until the loan ends early; the one for the way back only while the prints are at the other end.
+ */
+export function reportDue(loan: Pick<LoanDetail, 'status'>, end: 'outgoing' | 'returning'): boolean {
+  if (end === 'returning') return loan.status === 'on_loan';
+  return !['declined', 'cancelled'].includes(loan.status);
+}
+
 function ReportCell({ loan, object, end, report, role }: { loan: LoanDetail; object: LoanObject; end: 'outgoing' | 'returning'; report: Report; role: Role }) {
   if (report) {
     return (
@@ -35,7 +44,7 @@ function ReportCell({ loan, object, end, report, role }: { loan: LoanDetail; obj
       </Link>
     );
   }
-  if (can(role, 'condition.write') && !['declined', 'cancelled'].includes(loan.status)) {
+  if (can(role, 'condition.write') && reportDue(loan, end)) {
     const context = reportContextFor(loan.direction, end);
     const to = `/condition/prints/${object.printId}/reports/new?context=${context}&loanId=${loan.id}`;
     return (

@@ -55,6 +55,16 @@ describe('loan page: reports and blockers', () => {
     expect(write).toHaveLength(1);
     expect(write[0]!.getAttribute('href')).toBe(`/condition/prints/${PRINT_B}/reports/new?context=outgoing_loan&loanId=${LOAN_ID}`);
     expect(screen.getByText(/1 print has no signed outgoing condition report/)).toBeTruthy();
+    // Nothing has left yet: no report for the way back is asked for.
+    expect(within(table).queryByRole('link', { name: 'Write the returning report' })).toBeNull();
+  });
+
+  it('offers the returning report only while the prints are at the borrower', async () => {
+    renderLoan(makeLoan({ status: 'on_loan', blockers: [] }), 'conservator');
+    const table = await objectsTable();
+    const back = within(table).getAllByRole('link', { name: 'Write the returning report' });
+    expect(back.length).toBeGreaterThan(0);
+    expect(back[0]!.getAttribute('href')).toMatch(/\?context=returning_loan&loanId=/);
   });
 
   it('offers a registrar no report-writing link', async () => {
@@ -131,5 +141,16 @@ describe('loan page: status', () => {
     // The loan is fetched again, so the page shows what stands in the way now; the form stays open with its input.
     await waitFor(() => expect(requests.filter((r) => r.path === `/api/loans/${LOAN_ID}` && r.method === 'GET')).toHaveLength(2));
     expect((within(screen.getByRole('form', { name: /Agreed to In transit/ })).getByLabelText('Note') as HTMLTextAreaElement).value).toBe('Courier booked');
+  });
+
+  it('names the prints a refusal is about by accession number (the server sends their ids)', async () => {
+    renderLoan(makeLoan(), 'registrar', {
+      [`POST /api/loans/${LOAN_ID}/status`]: () =>
+        errorResponse(409, 'conflict', '1 print has no signed outgoing condition report for this loan.', { details: { to: 'in_transit', printIds: [PRINT_B] } }),
+    });
+    fireEvent.click(await screen.findByRole('button', { name: 'Dispatch (in transit)' }));
+    const form = screen.getByRole('form', { name: /Agreed to In transit/ });
+    fireEvent.click(within(form).getByRole('button', { name: 'Dispatch (in transit)' }));
+    expect((await within(form).findByText(/^Refused for/)).textContent).toBe('Refused for 1981.7.4.');
   });
 });
