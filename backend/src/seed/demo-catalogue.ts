@@ -602,7 +602,10 @@ function planPrints(r: Rng, ids: Ids, target: number): PlannedPrint[] {
       const enclosure = blue
         ? r.weighted([['cotton', 5], ['polyester', 3], ['buffered', 2], ['mat', 1], ['glassine', 1]] as const)
         : r.weighted([['buffered', 6], ['cotton', 3], ['polyester', 2], ['mat', 2], ['glassine', 1], ['kraft', 1]] as const);
-      const status = r.weighted([['in_store', 84], ['on_display', 5], ['on_loan', 4], ['in_treatment', 4], ['deaccessioned', 2]] as const);
+      const drawn = r.weighted([['in_store', 84], ['on_display', 5], ['on_loan', 4], ['in_treatment', 4], ['deaccessioned', 2]] as const);
+      // On display and on loan come from the demo's exhibitions and loans (demo-loans.ts), never set by hand here;
+      // the draw stays so the rest of the demo is drawn as before.
+      const status = drawn === 'on_display' || drawn === 'on_loan' ? 'in_store' : drawn;
       let [w, h] = r.pick(IMAGE_SIZES.filter(([a]) => (support === 'resin_coated' ? a <= 279 : true)));
       if (r.chance(0.45)) [w, h] = [h, w];
       const margin = r.pick([0, 6, 12, 20, 25, 38]);
@@ -641,11 +644,10 @@ function planPrints(r: Rng, ids: Ids, target: number): PlannedPrint[] {
         locationId: status === 'deaccessioned' ? null : ids.locations.get(r.pick(STORE_PLACES)),
       });
       const move =
-        status === 'on_display' ? { to: 'gallery', reason: 'Installed for the exhibition "Toned: Prints from the Reach"' }
-          : status === 'on_loan' ? { to: 'dispatch', reason: 'Packed for an outgoing loan' }
-            : status === 'in_treatment' ? { to: 'holding', reason: 'To the conservation studio for treatment' }
-              : status === 'in_store' && r.chance(0.08) ? { to: r.pick(STORE_PLACES), reason: 'Rehoused during the store survey' }
-                : undefined;
+        drawn === 'on_display' || drawn === 'on_loan' ? undefined
+          : status === 'in_treatment' ? { to: 'holding', reason: 'To the conservation studio for treatment' }
+            : status === 'in_store' && r.chance(0.08) ? { to: r.pick(STORE_PLACES), reason: 'Rehoused during the store survey' }
+              : undefined;
       out.push({ input, steps: steps.map((s) => processStepInputSchema.parse(s)), move });
     }
   }
