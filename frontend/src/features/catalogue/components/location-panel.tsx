@@ -60,7 +60,7 @@ function MoveForm({ print }: { print: Print }) {
   return (
     <SchemaForm form={form} onValid={onValid} failureTitle="The print was not moved." aria-label="Move this print" className="mt-4 gap-3 rounded border border-paper-300 bg-paper-50 p-3">
       <h3 className="font-sans text-sm font-semibold text-ink-900">Move this print</h3>
-      <div className="grid gap-3 sm:grid-cols-2">
+      <div className="grid gap-3">
         <SelectInput
           name="toLocationId"
           label="To location"
