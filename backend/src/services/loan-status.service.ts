@@ -5,7 +5,7 @@ import { db } from '../db';
 import { conflict, validationFailed } from '../errors';
 import { Loan, LoanObject, LoanStatusChange, Location, Print } from '../models';
 import { recordAudit } from './audit.service';
-import { blockerFor, signedReportsFor } from './loan-rules';
+import { blockersFor, displayApprovalsFor, signedReportsFor } from './loan-rules';
 import { ENTITY, loanDetail, lockLoan } from './loan.service';
 import { moveForLoan, type Actor } from './print.service';
 
@@ -39,7 +39,8 @@ async function awayLocation(institution: string, actor: Actor, requestId: string
 
 /**
  * Moves a loan to its next state, dated. The order is LOAN_NEXT's; each step needs what
- * `blockerFor` asks (prints on the loan, signed reports made for it). A loan out takes its prints
+ * `blockersFor` asks (prints on the loan, signed reports made for it, and for a loan out for an
+ * exhibition each print approved for display there). A loan out takes its prints
  * with it: at in transit each print goes on loan and is moved to the borrower's place, at returned
  * it comes back to where it was and is in store again, each as a recorded movement.
  */
@@ -61,8 +62,12 @@ export async function changeLoanStatus(id: string, body: z.infer<typeof loanStat
     // Not checked against the previous change's day: a loan recorded after the fact has its proposal dated the day it was entered.
 
     const objects = await LoanObject.findAll({ where: { loanId: id }, order: [['position', 'ASC']], transaction: t });
-    const blocker = blockerFor(loan, body.to, objects.map((o) => o.printId), await signedReportsFor(id, t));
-    if (blocker) throw conflict(blocker.message, { to: body.to, printIds: blocker.printIds });
+    const blockers = blockersFor(loan, body.to, objects.map((o) => o.printId), await signedReportsFor(id, t), await displayApprovalsFor(loan, t));
+    if (blockers.length) {
+      // Every reason at once, so the registrar sees all that is left to do; the prints in the loan's order.
+      const named = new Set(blockers.flatMap((b) => b.printIds));
+      throw conflict(blockers.map((b) => b.message).join(' '), { to: body.to, printIds: objects.map((o) => o.printId).filter((p) => named.has(p)) });
+    }
 
     if (loan.direction === 'out' && body.to === 'in_transit') await sendOut(loan, objects, actor, requestId, t);
     if (loan.direction === 'out' && body.to === 'returned') await bringBack(loan, objects, actor, requestId, t);

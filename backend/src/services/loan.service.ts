@@ -13,7 +13,7 @@ import { conflict, notFound, validationFailed } from '../errors';
 import { Loan, LoanObject, LoanStatusChange } from '../models';
 import { conditionColumns, presentLoan, presentStatusChange } from '../presenters/loan.presenter';
 import { recordAudit } from './audit.service';
-import { blockersOf, overlappingLoans, REPORT_CONTEXT, signedReportsFor, spanOf } from './loan-rules';
+import { blockersOf, displayApprovalsFor, overlappingLoans, REPORT_CONTEXT, signedReportsFor, spanOf } from './loan-rules';
 import { insertPrint, type Actor } from './print.service';
 import { changedFields, rethrowUnique, staleEdit } from './versioning';
 
@@ -70,11 +70,12 @@ function objectWarnings(loan: Loan, o: ObjectRow): { code: string; message: stri
 export async function loanDetail(id: string, role: Role | null, t?: Transaction): Promise<LoanDetail> {
   const loan = await Loan.findByPk(id, { transaction: t });
   if (!loan) throw notFound('The loan');
-  const [objects, history, reports, exhibition] = [
+  const [objects, history, reports, exhibition, display] = [
     await objectRows(id, t),
     await LoanStatusChange.findAll({ where: { loanId: id }, order: [['id', 'ASC']], transaction: t }),
     await signedReportsFor(id, t),
     await exhibitionOf(loan.exhibitionId, t),
+    await displayApprovalsFor(loan, t),
   ];
   const values = can(role, 'valuation.read');
   const reportOf = (printId: string, end: 'departure' | 'back') => {
@@ -89,7 +90,7 @@ export async function loanDetail(id: string, role: Role | null, t?: Transaction)
       outgoingReport: reportOf(o.print_id, 'departure'), returningReport: reportOf(o.print_id, 'back'), warnings: objectWarnings(loan, o),
     })),
     statusHistory: history.map(presentStatusChange),
-    blockers: blockersOf(loan, objects.map((o) => o.print_id), reports),
+    blockers: blockersOf(loan, objects.map((o) => o.print_id), reports, display),
   };
 }
 

@@ -42,7 +42,7 @@ export const loansApi = {
     response: { description: 'The new print record', schema: dataEnvelope(printSchema) },
   }),
   changeStatus: endpoint({
-    method: 'post', path: '/api/loans/:id/status', summary: 'Moves the loan to its next state, dated; 409 naming what is missing (a signed report, a date)',
+    method: 'post', path: '/api/loans/:id/status', summary: 'Moves the loan to its next state, dated; 409 naming what is missing (a signed report, approval for display, a date)',
     tags: ['loans'], access: 'loans.write', params: idParamsSchema, body: loanStatusInputSchema, response: { description: 'The loan', schema: detailEnvelope },
   }),
   checklistCsv: endpoint({
