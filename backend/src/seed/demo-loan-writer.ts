@@ -1,7 +1,9 @@
 import { reportInputSchema } from '@toneledger/common/schemas/condition';
 import { borrowedPrintInputSchema, loanInputSchema, loanObjectsInputSchema, loanStatusInputSchema, type LoanConditions, type LoanStatus } from '@toneledger/common/schemas/loans';
 import { printInputSchema } from '@toneledger/common/schemas/catalogue';
-import { ConditionReport, Loan, LoanObject, Print } from '../models';
+import { approvalInputSchema } from '@toneledger/common/schemas/exhibitions';
+import { ConditionReport, ExhibitionObject, Loan, LoanObject, Print } from '../models';
+import { decideObject } from '../services/exhibition.service';
 import { createReport, signReport } from '../services/condition.service';
 import { addBorrowedPrint, createLoan, setLoanObjects } from '../services/loan.service';
 import { changeLoanStatus } from '../services/loan-status.service';
@@ -11,8 +13,9 @@ import { rngFor } from './demo-condition';
 /**
  * The writer of the demo's loans (plans in demo-loans.ts): the loan (matched by reference), its
  * prints or borrowed prints, then each status step in order with the conservator's signed reports
- * the step needs, all through the loan and condition services. A loan an interrupted seed began
- * is completed from where it stands.
+ * the step needs, and before a loan out for an exhibition leaves, the conservator's approval of its
+ * prints for display there, all through the loan, condition and exhibition services. A loan an
+ * interrupted seed began is completed from where it stands.
  */
 
 /** A demo person acting through the services (a signed-in user, so with an id). */
@@ -99,10 +102,24 @@ export async function writeLoan(plan: LoanPlan, exhibitionId: string | null, reg
   for (const step of plan.steps.slice(order.indexOf(current))) {
     const context = NEEDS[plan.direction][step.to];
     if (context) reports += await signedReports(id, plan, printIds, context, conservator, signal);
+    if (plan.direction === 'out' && step.to === 'in_transit' && exhibitionId) await approvedForDisplay(exhibitionId, printIds, conservator, signal);
     signal?.throwIfAborted();
     await changeLoanStatus(id, loanStatusInputSchema.parse({ to: step.to, on: step.on, note: step.note ?? null, version: await loanVersion(id) }), registrar, 'seed');
   }
   return { created, reports, printIds };
+}
+
+/**
+ * The conservator approves for display the loan's prints still waiting on the exhibition's object
+ * list (loan-rules.ts holds the rule: a loan out for an exhibition leaves only with them approved).
+ * A print the plan left off the list, or refused, stays so and the dispatch fails loudly.
+ */
+async function approvedForDisplay(exhibitionId: string, printIds: string[], conservator: Actor, signal?: AbortSignal) {
+  const waiting = await ExhibitionObject.findAll({ where: { exhibitionId, printId: printIds, approval: 'pending' }, attributes: ['printId'], order: [['printId', 'ASC']] });
+  for (const o of waiting) {
+    signal?.throwIfAborted();
+    await decideObject(exhibitionId, o.printId, approvalInputSchema.parse({ decision: 'approved' }), conservator, 'seed');
+  }
 }
 
 const SUMMARIES: Record<'outgoing_loan' | 'returning_loan' | 'incoming', (p: LoanPlan) => string> = {

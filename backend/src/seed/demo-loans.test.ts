@@ -100,6 +100,28 @@ describe('the demo exhibitions and loans', () => {
     }
   });
 
+  it('dispatched every loan out for an exhibition with its prints approved for display there by a conservator; the agreed one still waits', async () => {
+    const left = await rows<{ id: string; exhibitionId: string }>(
+      `SELECT l.id, l.exhibition_id AS "exhibitionId" FROM loans l WHERE l.direction = 'out' AND l.purpose = 'exhibition' AND l.exhibition_id IS NOT NULL
+          AND EXISTS (SELECT 1 FROM loan_status_changes c WHERE c.loan_id = l.id AND c.to_status = 'in_transit')`,
+    );
+    expect(left.length).toBeGreaterThanOrEqual(1);
+    for (const loan of left) {
+      const notApproved = await rows<{ printId: string }>(
+        `SELECT o.print_id AS "printId" FROM loan_objects o
+          WHERE o.loan_id = $1 AND NOT EXISTS (SELECT 1 FROM exhibition_objects e JOIN users u ON u.id = e.approved_by
+                                               WHERE e.exhibition_id = $2 AND e.print_id = o.print_id AND e.approval = 'approved' AND u.role = 'conservator')`,
+        [loan.id, loan.exhibitionId],
+      );
+      expect(notApproved).toEqual([]);
+    }
+    // The agreed loan's exhibition is not approved yet: its page says so before anyone dispatches it.
+    const [agreed] = await rows<{ id: string }>(`SELECT id FROM loans WHERE direction = 'out' AND status = 'agreed'`);
+    const { loanDetail } = await import('../services/loan.service');
+    const detail = await loanDetail(agreed.id, 'registrar');
+    expect(detail.blockers.map((b) => b.message)).toContain(`4 prints are not approved for display in The Toned Print, 1920–1960 by a conservator.`);
+  });
+
   it('shows prints over their light budget, with exposure equal to lux × hours × open days counted by hand', async () => {
     const over = await rows<{ id: string }>(`SELECT id FROM prints WHERE over_light_budget ORDER BY accession_sort`);
     expect(over.length).toBeGreaterThanOrEqual(3);
