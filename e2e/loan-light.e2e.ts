@@ -6,8 +6,8 @@ import { openBrowser, signInAs, BASE_URL } from './browser';
 
 /**
  * A loan out of three prints for an exhibition at an invented gallery: the registrar plans it and its
- * display periods, a conservator signs the outgoing reports, the registrar dispatches it and sees the
- * light warning on the iron-blue print.
+ * display periods, a conservator signs the outgoing reports and approves the prints for display in the
+ * exhibition, the registrar dispatches it and sees the light warning on the iron-blue print.
  *
  * Light figures: CIE 157:2004 (REFERENCES.md §4) gives the high responsivity category at most 50 lx and
  * 15 000 lx·h a year; the defaults of light-budget.ts follow it. 50 lx × 10 h × 60 days = 30 000 lx·h,
@@ -26,6 +26,8 @@ const TITLE = `Blue Tides ${stamp}`;
 const REFERENCE = `LO-${stamp}`;
 const WARNING = 'On display past its light budget';
 const MISSING = /outgoing/i;
+/** The server's words while the prints wait for a conservator's approval for display in the exhibition. */
+const NOT_APPROVED = `3 prints are not approved for display in ${TITLE} by a conservator.`;
 /** The light functions' words for displays that go past the high category's annual 15 000 lx·h. */
 const OVER_BUDGET = /over its annual budget of 15\D?000 lx·h/;
 
@@ -44,6 +46,7 @@ const ironBlue = () => prints[2]!;
 let browser: { context: BrowserContext; close(): Promise<void> };
 let page: Page;
 let loanUrl = '';
+let exhibitionUrl = '';
 
 beforeAll(async () => {
   browser = await openBrowser();
@@ -103,6 +106,7 @@ describe('a loan out of three prints, from plan to dispatch, with the light it w
     await page.getByLabel('Closes').fill(CLOSES);
     await page.getByRole('button', { name: 'Record the exhibition' }).click();
     await page.getByRole('heading', { level: 1, name: TITLE }).waitFor({ timeout: 20_000 });
+    exhibitionUrl = page.url();
 
     await page.getByRole('button', { name: 'Add prints' }).click();
     await page.getByLabel('Accession number or title').fill(`2096.${stamp}`);
@@ -197,6 +201,7 @@ describe('a loan out of three prints, from plan to dispatch, with the light it w
     await alert.getByText('The loan was not moved to in transit.').waitFor({ timeout: 20_000 });
     await expect.poll(async () => alert.innerText()).toMatch(MISSING);
     expect(await alert.innerText()).toContain('3 prints have no signed outgoing condition report for this loan.');
+    expect(await alert.innerText()).toContain(NOT_APPROVED);
     const named = await form.getByText(/^Refused for /).innerText();
     for (const p of prints) expect(named).toContain(p.accessionNumber);
     // The refusal fetches the loan again: what stands in the way is listed above, print by print.
@@ -231,8 +236,26 @@ describe('a loan out of three prints, from plan to dispatch, with the light it w
     await expect.poll(() => objects.getByRole('link', { name: /^Signed / }).count(), { timeout: 20_000 }).toBe(3);
     // Nothing has left yet: the report for the way back is not offered.
     expect(await objects.getByRole('link', { name: 'Write the returning report' }).count()).toBe(0);
-    expect(await page.getByRole('region', { name: 'Before the next step' }).getByText(MISSING).count()).toBe(0);
+    const blockers = page.getByRole('region', { name: 'Before the next step' });
+    expect(await blockers.getByText(MISSING).count()).toBe(0);
+    // The reports are signed, but the prints still wait for a conservator's approval for display.
+    await blockers.getByText(NOT_APPROVED).waitFor({ timeout: 20_000 });
     await shot(page, '5-reports-signed');
+  }, 120_000);
+
+  it('the conservator approves the three prints for display on the exhibition page; nothing then stands in the way', async () => {
+    await page.goto(exhibitionUrl);
+    await page.getByRole('heading', { level: 1, name: TITLE }).waitFor({ timeout: 20_000 });
+    for (const p of prints) {
+      const entry = page.getByRole('listitem', { name: new RegExp(p.accessionNumber.replace(/\./g, '\\.')) });
+      await entry.getByText('Waiting for a conservator').waitFor({ timeout: 20_000 });
+      await entry.getByRole('button', { name: 'Approve', exact: true }).click();
+      await entry.getByText('Approved for display').waitFor({ timeout: 20_000 });
+    }
+    await shot(page, '6-approved-for-display');
+    await page.goto(loanUrl);
+    await page.getByText(`To ${GALLERY} · Agreed · 3 prints`).waitFor({ timeout: 20_000 });
+    expect(await page.getByRole('region', { name: 'Before the next step' }).count()).toBe(0);
   }, 120_000);
 
   it('the registrar dispatches the loan; the iron-blue print is away on loan and warned about its light', async () => {
@@ -249,7 +272,7 @@ describe('a loan out of three prints, from plan to dispatch, with the light it w
     for (const p of prints.slice(0, 2)) expect(await row(p).getByText(WARNING).count()).toBe(0);
     const history = page.getByRole('table', { name: `Status history of loan ${REFERENCE}` });
     await history.getByText('In transit', { exact: true }).waitFor();
-    await shot(page, '6-loan-in-transit');
+    await shot(page, '7-loan-in-transit');
 
     await row(ironBlue()).getByRole('link', { name: ironBlue().accessionNumber }).click();
     await page.waitForURL(new RegExp(`/catalogue/prints/${ironBlue().id}$`));
@@ -259,6 +282,6 @@ describe('a loan out of three prints, from plan to dispatch, with the light it w
     await light.getByText('Light warnings').waitFor({ timeout: 20_000 });
     await light.getByText(OVER_BUDGET).first().waitFor();
     await light.getByText(/^High/).first().waitFor();
-    await shot(page, '7-print-light');
+    await shot(page, '8-print-light');
   }, 120_000);
 });
