@@ -63,7 +63,12 @@ export async function writeLoan(plan: LoanPlan, exhibitionId: string | null, reg
   const created = !loan;
   if (!loan) {
     const { prints: _p, borrowed: _b, steps: _s, examined: _e, exhibition: _x, ...fields } = plan;
-    const made = await createLoan(loanInputSchema.parse({ ...fields, exhibitionId }), registrar, 'seed');
+    // Proposed three weeks before its first step (never after today), as a loan entered after the fact would be.
+    const first = plan.steps[0]?.on;
+    const today = new Date().toISOString().slice(0, 10);
+    const before = first ? new Date(Date.parse(`${first}T00:00:00Z`) - 21 * 86_400_000).toISOString().slice(0, 10) : today;
+    const proposedOn = before < today ? before : today;
+    const made = await createLoan(loanInputSchema.parse({ ...fields, exhibitionId, proposedOn }), registrar, 'seed');
     loan = { id: made.id } as Loan;
   }
   const id = loan.id;

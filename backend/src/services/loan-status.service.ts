@@ -69,8 +69,10 @@ export async function changeLoanStatus(id: string, body: z.infer<typeof loanStat
       throw conflict(blockers.map((b) => b.message).join(' '), { to: body.to, printIds: objects.map((o) => o.printId).filter((p) => named.has(p)) });
     }
 
-    if (loan.direction === 'out' && body.to === 'in_transit') await sendOut(loan, objects, actor, requestId, t);
-    if (loan.direction === 'out' && body.to === 'returned') await bringBack(loan, objects, actor, requestId, t);
+    // The prints move on the day the step happened: now when that is today, else at noon UTC of that day.
+    const movedAt = on === new Date().toISOString().slice(0, 10) ? new Date() : new Date(`${on}T12:00:00Z`);
+    if (loan.direction === 'out' && body.to === 'in_transit') await sendOut(loan, objects, movedAt, actor, requestId, t);
+    if (loan.direction === 'out' && body.to === 'returned') await bringBack(loan, objects, movedAt, actor, requestId, t);
 
     await Loan.update({ status: body.to, version: loan.version + 1 }, { where: { id }, transaction: t });
     await LoanStatusChange.create({ loanId: id, fromStatus: from, toStatus: body.to, onDate: on, note: body.note ?? null, byId: actor.id, byName: actor.name }, { transaction: t });
@@ -82,23 +84,23 @@ export async function changeLoanStatus(id: string, body: z.infer<typeof loanStat
   });
 }
 
-async function sendOut(loan: Loan, objects: LoanObject[], actor: Actor, requestId: string | null, t: Transaction) {
+async function sendOut(loan: Loan, objects: LoanObject[], movedAt: Date, actor: Actor, requestId: string | null, t: Transaction) {
   const away = await awayLocation(loan.otherInstitution, actor, requestId, t);
   for (const o of objects) {
     const print = await Print.findByPk(o.printId, { attributes: ['id', 'locationId'], transaction: t });
     await LoanObject.update({ homeLocationId: print?.locationId ?? null }, { where: { loanId: o.loanId, printId: o.printId }, transaction: t });
-    await moveForLoan(o.printId, away.id, 'on_loan', `Sent on loan ${loan.reference} to ${loan.otherInstitution}`, actor, requestId, t);
+    await moveForLoan(o.printId, away.id, 'on_loan', `Sent on loan ${loan.reference} to ${loan.otherInstitution}`, movedAt, actor, requestId, t);
   }
 }
 
-async function bringBack(loan: Loan, objects: LoanObject[], actor: Actor, requestId: string | null, t: Transaction) {
+async function bringBack(loan: Loan, objects: LoanObject[], movedAt: Date, actor: Actor, requestId: string | null, t: Transaction) {
   for (const o of objects) {
     const reason = `Back from loan ${loan.reference} (${loan.otherInstitution})`;
-    if (o.homeLocationId) await moveForLoan(o.printId, o.homeLocationId, 'in_store', reason, actor, requestId, t);
+    if (o.homeLocationId) await moveForLoan(o.printId, o.homeLocationId, 'in_store', reason, movedAt, actor, requestId, t);
     else {
       // A print that had no place before it left keeps the borrower's place until someone moves it; it is in store again.
       const print = await Print.findByPk(o.printId, { transaction: t });
-      if (print?.locationId) await moveForLoan(o.printId, print.locationId, 'in_store', reason, actor, requestId, t);
+      if (print?.locationId) await moveForLoan(o.printId, print.locationId, 'in_store', reason, movedAt, actor, requestId, t);
     }
   }
 }

@@ -153,6 +153,11 @@ function rangeIssues(l: Pick<Loan, 'temperatureMinC' | 'temperatureMaxC' | 'rhMi
 export async function createLoan(input: LoanInput, actor: Actor, requestId: string | null) {
   return db().transaction(async (t) => {
     await checkExhibition(input.exhibitionId, t);
+    const proposedOn = input.proposedOn ?? new Date().toISOString().slice(0, 10);
+    // The latest calendar day anywhere (UTC+14): a proposal cannot be dated after it.
+    if (proposedOn > new Date(Date.now() + 14 * 3_600_000).toISOString().slice(0, 10)) {
+      throw validationFailed([{ path: 'proposedOn', message: 'The proposal has to have happened: the date cannot be in the future', code: 'future' }]);
+    }
     let loan: Loan;
     try {
       loan = await Loan.create({ ...loanColumns(input), status: 'proposed' } as never, { transaction: t });
@@ -160,7 +165,7 @@ export async function createLoan(input: LoanInput, actor: Actor, requestId: stri
       rethrowUnique(err, 'reference', DUPLICATE);
     }
     await LoanStatusChange.create(
-      { loanId: loan.id, fromStatus: null, toStatus: 'proposed', onDate: new Date().toISOString().slice(0, 10), note: null, byId: actor.id, byName: actor.name },
+      { loanId: loan.id, fromStatus: null, toStatus: 'proposed', onDate: proposedOn, note: null, byId: actor.id, byName: actor.name },
       { transaction: t },
     );
     await recordAudit({ actor, action: 'loan.created', entityType: ENTITY, entityId: loan.id, after: await snapshot(loan.id, t), requestId }, t);

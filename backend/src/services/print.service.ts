@@ -170,7 +170,7 @@ async function checkLoanStatus(id: string, from: string, to: string, t: Transact
  * given status, the movement is recorded and the print's history shows it (`print.moved`).
  */
 export async function moveForLoan(
-  id: string, toLocationId: string, status: string, reason: string, actor: Actor, requestId: string | null, t: Transaction,
+  id: string, toLocationId: string, status: string, reason: string, movedAt: Date, actor: Actor, requestId: string | null, t: Transaction,
 ) {
   const row = await Print.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
   if (!row) throw notFound('The print');
@@ -178,7 +178,7 @@ export async function moveForLoan(
   const to = await Location.findByPk(toLocationId, { transaction: t });
   if (!to) throw notFound('The location');
   if (before.locationId !== to.id) {
-    await Movement.create({ printId: id, fromLocationId: before.locationId, toLocationId: to.id, movedBy: actor.id, movedByName: actor.name, reason }, { transaction: t });
+    await Movement.create({ printId: id, fromLocationId: before.locationId, toLocationId: to.id, movedAt, movedBy: actor.id, movedByName: actor.name, reason }, { transaction: t });
   }
   await Print.update({ locationId: to.id, status, version: before.version + 1 }, { where: { id }, transaction: t });
   await recordAudit(

@@ -115,7 +115,13 @@ const withDateOrder = <T extends z.ZodType<Partial<Record<(typeof DATE_ORDER)[nu
     for (const issue of loanDateIssues(v)) ctx.addIssue({ code: 'custom', path: [issue.path], message: issue.message });
   });
 
-export const loanInputSchema = withDateOrder(z.object(loanFieldsShape));
+export const loanInputSchema = withDateOrder(
+  z.object({
+    ...loanFieldsShape,
+    /** The day the loan was proposed, for a loan recorded after the fact; today when absent. Not in the future. */
+    proposedOn: optionalDate,
+  }),
+);
 export const loanUpdateSchema = withDateOrder(z.object(loanFieldsShape).omit({ direction: true }).partial().extend({ version }));
 
 /** One print on a loan, with its value for insurance or indemnity (registrars and administrators only). */

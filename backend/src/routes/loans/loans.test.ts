@@ -377,6 +377,30 @@ describe('loans: the print follows the loan', () => {
     expect(loan.statusHistory.map((h) => h.to)).toEqual(['proposed', 'approved', 'agreed', 'in_transit', 'on_loan', 'returned']);
   });
 
+  it('a loan recorded after the fact keeps its proposal day and moves its prints on the day each step happened', async () => {
+    const future = new Date(Date.now() + 3 * 86_400_000).toISOString().slice(0, 10);
+    const refused = await api('registrar').post('/api/loans', {
+      direction: 'out', reference: ref(), otherInstitution: 'Harrowgate Gallery of Light', purpose: 'research', proposedOn: future,
+    });
+    expect(refused.status).toBe(400);
+    expect(paths(refused)).toEqual(['proposedOn']);
+
+    const p = await newPrint((await createLocation()).id);
+    let loan = await newLoan({ proposedOn: '2024-01-15', dispatchOn: null, opensOn: null, closesOn: null, returnOn: null });
+    expect(loan.statusHistory[0]).toMatchObject({ to: 'proposed', on: '2024-01-15' });
+    loan = await addObjects(loan, [{ printId: p.id }]);
+    loan = await stepOk(loan, 'approved', { on: '2024-02-01' });
+    loan = await stepOk(loan, 'agreed', { on: '2024-02-20' });
+    await report(p.id, 'outgoing_loan', loan.id);
+    loan = await stepOk(loan, 'in_transit', { on: '2024-03-04' });
+    loan = await stepOk(loan, 'on_loan', { on: '2024-03-05' });
+    await report(p.id, 'returning_loan', loan.id);
+    loan = await stepOk(loan, 'returned', { on: '2024-06-28' });
+    const moves = (await api('registrar').get(`/api/prints/${p.id}/movements`)).body.data as { movedAt: string; reason: string }[];
+    // Newest first: back on the return day, out on the dispatch day, each at noon UTC of its day.
+    expect(moves.filter((m) => m.reason.includes(loan.reference)).map((m) => m.movedAt)).toEqual(['2024-06-28T12:00:00.000Z', '2024-03-04T12:00:00.000Z']);
+  });
+
   it('on loan cannot be set by hand on a print', async () => {
     const p = await newPrint();
     const res = await api('registrar').patch(`/api/prints/${p.id}`, { status: 'on_loan', version: p.version });

@@ -49,6 +49,7 @@ function LoanFields({ creating }: { creating: boolean }) {
         <TextInput name="courier" label={L.courier} />
       </Fieldset>
       <Fieldset legend="Dates">
+        {creating ? <DateInput name="proposedOn" label={L.proposedOn} hint="For a loan recorded after the fact; today when empty." /> : null}
         <DateInput name="dispatchOn" label={L.dispatchOn} />
         <DateInput name="opensOn" label={L.opensOn} />
         <DateInput name="closesOn" label={L.closesOn} />

@@ -23,6 +23,7 @@ export interface LoanFormValues {
   purpose: string;
   exhibitionId: string;
   venue: string;
+  proposedOn: string;
   dispatchOn: string;
   opensOn: string;
   closesOn: string;
@@ -42,6 +43,7 @@ export const LOAN_FIELD_LABELS: Record<keyof LoanFormValues, string> = {
   purpose: 'Purpose',
   exhibitionId: 'Exhibition',
   venue: 'Venue',
+  proposedOn: 'Proposed on',
   dispatchOn: 'Dispatch',
   opensOn: 'Opening',
   closesOn: 'Closing',
@@ -64,7 +66,7 @@ export const CONDITION_LABELS: Record<keyof ConditionsValues, string> = {
 };
 
 /** The edited fields for the stale-edit review (the direction is fixed once the loan exists). */
-export const LOAN_EDIT_FIELDS = fieldList(LOAN_FIELD_LABELS).filter((f) => f.key !== 'direction');
+export const LOAN_EDIT_FIELDS = fieldList(LOAN_FIELD_LABELS).filter((f) => f.key !== 'direction' && f.key !== 'proposedOn');
 
 const text = (v: string | null | undefined) => v ?? '';
 const figure = (v: number | null | undefined) => (v == null ? '' : String(v));
@@ -72,7 +74,7 @@ const figure = (v: number | null | undefined) => (v == null ? '' : String(v));
 export function emptyLoanValues(direction: 'out' | 'in' = 'out'): LoanFormValues {
   return {
     direction, reference: '', otherInstitution: '', contactName: '', contactEmail: '', purpose: 'exhibition', exhibitionId: '', venue: '',
-    dispatchOn: '', opensOn: '', closesOn: '', returnOn: '', courier: '', creditLine: '', notes: '',
+    proposedOn: '', dispatchOn: '', opensOn: '', closesOn: '', returnOn: '', courier: '', creditLine: '', notes: '',
     conditions: {
       maxLux: '', maxAnnualLuxHours: '', temperatureMinC: '', temperatureMaxC: '', rhMinPercent: '', rhMaxPercent: '',
       noAlkalineBufferedMounts: false, other: '',
@@ -85,7 +87,7 @@ export function loanToValues(loan: LoanDetail): LoanFormValues {
   return {
     direction: loan.direction, reference: loan.reference, otherInstitution: loan.otherInstitution, contactName: text(loan.contactName),
     contactEmail: text(loan.contactEmail), purpose: loan.purpose, exhibitionId: loan.exhibition?.id ?? '', venue: text(loan.venue),
-    dispatchOn: text(loan.dispatchOn), opensOn: text(loan.opensOn), closesOn: text(loan.closesOn), returnOn: text(loan.returnOn),
+    proposedOn: '', dispatchOn: text(loan.dispatchOn), opensOn: text(loan.opensOn), closesOn: text(loan.closesOn), returnOn: text(loan.returnOn),
     courier: text(loan.courier), creditLine: text(loan.creditLine), notes: text(loan.notes),
     conditions: {
       maxLux: figure(c.maxLux), maxAnnualLuxHours: figure(c.maxAnnualLuxHours), temperatureMinC: figure(c.temperatureMinC),
@@ -110,7 +112,7 @@ export function loanValuesToBody(values: LoanFormValues): Record<string, unknown
 
 /** The body of an edit: the direction is not edited. */
 export function loanEditValuesToBody(values: LoanFormValues): Record<string, unknown> {
-  const { direction: _direction, ...rest } = loanValuesToBody(values);
+  const { direction: _direction, proposedOn: _proposedOn, ...rest } = loanValuesToBody(values);
   return rest;
 }
 
