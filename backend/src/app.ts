@@ -3,7 +3,7 @@ import { existsSync } from 'node:fs';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
-import type { Logger } from 'pino';
+import { stdSerializers, type Logger } from 'pino';
 import type { AppDeps } from './deps';
 import { requestId, idOf } from './middleware/request-id';
 import { sameOriginWrites } from './middleware/same-origin';
@@ -70,6 +70,10 @@ export function buildApp(deps: AppDeps, logger: Logger): Express {
   const { env } = deps;
   const app = express();
   app.disable('x-powered-by');
+  // No ETag on answers sent with res.send/res.json: every API answer is no-store, so nothing would
+  // ever ask with If-None-Match, and hashing each body costs time on every request. Static files
+  // (express.static, sendFile) keep their own validators.
+  app.set('etag', false);
   app.set('trust proxy', env.TRUST_PROXY === 'false' ? false : env.TRUST_PROXY);
   app.set('query parser', 'extended');
 
@@ -78,6 +82,15 @@ export function buildApp(deps: AppDeps, logger: Logger): Express {
     pinoHttp({
       logger,
       genReqId: (req) => idOf(req as express.Request),
+      // One line per request: the request line and the answer's status. Headers are not written
+      // (every answer carries the whole Content-Security-Policy; the cookie would be redacted
+      // anyway): serialising them cost more than the rest of the line.
+      wrapSerializers: false,
+      serializers: {
+        req: (req: express.Request) => ({ id: idOf(req), method: req.method, url: req.originalUrl ?? req.url, remoteAddress: req.socket?.remoteAddress }),
+        res: (res: express.Response) => ({ statusCode: res.statusCode }),
+        err: stdSerializers.err,
+      },
       autoLogging: { ignore: (req) => req.url === '/api/health' || Boolean(req.url?.startsWith('/assets/')) },
       // Every request is logged in production; on a developer's terminal only refusals and failures.
       customLogLevel: (_req, res, err) =>

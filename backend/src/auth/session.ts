@@ -44,7 +44,8 @@ export function sessionMiddleware(e: Env, pool: pg.Pool) {
   // serialised, never stored) and createSession moves it to the request before express-session
   // hashes the session to see whether it changed. Expiry is checked as connect-pg-simple does.
   store.get = (sid, cb) => {
-    pool.query(SESSION_WITH_USER, [sid, Math.ceil(Date.now() / 1000)]).then(
+    // A named statement: each connection parses and plans it once, not on every request.
+    pool.query({ name: 'session-with-user', text: SESSION_WITH_USER, values: [sid, Math.ceil(Date.now() / 1000)] }).then(
       ({ rows }) => {
         const row = rows[0] as ({ sess: session.SessionData | string } & Record<string, unknown>) | undefined;
         if (!row) return cb(null, null);
