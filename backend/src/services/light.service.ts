@@ -76,7 +76,9 @@ export async function refreshLightWarnings(t: Transaction, printIds?: readonly s
   const asOf = todayIso();
   for (let i = 0; i < ids.length; i += 500) {
     const chunk = ids.slice(i, i + 500);
-    const [prints, rows] = await Promise.all([lightPrints(chunk, t), loadDisplays({ printIds: chunk }, t)]);
+    // One after the other: both run on the transaction's one connection.
+    const prints = await lightPrints(chunk, t);
+    const rows = await loadDisplays({ printIds: chunk }, t);
     const flags = prints.map((p) => {
       const periods = rows.filter((r) => r.print_id === p.id).map(periodOf);
       return periods.length > 0 && pastBudget(statusOf(periods, categoryOf(p, s), s, asOf), asOf);

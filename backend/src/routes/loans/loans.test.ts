@@ -35,7 +35,7 @@ const ref = (prefix = 'LO') => `${prefix}-${Date.now().toString(36)}-${++refSeq}
 const today = () => new Date().toISOString().slice(0, 10);
 
 interface Detail {
-  id: string; version: number; status: string; direction: string;
+  id: string; version: number; status: string; direction: string; reference: string;
   objects: { printId: string; insuranceValue?: number | null; currency?: string | null; outgoingReport: { id: string } | null; returningReport: { id: string } | null }[];
   blockers: { to: string; message: string; printIds: string[] }[];
   statusHistory: { from: string | null; to: string; on: string; note: string | null; by: { name: string } | null }[];
