@@ -35,14 +35,18 @@ export class NameIndex {
 export type Lookups = Record<ReferenceTo, NameIndex> & { pattern: string };
 
 export async function loadLookups(t?: Transaction): Promise<Lookups> {
-  const [makers, papers, locations, enclosures, recipes, settings] = await Promise.all([
-    Maker.findAll({ attributes: ['id', 'name'], transaction: t }),
-    Paper.findAll({ attributes: ['id', 'manufacturer', 'product', 'surface'], transaction: t }),
-    Location.findAll({ attributes: ['id', 'pathLabel', 'code'], transaction: t }),
-    EnclosureType.findAll({ transaction: t }),
-    BathRecipe.findAll({ attributes: ['id', 'name'], transaction: t }),
-    getCatalogueSettings(),
-  ]);
+  // Inside a transaction the reads share its one connection, so they run one after the other; outside, together.
+  const reads = [
+    () => Maker.findAll({ attributes: ['id', 'name'], transaction: t }),
+    () => Paper.findAll({ attributes: ['id', 'manufacturer', 'product', 'surface'], transaction: t }),
+    () => Location.findAll({ attributes: ['id', 'pathLabel', 'code'], transaction: t }),
+    () => EnclosureType.findAll({ transaction: t }),
+    () => BathRecipe.findAll({ attributes: ['id', 'name'], transaction: t }),
+  ] as const;
+  const [makers, papers, locations, enclosures, recipes] = t
+    ? [await reads[0](), await reads[1](), await reads[2](), await reads[3](), await reads[4]()]
+    : await Promise.all([reads[0](), reads[1](), reads[2](), reads[3](), reads[4]()]);
+  const settings = await getCatalogueSettings();
   const l: Lookups = {
     maker: new NameIndex(), paper: new NameIndex(), location: new NameIndex(), enclosure: new NameIndex(), recipe: new NameIndex(),
     pattern: settings.accessionPattern,

@@ -114,7 +114,9 @@ async function commitJob(id: string, log: ImportLog) {
       const [{ status }] = await db().query<{ status: string }>('SELECT status FROM imports WHERE id = $1', { bind: [id], type: QueryTypes.SELECT, transaction: t });
       if (status !== 'committing') return null;
       const files = readFiles(job);
-      const [lookups, existing] = await Promise.all([loadLookups(t), loadExisting(accessionsOf(files.prints), t, true)]);
+      // One after the other on the transaction's connection.
+      const lookups = await loadLookups(t);
+      const existing = await loadExisting(accessionsOf(files.prints), t, true);
       const plan = checkImport(files.prints, files.steps, lookups, existing);
       const first = plan.issues[0];
       if (first) throw conflict(`Row ${first.row} of the ${first.file} file no longer passes its checks (${first.message}). Check the file again.`);

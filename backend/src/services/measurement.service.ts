@@ -297,11 +297,12 @@ export async function printMeasurements(printId: string): Promise<PrintMeasureme
 
 /** Every spot of a print with its change against its baseline (for the light-cost fit in light.service.ts). */
 export async function printSpotChanges(printId: string, t?: Transaction) {
-  const [spots, sessions, settings] = await Promise.all([
-    printSpots(printId, t),
-    MeasurementSession.findAll({ where: { printId }, include: [{ model: SpotReading, as: 'readings' }], transaction: t }) as Promise<(MeasurementSession & { readings?: SpotReading[] })[]>,
-    getMeasurementSettings(t),
-  ]);
+  // One after the other: inside a transaction they share its one connection, where overlapping queries are not allowed.
+  const spots = await printSpots(printId, t);
+  const sessions = (await MeasurementSession.findAll({ where: { printId }, include: [{ model: SpotReading, as: 'readings' }], transaction: t })) as (MeasurementSession & {
+    readings?: SpotReading[];
+  })[];
+  const settings = await getMeasurementSettings(t);
   const histories = historiesBySpot(sessions);
   return { threshold: settings.noticeableDeltaE, spots: spots.map((s) => analyseSpot(s, histories.get(s.id) ?? [], settings.noticeableDeltaE)) };
 }
