@@ -46,7 +46,7 @@ export function allRoutes(deps: AppDeps): RouteDef[] {
     ...conditionRoutes(),
     ...measurementsRoutes(),
     ...exhibitionsRoutes(),
-    ...lightRoutes(),
+    ...lightRoutes(deps),
     ...loansRoutes(),
   ];
   return routes;

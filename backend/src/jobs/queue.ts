@@ -8,6 +8,7 @@ export const QUEUES = {
   purge: 'image-purge',
   importCheck: 'import-check',
   importCommit: 'import-commit',
+  lightRecompute: 'light-recompute',
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 

@@ -3,6 +3,7 @@ import type { ObjectStore } from '@toneledger/storage/object-store';
 import { QUEUES, type JobQueue } from './queue';
 import { fixitySweep, makeDerivatives, purgeWithdrawn } from '../services/image.service';
 import { resumeImports, runImportJob } from '../services/import.service';
+import { recomputeJob, resumeLightRecompute } from '../services/light-recompute.service';
 
 export interface WorkerSettings {
   /** When the fixity sweep runs (cron, UTC): env TONELEDGER_FIXITY_CRON. */
@@ -14,7 +15,8 @@ export interface WorkerSettings {
 /**
  * The server's workers: derivatives on upload, a nightly fixity sweep, the purge of withdrawn images
  * past retention, and the check and commit of CSV imports (queued again here when a stopped server
- * left them unfinished).
+ * left them unfinished), and the recompute of light categories and warnings after a change of the light
+ * settings (queued again when left running).
  */
 export async function startWorkers(queue: JobQueue, store: ObjectStore, logger: Logger, settings: WorkerSettings): Promise<void> {
   const { boss } = queue;
@@ -34,6 +36,10 @@ export async function startWorkers(queue: JobQueue, store: ObjectStore, logger: 
       await runImportJob(kind, job.data.importId, logger);
     });
   }
+  await boss.work<{ generation: number }>(QUEUES.lightRecompute, { batchSize: 1, pollingIntervalSeconds: 1 }, async ([job]) => {
+    await recomputeJob(job.data.generation);
+  });
+  if (await resumeLightRecompute(queue)) logger.warn('a light recompute left running by a stopped server was queued again');
   const resumed = await resumeImports(queue);
   if (resumed.checks + resumed.commits) logger.warn(resumed, 'imports left unfinished by a stopped server were queued again');
   await boss.schedule(QUEUES.fixity, settings.fixityCron, {}, { tz: 'UTC' });

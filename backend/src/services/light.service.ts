@@ -103,17 +103,6 @@ export async function storeLightDerived(printId: string, t: Transaction): Promis
   await refreshLightWarnings(t, [printId], settings);
 }
 
-export async function saveLightSettings(next: LightSettings, actor: Actor, requestId: string | null): Promise<LightSettings> {
-  return db().transaction(async (t) => {
-    const before = await getLightSettings(t);
-    await Setting.upsert({ key: 'light', value: next }, { transaction: t });
-    await recordAudit({ actor, action: 'settings.updated', entityType: 'settings', entityId: 'light', before, after: next, requestId }, t);
-    await recomputeCategories(t, undefined, next);
-    await refreshLightWarnings(t, undefined, next);
-    return next;
-  });
-}
-
 // ── Light cost: ΔE00 at the most sensitive spot against cumulative exposure ──
 
 export interface PrintLightCost {

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { dataEnvelope } from '../schemas/envelope';
-import { lightSettingsSchema, overBudgetItemSchema, printLightSchema, responsivityOverrideInputSchema } from '../schemas/light';
+import { lightRecomputeSchema, lightSettingsSchema, overBudgetItemSchema, printLightSchema, responsivityOverrideInputSchema } from '../schemas/light';
 import { idParamsSchema, isoDate } from '../schemas/primitives';
 import { endpoint } from './endpoint';
 import { settingsSection } from './settings-section';
@@ -25,5 +25,10 @@ export const lightApi = {
   overBudget: endpoint({
     method: 'get', path: '/api/light/over-budget', summary: 'Prints whose displays, as planned, would exceed their annual budget or maximum illuminance',
     tags: ['light'], access: 'light.read', response: { description: 'Prints', schema: dataEnvelope(z.array(overBudgetItemSchema)) },
+  }),
+  recompute: endpoint({
+    method: 'get', path: '/api/settings/light/recompute',
+    summary: "Progress of the recompute of every print's category and light warning after the light settings last changed (null: never changed)",
+    tags: ['settings', 'light'], access: 'light.read', response: { description: 'Progress', schema: dataEnvelope(lightRecomputeSchema.nullable()) },
   }),
 };

@@ -96,3 +96,17 @@ export const overBudgetItemSchema = z.object({
   printId: id, accessionNumber: z.string(), printTitle: z.string(), category: categorySchema,
   annualLuxHours: z.number().nullable(), usedThisYear: z.number(), planned: z.number(), warnings: z.array(warningSchema),
 });
+
+/**
+ * The recompute of every print's category and light warning that a change of the light settings
+ * starts (a background job, in batches): running or done, prints done of the total counted when it
+ * started. A newer change starts it again from the first print.
+ */
+export const lightRecomputeSchema = z.object({
+  status: z.enum(['running', 'done']),
+  done: z.number().int(),
+  total: z.number().int(),
+  startedAt: z.string(),
+  finishedAt: z.string().nullable(),
+});
+export type LightRecompute = z.infer<typeof lightRecomputeSchema>;

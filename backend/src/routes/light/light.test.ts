@@ -6,8 +6,9 @@ import { deltaE00 } from '@toneledger/common/domain/colour';
 import type { DisplayPeriodInput } from '@toneledger/common/domain/light-dose';
 import { testApp } from '../../../test/app';
 import { daysFromToday, exhibitionClient, paths } from '../../../test/exhibition-helpers';
-import { AuditEventModel } from '../../models';
+import { AuditEventModel, Setting } from '../../models';
 import { db } from '../../db';
+import { beginLightRecompute, recomputeBatch, recomputeJob, settleLightRecompute } from '../../services/light-recompute.service';
 
 const t = testApp();
 let h: Awaited<ReturnType<typeof exhibitionClient>>;
@@ -151,7 +152,7 @@ describe('the light category', () => {
     expect((await stored(p.id)).light_responsivity).toBe('medium');
   });
 
-  it('a change of the rules recomputes every print’s category and light warnings', async () => {
+  it('a change of the rules recomputes every print’s category and light warnings, after the request, with its progress', async () => {
     const p = await h.newPrint('cyanotype', 'Cyanotype ferns, rules');
     const e = await h.newExhibition([{ name: 'Calder Reach, Long Gallery', opensOn: daysFromToday(-30), closesOn: daysFromToday(60) }]);
     await h.addObjects(e, [p.id]);
@@ -159,17 +160,77 @@ describe('the light category', () => {
     await h.display(e.id, { printId: p.id, startsOn: daysFromToday(-10), endsOn: daysFromToday(20), lux: 50, hoursPerDay: 10 });
     expect(await stored(p.id)).toMatchObject({ light_responsivity: 'high', over_light_budget: true });
     const before = (await h.as('admin').get('/api/settings/light')).body.data;
+    const [{ n: prints }] = await db().query<{ n: number }>('SELECT count(*)::int AS n FROM prints', { type: QueryTypes.SELECT });
     try {
       const next = { ...before, rules: [{ process: 'cyanotype', category: 'low' }, ...before.rules] };
       expect((await h.as('conservator').put('/api/settings/light', next)).status).toBe(403);
       const res = await h.as('admin').put('/api/settings/light', next);
       expect(res.status, JSON.stringify(res.body)).toBe(200);
+      await settleLightRecompute();
       expect(await stored(p.id)).toMatchObject({ light_responsivity: 'low', over_light_budget: false });
       expect((await h.as('conservator').get(`/api/prints/${p.id}/light`)).body.data).toMatchObject({ category: 'low', defaultCategory: 'low' });
+      const progress = await h.as('researcher').get('/api/settings/light/recompute');
+      expect(progress.status).toBe(200);
+      // Every print of the test database was visited once.
+      expect(progress.body.data).toMatchObject({ status: 'done', done: prints, total: prints, finishedAt: expect.any(String) });
+      expect((await h.as('viewer').get('/api/settings/light/recompute')).status).toBe(403);
+      // The job asked again for the same change (a retry, a second worker) finds it done and changes nothing.
+      const generationRow = async () => (await db().query<{ value: { generation: number; finishedAt: string } }>(
+        "SELECT value FROM settings WHERE key = 'light-recompute'", { type: QueryTypes.SELECT },
+      ))[0]!.value;
+      const g = await generationRow();
+      await recomputeJob(g.generation);
+      expect(await generationRow()).toEqual(g);
     } finally {
       expect((await h.as('admin').put('/api/settings/light', before)).status).toBe(200);
+      await settleLightRecompute();
     }
     expect(await stored(p.id)).toMatchObject({ light_responsivity: 'high', over_light_budget: true });
+  });
+
+  it('two changes in a row end with every print computed from the latest', async () => {
+    const p = await h.newPrint('cyanotype', 'Cyanotype reeds, two changes');
+    const before = (await h.as('admin').get('/api/settings/light')).body.data;
+    try {
+      // The first change would make cyanotypes "medium", the second "low": the second is the one that holds.
+      expect((await h.as('admin').put('/api/settings/light', { ...before, rules: [{ process: 'cyanotype', category: 'medium' }, ...before.rules] })).status).toBe(200);
+      expect((await h.as('admin').put('/api/settings/light', { ...before, rules: [{ process: 'cyanotype', category: 'low' }, ...before.rules] })).status).toBe(200);
+      await settleLightRecompute();
+      expect((await stored(p.id)).light_responsivity).toBe('low');
+      expect((await h.as('admin').get('/api/settings/light/recompute')).body.data.status).toBe('done');
+    } finally {
+      expect((await h.as('admin').put('/api/settings/light', before)).status).toBe(200);
+      await settleLightRecompute();
+    }
+    expect((await stored(p.id)).light_responsivity).toBe('high');
+  });
+
+  it('in batches: a change made while a recompute runs stops the older job and starts again from the first print', async () => {
+    const p = await h.newPrint('cyanotype', 'Cyanotype rushes, batches');
+    const before = (await h.as('admin').get('/api/settings/light')).body.data;
+    const [{ n: prints }] = await db().query<{ n: number }>('SELECT count(*)::int AS n FROM prints', { type: QueryTypes.SELECT });
+    const progress = async () => (await h.as('admin').get('/api/settings/light/recompute')).body.data;
+    const change = (category: string) => db().transaction(async (tx) => {
+      await Setting.upsert({ key: 'light', value: { ...before, rules: [{ process: 'cyanotype', category }, ...before.rules] } }, { transaction: tx });
+      return beginLightRecompute(tx);
+    });
+    try {
+      const g1 = await change('medium');
+      expect(await recomputeBatch(g1, 2)).toBe(true);
+      expect(await progress()).toMatchObject({ status: 'running', done: 2, total: prints });
+      // A newer change while the first is part way: back to the first print.
+      const g2 = await change('low');
+      expect(await progress()).toMatchObject({ status: 'running', done: 0, total: prints, finishedAt: null });
+      expect(await recomputeBatch(g1, 2)).toBe(false);
+      expect((await progress()).done).toBe(0);
+      await recomputeJob(g2, 3);
+      expect(await progress()).toMatchObject({ status: 'done', done: prints, total: prints });
+      expect((await stored(p.id)).light_responsivity).toBe('low');
+    } finally {
+      expect((await h.as('admin').put('/api/settings/light', before)).status).toBe(200);
+      await settleLightRecompute();
+    }
+    expect((await stored(p.id)).light_responsivity).toBe('high');
   });
 });
 
