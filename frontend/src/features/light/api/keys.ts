@@ -13,4 +13,6 @@ export const lightKeys = {
 
 export const lightSettingsKeys = {
   all: ['settings', 'light'] as const,
+  /** Progress of the recompute a change of the settings starts (`lightApi.recompute`). */
+  recompute: () => [...lightSettingsKeys.all, 'recompute'] as const,
 };

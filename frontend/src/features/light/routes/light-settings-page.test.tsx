@@ -9,6 +9,8 @@ import { LightSettingsPage } from '@/features/light/routes/light-settings-page';
 
 const GET = 'GET /api/settings/light';
 const PUT = 'PUT /api/settings/light';
+const RECOMPUTE = 'GET /api/settings/light/recompute';
+const noRecompute = () => json({ data: null });
 
 function type(field: HTMLElement, value: string) {
   fireEvent.change(field, { target: { value } });
@@ -21,7 +23,7 @@ function budgetField(category: RegExp, label: string) {
 
 describe('LightSettingsPage', { timeout: 20_000 }, () => {
   it('shows the budgets with their source and the rules in order', async () => {
-    mockFetch({ [GET]: () => json({ data: DEFAULT_LIGHT_SETTINGS }) });
+    mockFetch({ [GET]: () => json({ data: DEFAULT_LIGHT_SETTINGS }), [RECOMPUTE]: noRecompute });
     renderPage(<LightSettingsPage />, { me: makeMe('admin') });
     await screen.findByRole('group', { name: /^High/ });
     expect(budgetField(/^High/, 'Maximum illuminance (lx)').value).toBe('50');
@@ -37,7 +39,7 @@ describe('LightSettingsPage', { timeout: 20_000 }, () => {
   });
 
   it('refuses a figure that is not a number without sending it', async () => {
-    const { requests } = mockFetch({ [GET]: () => json({ data: DEFAULT_LIGHT_SETTINGS }) });
+    const { requests } = mockFetch({ [GET]: () => json({ data: DEFAULT_LIGHT_SETTINGS }), [RECOMPUTE]: noRecompute });
     renderPage(<LightSettingsPage />, { me: makeMe('admin') });
     await screen.findByRole('group', { name: /^High/ });
     type(budgetField(/^High/, 'Annual exposure (lx·h)'), '15 000');
@@ -52,6 +54,7 @@ describe('LightSettingsPage', { timeout: 20_000 }, () => {
     let puts = 0;
     const { requests } = mockFetch({
       [GET]: () => json({ data: DEFAULT_LIGHT_SETTINGS }),
+      [RECOMPUTE]: noRecompute,
       [PUT]: (request) => {
         puts += 1;
         return puts === 1
@@ -81,11 +84,30 @@ describe('LightSettingsPage', { timeout: 20_000 }, () => {
   });
 
   it('is read-only for people who do not manage settings', async () => {
-    mockFetch({ [GET]: () => json({ data: DEFAULT_LIGHT_SETTINGS }) });
+    mockFetch({ [GET]: () => json({ data: DEFAULT_LIGHT_SETTINGS }), [RECOMPUTE]: noRecompute });
     renderPage(<LightSettingsPage />, { me: makeMe('conservator') });
     await screen.findByRole('group', { name: /^High/ });
     expect(budgetField(/^High/, 'Maximum illuminance (lx)').closest('fieldset:disabled')).not.toBeNull();
     expect(screen.queryByRole('button', { name: 'Save' })).toBeNull();
     expect(screen.getByText('Only administrators change these settings.')).toBeTruthy();
+  });
+
+  it('shows how far the recompute after a change has gone, asking again while it runs, then when it ended', async () => {
+    const startedAt = '2026-03-02T09:00:00.000Z';
+    const answers = [
+      { status: 'running', done: 40_000, total: 200_000, startedAt, finishedAt: null },
+      { status: 'running', done: 45_000, total: 200_000, startedAt, finishedAt: null },
+      { status: 'done', done: 200_000, total: 200_000, startedAt, finishedAt: '2026-03-02T09:01:10.000Z' },
+    ];
+    const { requests } = mockFetch({ [GET]: () => json({ data: DEFAULT_LIGHT_SETTINGS }), [RECOMPUTE]: () => json({ data: answers.length > 1 ? answers.shift() : answers[0] }) });
+    renderPage(<LightSettingsPage />, { me: makeMe('admin') });
+    expect(await screen.findByText('Recomputing categories: 40,000 of 200,000')).toBeTruthy();
+    expect(await screen.findByText('Recomputing categories: 45,000 of 200,000', undefined, { timeout: 5_000 })).toBeTruthy();
+    expect(await screen.findByText(/^Categories and light warnings of 200,000 prints recomputed on /, undefined, { timeout: 5_000 })).toBeTruthy();
+    const asked = requests.filter((r) => r.path === '/api/settings/light/recompute').length;
+    expect(asked).toBe(3);
+    // Done: no more asking.
+    await new Promise((r) => setTimeout(r, 2_500));
+    expect(requests.filter((r) => r.path === '/api/settings/light/recompute')).toHaveLength(asked);
   });
 });
