@@ -43,7 +43,8 @@ async function progressRow(t: Transaction) {
 export async function beginLightRecompute(t: Transaction): Promise<number> {
   const row = await progressRow(t);
   const generation = ((row?.value as RecomputeRow | undefined)?.generation ?? 0) + 1;
-  const [{ n }] = await db().query<{ n: number }>('SELECT count(*)::int AS n FROM prints', { transaction: t, type: QueryTypes.SELECT });
+  // The planner's estimate here (a count of every row takes seconds just after a full rewrite); the first batch counts.
+  const [{ n }] = await db().query<{ n: number }>("SELECT greatest(reltuples, 0)::int AS n FROM pg_class WHERE oid = 'prints'::regclass", { transaction: t, type: QueryTypes.SELECT });
   const value: RecomputeRow = { generation, status: 'running', done: 0, total: n, cursor: null, startedAt: new Date().toISOString(), finishedAt: null };
   await Setting.upsert({ key: KEY, value }, { transaction: t });
   return generation;
@@ -102,11 +103,12 @@ export async function recomputeBatch(generation: number, size = RECOMPUTE_BATCH)
       )).map((r) => r.id);
       await refreshLightWarnings(t, withWarning, settings);
     }
+    const total = p.cursor === null ? (await db().query<{ n: number }>('SELECT count(*)::int AS n FROM prints', { transaction: t, type: QueryTypes.SELECT }))[0]!.n : p.total;
     const done = p.done + ids.length;
     const finished = ids.length < size;
     const next: RecomputeRow = finished
       ? { ...p, status: 'done', done, total: done, cursor: null, finishedAt: new Date().toISOString() }
-      : { ...p, done, cursor: ids[ids.length - 1]! };
+      : { ...p, done, total, cursor: ids[ids.length - 1]! };
     await Setting.update({ value: next }, { where: { key: KEY }, transaction: t });
     return !finished;
   });

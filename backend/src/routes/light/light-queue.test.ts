@@ -51,7 +51,7 @@ describe('the light recompute on the job queue', () => {
       // No worker yet (as a server stopped after the change): the job waits, the print is as it was.
       const g = await generation();
       expect(await jobsOf(g)).toEqual([{ state: 'created' }]);
-      expect((await h.as('admin').get('/api/settings/light/recompute')).body.data).toMatchObject({ status: 'running', done: 0, total: prints });
+      expect((await h.as('admin').get('/api/settings/light/recompute')).body.data).toMatchObject({ status: 'running', done: 0, finishedAt: null });
       expect(await category(p.id)).toBe(was);
 
       // The workers start and queue the running recompute again: two jobs of one generation, the work done once.
