@@ -167,22 +167,30 @@ export function getJson<T = unknown>(url: string, cookie: string): Promise<{ sta
 }
 
 /** GET /api/me `runs` times after `warmup`; prints the breakdown and returns the client's times (ms). */
-export async function measureMe(
+export function measureMe(
   base: string, cookie: string, runs: number, warmup: number, instrumented: Instrumented,
+  inProcess: { label: string; run: () => unknown }[],
+): Promise<{ median: number; p95: number }> {
+  return measureRequest(base, '/api/me', 'Cost of a signed-in request: GET /api/me', cookie, runs, warmup, instrumented, inProcess);
+}
+
+/** GET `path` `runs` times after `warmup`; prints each stage's median and returns the client's times (ms). */
+export async function measureRequest(
+  base: string, path: string, title: string, cookie: string, runs: number, warmup: number, instrumented: Instrumented,
   inProcess: { label: string; run: () => unknown }[],
 ): Promise<{ median: number; p95: number }> {
   const client: number[] = [];
   for (let i = 0; i < runs + warmup; i++) {
     if (i === warmup) instrumented.reset();
     const t0 = performance.now();
-    const res = await getJson(`${base}/api/me`, cookie);
-    if (res.status !== 200) throw new Error(`GET /api/me answered ${res.status}`);
+    const res = await getJson(`${base}${path}`, cookie);
+    if (res.status !== 200) throw new Error(`GET ${path} answered ${res.status}`);
     if (i >= warmup) client.push(performance.now() - t0);
   }
   const us = (x: number) => `${Math.round(x).toString().padStart(6)} µs`;
   const width = Math.max(...instrumented.stages.map((s) => s.label.length), ...inProcess.map((s) => s.label.length + 4), 44);
   console.log('');
-  console.log(`Cost of a signed-in request: GET /api/me, ${runs} runs after ${warmup} warm-up, production configuration (medians):`);
+  console.log(`${title}, ${runs} runs after ${warmup} warm-up, production configuration (medians):`);
   for (const s of instrumented.stages) if (s.samples.length) console.log(`  ${s.label.padEnd(width)} ${us(median(s.samples))}`);
   for (const p of inProcess) {
     const xs: number[] = [];

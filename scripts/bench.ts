@@ -1,5 +1,5 @@
 /**
- * npm run bench [-- --runs 50 --warmup 5]
+ * npm run bench [-- --runs 50 --warmup 5] [--only "sorted, page 1"] [--no-images]
  *
  * Measures the catalogue list at scale, on the toneledger_scale database that
  * `npm run seed:scale` fills (on the development PostgreSQL cluster; the demo database is not
@@ -27,7 +27,7 @@ import { startLocalServices, type LocalServices } from './services';
 import { printListQuerySchema, printListItemSchema, type PrintListQuery } from '../common/src/schemas/catalogue';
 import { pageEnvelope } from '../common/src/schemas/envelope';
 import { DEMO_ACCOUNTS } from '../backend/src/seed/demo-accounts';
-import { productionApp, measureMe, getJson, median, quantile } from './bench-request';
+import { productionApp, measureMe, measureRequest, getJson, median, quantile } from './bench-request';
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const DATABASE = 'toneledger_scale';
@@ -43,6 +43,9 @@ function arg(name: string, fallback: number): number {
 }
 const RUNS = arg('runs', 50);
 const WARMUP = arg('warmup', 5);
+/** `--only <text>`: the scenarios whose name contains the text; `--no-images`: the list alone. */
+const ONLY = process.argv.includes('--only') ? process.argv[process.argv.indexOf('--only') + 1] ?? '' : '';
+const IMAGES = !process.argv.includes('--no-images');
 
 interface Scenario {
   name: string;
@@ -136,7 +139,7 @@ try {
     }
     const results: Result[] = [];
 
-    for (const s of SCENARIOS) {
+    for (const s of SCENARIOS.filter((x) => x.name.includes(ONLY))) {
       const query: PrintListQuery = printListQuerySchema.parse(s.query);
       const url = `${base}/api/prints?${new URLSearchParams(s.query)}`;
       const sql = buildListSql(query, ROLE);
@@ -226,6 +229,23 @@ try {
       { label: 'JSON.stringify of the answer', run: () => JSON.stringify({ data: me }) },
     ]);
     console.log('');
+    // The list's largest fixed part, stage by stage: the first scenario measured (sorted, page 1 by default).
+    if (results.length) {
+      const { listPrints } = await import('../backend/src/services/print-list.service');
+      const s = results[0].s;
+      const query = printListQuerySchema.parse(s.query);
+      const sql = buildListSql(query, ROLE);
+      const answer = await listPrints(query, ROLE);
+      await measureRequest(base, `/api/prints?${new URLSearchParams(s.query)}`, `The list, ${s.name}: GET /api/prints`, cookie, Math.max(RUNS, 100), WARMUP * 4, prod.instrumented, [
+        { label: 'of which listPrints (the service: its statements on the app pool)', run: () => listPrints(query, ROLE) },
+        { label: 'the bare statements (select ‖ count, then estimate)', run: async () => {
+          await Promise.all([sqlPool!.query(sql.select, sql.params), sqlPool!.query(sql.count, sql.countParams)]);
+          if (answer.estimated) await sqlPool!.query(sql.estimate, sql.countParams);
+        } },
+        { label: 'JSON.stringify of the answer', run: () => JSON.stringify({ data: answer.rows, pagination: { total: answer.total } }) },
+      ]);
+      console.log(`  load average ${os.loadavg().map((x) => x.toFixed(2)).join(' ')}`);
+    }
     console.log(`Fixed cost of a signed-in request (GET /api/me): median ${fixed.median.toFixed(2)} ms, p95 ${fixed.p95.toFixed(2)} ms (target: median ≤ 1.5 ms) ${fixed.median <= 1.5 ? 'ok' : 'MISS'}; load average ${os.loadavg().map((x) => x.toFixed(2)).join(' ')}.`)
     console.log('API = GET /api/prints over HTTP incl. session lookup and JSON; SQL = the same select + count in parallel; ');
     console.log(`check = in-process cost of the response-contract check the app runs in development and tests only (not in API: production skips it).`);
@@ -266,6 +286,6 @@ try {
   await cluster?.stop();
 }
 // The image pipeline, in a process of its own (its own services and environment).
-const images = spawnSync(path.join(ROOT, 'node_modules', '.bin', 'tsx'), [path.join(ROOT, 'scripts', 'bench-images.ts')], { stdio: 'inherit', cwd: ROOT });
+const images = !IMAGES ? { status: 0 } : spawnSync(path.join(ROOT, 'node_modules', '.bin', 'tsx'), [path.join(ROOT, 'scripts', 'bench-images.ts')], { stdio: 'inherit', cwd: ROOT });
 if (images.status !== 0 && code === 0) code = images.status ?? 1;
 process.exit(code);
