@@ -1,8 +1,8 @@
-import { spawn, type ChildProcess } from 'node:child_process';
-import path from 'node:path';
+import type { ChildProcess } from 'node:child_process';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import { testApp, sessionFor } from './app';
+import { exited, startChildServer } from './child-server';
 import { createMaker } from './factories';
 import { db } from '../src/db';
 
@@ -11,8 +11,6 @@ import { db } from '../src/db';
  * killed with SIGKILL while about a hundred print creations are in flight, then started again.
  * Every creation that was answered 201 must be there, and no print may be half-written.
  */
-const ROOT = path.resolve(import.meta.dirname, '../..');
-const SERVER = path.join(ROOT, 'backend/src/server.ts');
 const t = testApp();
 let registrar: string;
 const children = new Set<ChildProcess>();
@@ -25,36 +23,11 @@ afterAll(async () => {
   await t.close();
 });
 
-/** Starts the server in a child process on a free port; resolves with its URL once it listens. */
-function startChild(): Promise<{ url: string; child: ChildProcess }> {
-  const child = spawn(process.execPath, ['--import', 'tsx', SERVER], {
-    cwd: ROOT, env: { ...process.env, PORT: '0', LOG_LEVEL: 'error' }, stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  children.add(child);
-  child.once('exit', () => children.delete(child));
-  return new Promise((resolve, reject) => {
-    let out = '';
-    let err = '';
-    const timer = setTimeout(() => { child.kill('SIGKILL'); reject(new Error(`the server did not start within 60 s: ${err.slice(-2000)}`)); }, 60_000);
-    child.stderr!.on('data', (d: Buffer) => { err += d.toString(); });
-    child.stdout!.on('data', (d: Buffer) => {
-      out += d.toString();
-      const url = out.match(/listening on (http:\/\/\S+)/)?.[1];
-      if (url) { clearTimeout(timer); resolve({ url, child }); }
-    });
-    child.once('exit', (code) => { clearTimeout(timer); reject(new Error(`the server exited (${code}) before listening: ${err.slice(-2000)}`)); });
-  });
-}
-
-function exited(child: ChildProcess): Promise<void> {
-  return child.exitCode !== null || child.signalCode !== null ? Promise.resolve() : new Promise((r) => child.once('exit', () => r()));
-}
-
 describe('a server killed while prints are being created', () => {
   it('keeps every print it answered 201 for, each whole, and serves again after a restart', { timeout: 180_000 }, async () => {
     const maker = await createMaker();
     const run = `2093.${Date.now() % 100000}`;
-    const first = await startChild();
+    const first = await startChildServer(children);
     const create = (i: number, url: string) =>
       fetch(`${url}/api/prints`, {
         method: 'POST',
@@ -82,7 +55,7 @@ describe('a server killed while prints are being created', () => {
     // Anything else was cut off by the kill (no answer), never refused.
     expect(results.filter((r) => r.status !== 201 && r.status !== 0)).toEqual([]);
 
-    const second = await startChild();
+    const second = await startChildServer(children);
     try {
       // Each print answered 201 is served after the restart.
       for (const r of created) {
