@@ -75,7 +75,7 @@ const SEVERITY_ORDER = { high: 0, medium: 1, low: 2 } as const;
 export const OVER_LIGHT_BUDGET_WARNING: CompatibilityWarning = {
   code: 'over_light_budget',
   severity: 'high',
-  message: 'On display past its light budget: its displays, as planned, exceed the annual exposure or the maximum illuminance of its light category. See its light panel for the figures and the rest owed.',
+  message: 'On display past its light budget: its displays, as planned, exceed the annual exposure or the maximum illuminance of its light category. Staff see the figures and the rest owed in the light dose of the print.',
   basis: 'Light budgets per light-responsivity category (CIE 157:2004; REFERENCES.md §4), as set in the light settings.',
 };
 
