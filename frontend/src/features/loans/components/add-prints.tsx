@@ -1,17 +1,13 @@
-import { useState, type FormEvent } from 'react';
 import { useFieldArray } from 'react-hook-form';
 import { CURRENCIES } from '@toneledger/common/domain/currencies';
 import { can, type Role } from '@toneledger/common/domain/roles';
-import { printListQuerySchema } from '@toneledger/common/schemas/catalogue';
 import { loanObjectsInputSchema, type LoanDetail } from '@toneledger/common/schemas/loans';
 import { NumberInput, SelectInput } from '@/components/form/fields';
 import { SchemaForm } from '@/components/form/schema-form';
 import { SubmitCancel } from '@/components/form/submit-cancel';
 import { Button } from '@/components/ui/button';
-import { ErrorNotice } from '@/components/ui/notice';
-import { SearchField } from '@/components/ui/search-field';
+import { PrintFinder } from '@/components/ui/print-finder';
 import { useSchemaForm } from '@/lib/forms/use-schema-form';
-import { useFindPrints } from '@/lib/prints-api';
 import { useSetLoanObjects } from '@/features/loans/api/save-loan';
 import { typedNumber } from '@/lib/forms/typed-number';
 
@@ -45,9 +41,6 @@ function toBody(values: AddValues, withValues: boolean, version: number) {
  */
 export function AddPrints({ loan, role, onDone }: { loan: LoanDetail; role: Role; onDone: () => void }) {
   const withValues = can(role, 'valuation.read');
-  const [text, setText] = useState('');
-  const [q, setQ] = useState('');
-  const found = useFindPrints({ q, pageSize: 10 });
   const save = useSetLoanObjects(loan.id);
   const form = useSchemaForm({
     schema: loanObjectsInputSchema,
@@ -58,12 +51,6 @@ export function AddPrints({ loan, role, onDone }: { loan: LoanDetail; role: Role
   const onLoan = new Set(loan.objects.map((o) => o.printId));
   const chosen = new Set(rows.fields.map((r) => r.printId));
 
-  function search(event: FormEvent) {
-    event.preventDefault();
-    setQ(text.trim());
-  }
-
-  const results = q && found.data ? found.data.data : null;
   const labelFor = (path: string, label: string | null) => {
     const match = /^objects\.(\d+)\.(\w+)/.exec(path);
     if (!match) return label;
@@ -73,34 +60,12 @@ export function AddPrints({ loan, role, onDone }: { loan: LoanDetail; role: Role
 
   return (
     <section aria-label="Add prints to the loan" className="flex flex-col gap-3 rounded border border-paper-300 bg-paper-50 p-3 print:hidden">
-      <form role="search" aria-label="Find prints" onSubmit={search} className="flex flex-wrap items-end gap-2">
-        <SearchField label="Accession number or title" value={text} onText={setText} querySchema={printListQuerySchema} fieldClassName="w-72" />
-        <Button type="submit">Find</Button>
-      </form>
-      {found.isError ? <ErrorNotice error={found.error} title="The search failed." /> : null}
-      {results ? (
-        results.length === 0 ? (
-          <p role="status" className="text-sm text-ink-700">
-            No print matches “{q}”.
-          </p>
-        ) : (
-          <ul aria-label="Prints found" className="flex flex-col gap-1 text-sm">
-            {results.map((p) => (
-              <li key={p.id} className="flex items-center gap-2">
-                <Button
-                  size="sm"
-                  disabled={onLoan.has(p.id) || chosen.has(p.id)}
-                  onClick={() => rows.append({ printId: p.id, accessionNumber: p.accessionNumber, title: p.title, insuranceValue: '', currency: '' })}
-                  aria-label={`Choose ${p.accessionNumber}`}
-                >
-                  {onLoan.has(p.id) ? 'On the loan' : chosen.has(p.id) ? 'Chosen' : 'Choose'}
-                </Button>
-                <span className="mono">{p.accessionNumber}</span> {p.title}
-              </li>
-            ))}
-          </ul>
-        )
-      ) : null}
+      <PrintFinder
+        taken={onLoan}
+        takenLabel="On the loan"
+        chosen={chosen}
+        onChoose={(p) => rows.append({ printId: p.id, accessionNumber: p.accessionNumber, title: p.title, insuranceValue: '', currency: '' })}
+      />
       <SchemaForm
         form={form}
         aria-label="Prints to add"
