@@ -1,10 +1,12 @@
 import type { Contract } from './endpoint';
 import { authApi } from './auth';
+import { climateApi, climateSettingsApi } from './climate';
 import { conditionSettingsApi, conditionTermsApi, reportsApi } from './condition';
 import { devMailApi } from './dev-mail';
 import { displaysApi, exhibitionsApi } from './exhibitions';
 import { fixityApi, imagesApi } from './images';
 import { importsApi } from './imports';
+import { remindersApi, roundsApi, scheduleApi } from './inspections';
 import { lightApi, lightSettingsApi } from './light';
 import { loansApi } from './loans';
 import { measurementSettingsApi, measurementsApi } from './measurements';
@@ -18,4 +20,5 @@ export const allContracts: Record<string, Contract> = {
   systemApi, authApi, meApi, usersApi, auditApi, devMailApi, printsApi, importsApi, makersApi, papersApi, recipesApi, enclosuresApi,
   locationsApi, catalogueSettingsApi, imagesApi, fixityApi, conditionSettingsApi, conditionTermsApi, reportsApi, measurementSettingsApi,
   measurementsApi, exhibitionsApi, displaysApi, lightApi, lightSettingsApi, loansApi,
+  climateApi, climateSettingsApi, scheduleApi, roundsApi, remindersApi,
 };

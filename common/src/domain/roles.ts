@@ -46,7 +46,14 @@ export const PERMISSIONS = {
   'light.read': ['admin', 'registrar', 'conservator', 'researcher'],
   /** Overriding a print's light responsivity category, with a reason. */
   'light.write': ['conservator'],
+  /** Storage climate: logger readings and their figures; conservators load the logger files. */
+  'climate.read': ['admin', 'registrar', 'conservator', 'researcher'],
+  'climate.write': ['conservator'],
   'schedule.read': ['admin', 'registrar', 'conservator', 'researcher'],
+  /** The inspection schedule: overriding a print's date with a reason, planning and changing rounds, a full recompute. */
+  'schedule.write': ['conservator'],
+  /** Every weekly digest sent or tried, with failures. */
+  'digests.read': ['admin'],
   'research.run': ['admin', 'conservator', 'researcher'],
   'users.manage': ['admin'],
   'audit.read': ['admin'],
