@@ -6,6 +6,7 @@ import { initConditionModels } from './condition';
 import { initMeasurementModels } from './measurements';
 import { initExhibitionModels } from './exhibitions';
 import { initLoanModels } from './loans';
+import { initInspectionRoundModels } from './inspection-rounds';
 
 export * from './catalogue';
 export * from './images';
@@ -13,6 +14,7 @@ export * from './condition';
 export * from './measurements';
 export * from './exhibitions';
 export * from './loans';
+export * from './inspection-rounds';
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<string>;
@@ -78,4 +80,5 @@ export function initModels(sequelize: Sequelize): void {
   initMeasurementModels(sequelize);
   initExhibitionModels(sequelize);
   initLoanModels(sequelize);
+  initInspectionRoundModels(sequelize);
 }
