@@ -28,6 +28,7 @@ import { measurementsRoutes } from './routes/measurements/measurements.routes';
 import { exhibitionsRoutes } from './routes/exhibitions/exhibitions.routes';
 import { lightRoutes } from './routes/light/light.routes';
 import { loansRoutes } from './routes/loans/loans.routes';
+import { roundsRoutes, worklistRoutes } from './routes/inspections/rounds.routes';
 
 /** Every route the app serves, in one list: Express mounts it and OpenAPI describes it. */
 export function allRoutes(deps: AppDeps): RouteDef[] {
@@ -48,6 +49,8 @@ export function allRoutes(deps: AppDeps): RouteDef[] {
     ...exhibitionsRoutes(),
     ...lightRoutes(deps),
     ...loansRoutes(),
+    ...worklistRoutes(),
+    ...roundsRoutes(),
   ];
   return routes;
 }

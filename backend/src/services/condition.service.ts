@@ -10,6 +10,7 @@ import { getCatalogueSettings } from './settings.service';
 import { conflict, forbidden, notFound, validationFailed } from '../errors';
 import { presentReport, presentTerm, type LoadedReport } from '../presenters/condition.presenter';
 import { recordAudit } from './audit.service';
+import { checkOffRounds } from './round.service';
 import { changedFields, rethrowUnique, staleEdit } from './versioning';
 
 /** Who is acting: every condition write is attributed to a signed-in person. */
@@ -288,6 +289,7 @@ export async function signReport(id: string, version: number, actor: Actor, requ
     if (!before.grade) throw validationFailed([{ path: 'grade', message: 'Give an overall grade before signing', code: 'required' }], 'A report needs an overall grade to be signed.');
     await ConditionReport.update({ status: 'signed', signedAt: new Date(), version: before.version + 1 }, { where: { id }, transaction: t });
     const after = await loadReport(id, t);
+    await checkOffRounds(after, t);
     await recordAudit(
       { actor, action: 'condition_report.signed', entityType: ENTITY, entityId: id, before: { status: 'draft' }, after: snapshot(after), requestId },
       t,

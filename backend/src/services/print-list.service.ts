@@ -137,7 +137,7 @@ export function presentListRow(r: ListRow, restricted: boolean): PrintListItem {
  * same pool). Sequelize's handling of a raw SELECT's rows costs a few milliseconds on a page of 50
  * wide rows, more than the fixed cost of the whole request; the rows are the same plain objects.
  */
-async function pgRows<T>(text: string, values: unknown[]): Promise<T[]> {
+export async function pgRows<T>(text: string, values: unknown[]): Promise<T[]> {
   const manager = db().connectionManager as unknown as {
     getConnection(): Promise<{ query(text: string, values: unknown[]): Promise<{ rows: T[] }> }>;
     releaseConnection(connection: unknown): Promise<void>;
