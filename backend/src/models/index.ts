@@ -6,6 +6,7 @@ import { initConditionModels } from './condition';
 import { initMeasurementModels } from './measurements';
 import { initExhibitionModels } from './exhibitions';
 import { initLoanModels } from './loans';
+import { initClimateModels } from './climate';
 import { initInspectionRoundModels } from './inspection-rounds';
 
 export * from './catalogue';
@@ -14,6 +15,7 @@ export * from './condition';
 export * from './measurements';
 export * from './exhibitions';
 export * from './loans';
+export * from './climate';
 export * from './inspection-rounds';
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
@@ -80,5 +82,6 @@ export function initModels(sequelize: Sequelize): void {
   initMeasurementModels(sequelize);
   initExhibitionModels(sequelize);
   initLoanModels(sequelize);
+  initClimateModels(sequelize);
   initInspectionRoundModels(sequelize);
 }
