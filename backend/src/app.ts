@@ -29,6 +29,7 @@ import { exhibitionsRoutes } from './routes/exhibitions/exhibitions.routes';
 import { lightRoutes } from './routes/light/light.routes';
 import { loansRoutes } from './routes/loans/loans.routes';
 import { roundsRoutes, worklistRoutes } from './routes/inspections/rounds.routes';
+import { scheduleRoutes } from './routes/inspections/schedule.routes';
 
 /** Every route the app serves, in one list: Express mounts it and OpenAPI describes it. */
 export function allRoutes(deps: AppDeps): RouteDef[] {
@@ -51,6 +52,7 @@ export function allRoutes(deps: AppDeps): RouteDef[] {
     ...loansRoutes(),
     ...worklistRoutes(),
     ...roundsRoutes(),
+    ...scheduleRoutes(deps),
   ];
   return routes;
 }

@@ -9,6 +9,8 @@ export const QUEUES = {
   importCheck: 'import-check',
   importCommit: 'import-commit',
   lightRecompute: 'light-recompute',
+  scheduleUpdate: 'schedule-update',
+  scheduleRecompute: 'schedule-recompute',
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 

@@ -4,6 +4,7 @@ import { QUEUES, type JobQueue } from './queue';
 import { fixitySweep, makeDerivatives, purgeWithdrawn } from '../services/image.service';
 import { resumeImports, runImportJob } from '../services/import.service';
 import { recomputeJob, resumeLightRecompute } from '../services/light-recompute.service';
+import { markUnscheduled, processStale, resumeScheduleRecompute, scheduleRecomputeJob } from '../services/schedule-jobs';
 
 export interface WorkerSettings {
   /** When the fixity sweep runs (cron, UTC): env TONELEDGER_FIXITY_CRON. */
@@ -40,6 +41,16 @@ export async function startWorkers(queue: JobQueue, store: ObjectStore, logger: 
     await recomputeJob(job.data.generation);
   });
   if (await resumeLightRecompute(queue)) logger.warn('a light recompute left running by a stopped server was queued again');
+  // The next-inspection dates: marks of changed inputs worked off, and the full recompute (queued again when left running).
+  await boss.work(QUEUES.scheduleUpdate, { batchSize: 1, pollingIntervalSeconds: 1 }, async () => {
+    await processStale();
+  });
+  await boss.work(QUEUES.scheduleRecompute, { batchSize: 1, pollingIntervalSeconds: 1 }, async () => {
+    await scheduleRecomputeJob();
+  });
+  if (await resumeScheduleRecompute(queue)) logger.warn('a full recompute of inspection dates left running by a stopped server was queued again');
+  const unscheduled = await markUnscheduled(queue);
+  if (unscheduled) logger.info({ prints: unscheduled }, 'prints without an inspection date marked for the schedule job');
   const resumed = await resumeImports(queue);
   if (resumed.checks + resumed.commits) logger.warn(resumed, 'imports left unfinished by a stopped server were queued again');
   await boss.schedule(QUEUES.fixity, settings.fixityCron, {}, { tz: 'UTC' });

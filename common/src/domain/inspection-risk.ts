@@ -226,7 +226,11 @@ export function assessPrint(input: RiskInputs): PrintRisk {
   for (const { band, maxMonths } of [...BAND_LIMITS].reverse()) if (intervalMonths <= maxMonths) risk = band;
   if (input.grade === 'unacceptable') risk = 'urgent';
 
-  const words = ordered.map((f) => (f.months === null ? f.text : `${f.text} (${signed(f.months)} months)`));
-  const explanation = `due ${dueOn.slice(0, 7)}: ${words.length ? words.join(', ') : `no risk factors, the routine ${BASE_INTERVAL_MONTHS}-month interval`}`;
-  return { dueOn, intervalMonths, risk, factors: ordered, explanation };
+  return { dueOn, intervalMonths, risk, factors: ordered, explanation: explain(dueOn, ordered) };
+}
+
+/** The one line: "due 2027-03: iron-blue print in a buffered enclosure (…) (−9 months), loan to … on 2027-04". */
+export function explain(dueOn: string, factors: readonly RiskFactor[]): string {
+  const words = factors.map((f) => (f.months === null ? f.text : `${f.text} (${signed(f.months)} months)`));
+  return `due ${dueOn.slice(0, 7)}: ${words.length ? words.join(', ') : `no risk factors, the routine ${BASE_INTERVAL_MONTHS}-month interval`}`;
 }
