@@ -11,6 +11,7 @@ import { conflict, forbidden, notFound, validationFailed } from '../errors';
 import { presentReport, presentTerm, type LoadedReport } from '../presenters/condition.presenter';
 import { recordAudit } from './audit.service';
 import { checkOffRounds } from './round.service';
+import { markScheduleStale } from './schedule-stale';
 import { changedFields, rethrowUnique, staleEdit } from './versioning';
 
 /** Who is acting: every condition write is attributed to a signed-in person. */
@@ -290,6 +291,7 @@ export async function signReport(id: string, version: number, actor: Actor, requ
     await ConditionReport.update({ status: 'signed', signedAt: new Date(), version: before.version + 1 }, { where: { id }, transaction: t });
     const after = await loadReport(id, t);
     await checkOffRounds(after, t);
+    await markScheduleStale(t, { printIds: [before.printId] });
     await recordAudit(
       { actor, action: 'condition_report.signed', entityType: ENTITY, entityId: id, before: { status: 'draft' }, after: snapshot(after), requestId },
       t,
