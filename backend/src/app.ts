@@ -28,6 +28,8 @@ import { measurementsRoutes } from './routes/measurements/measurements.routes';
 import { exhibitionsRoutes } from './routes/exhibitions/exhibitions.routes';
 import { lightRoutes } from './routes/light/light.routes';
 import { loansRoutes } from './routes/loans/loans.routes';
+import { climateRoutes } from './routes/climate/climate.routes';
+import { remindersRoutes } from './routes/reminders/reminders.routes';
 import { roundsRoutes, worklistRoutes } from './routes/inspections/rounds.routes';
 import { scheduleRoutes } from './routes/inspections/schedule.routes';
 
@@ -50,6 +52,8 @@ export function allRoutes(deps: AppDeps): RouteDef[] {
     ...exhibitionsRoutes(),
     ...lightRoutes(deps),
     ...loansRoutes(),
+    ...climateRoutes(),
+    ...remindersRoutes(deps),
     ...worklistRoutes(),
     ...roundsRoutes(),
     ...scheduleRoutes(deps),

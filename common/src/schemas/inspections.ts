@@ -192,6 +192,7 @@ export type Reminders = z.infer<typeof remindersSchema>;
 export const remindersInputSchema = z.object({ digestEnabled: z.boolean(), digestWeekday: z.number().int().min(1).max(7) });
 /** A new feed address, shown once: the old one stops working. */
 export const calendarFeedSchema = z.object({ url: z.string(), createdAt: isoDateTime });
+export type CalendarFeed = z.infer<typeof calendarFeedSchema>;
 
 export const DIGEST_STATUSES = ['sending', 'sent', 'failed', 'empty'] as const;
 /** One weekly digest to one person (administrators see every send and its failures). */
