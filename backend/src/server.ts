@@ -26,7 +26,10 @@ export async function startServer(options: { migrate?: boolean } = {}): Promise<
   }
   const queue = await startQueue(e.DATABASE_URL, logger);
   const deps = composeDeps(e, queue, logger);
-  await startWorkers(queue, deps.store, logger, { fixityCron: e.TONELEDGER_FIXITY_CRON, retentionDays: e.IMAGE_RETENTION_DAYS });
+  await startWorkers(queue, deps.store, logger, {
+    fixityCron: e.TONELEDGER_FIXITY_CRON, retentionDays: e.IMAGE_RETENTION_DAYS,
+    digest: { mailer: deps.mailer, publicUrl: e.PUBLIC_URL, now: () => new Date() },
+  });
   const app = buildApp(deps, logger);
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(e.PORT, e.HOST, () => resolve(s));

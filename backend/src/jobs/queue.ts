@@ -11,6 +11,8 @@ export const QUEUES = {
   lightRecompute: 'light-recompute',
   scheduleUpdate: 'schedule-update',
   scheduleRecompute: 'schedule-recompute',
+  digestTick: 'digest-tick',
+  digestSend: 'digest-send',
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 

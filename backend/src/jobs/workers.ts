@@ -5,19 +5,23 @@ import { fixitySweep, makeDerivatives, purgeWithdrawn } from '../services/image.
 import { resumeImports, runImportJob } from '../services/import.service';
 import { recomputeJob, resumeLightRecompute } from '../services/light-recompute.service';
 import { markUnscheduled, processStale, resumeScheduleRecompute, scheduleRecomputeJob } from '../services/schedule-jobs';
+import { startDigestWorkers } from './digest-workers';
+import type { DigestContext } from '../services/digest.service';
 
 export interface WorkerSettings {
   /** When the fixity sweep runs (cron, UTC): env TONELEDGER_FIXITY_CRON. */
   fixityCron: string;
   /** Days a withdrawn image is kept before the purge: env IMAGE_RETENTION_DAYS. */
   retentionDays: number;
+  /** The weekly digest's mailer, the app's address for its links, and the clock. */
+  digest?: DigestContext;
 }
 
 /**
  * The server's workers: derivatives on upload, a nightly fixity sweep, the purge of withdrawn images
  * past retention, and the check and commit of CSV imports (queued again here when a stopped server
  * left them unfinished), and the recompute of light categories and warnings after a change of the light
- * settings (queued again when left running).
+ * settings (queued again when left running), and the weekly digest (an hourly tick and its sends).
  */
 export async function startWorkers(queue: JobQueue, store: ObjectStore, logger: Logger, settings: WorkerSettings): Promise<void> {
   const { boss } = queue;
@@ -55,4 +59,5 @@ export async function startWorkers(queue: JobQueue, store: ObjectStore, logger: 
   if (resumed.checks + resumed.commits) logger.warn(resumed, 'imports left unfinished by a stopped server were queued again');
   await boss.schedule(QUEUES.fixity, settings.fixityCron, {}, { tz: 'UTC' });
   await boss.schedule(QUEUES.purge, '15 3 * * *', {}, { tz: 'UTC' });
+  if (settings.digest) await startDigestWorkers(queue, settings.digest, logger);
 }
