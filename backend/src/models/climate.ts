@@ -13,7 +13,8 @@ export class ClimateFile extends Model<Attrs<ClimateFile>, Create<ClimateFile>> 
   declare content: string | null;
   declare rowCount: CreationOptional<number>;
   declare mapping: ClimateMapping | null;
-  declare checkResult: ClimateFileDto['check'] | null;
+  /** The file's head (columns, sample, suggested mapping) and its last check: see presenters/climate.presenter.ts. */
+  declare checkResult: unknown;
   declare acceptedRows: number | null;
   declare uploadedBy: string;
   declare uploadedAt: CreationOptional<Date>;
