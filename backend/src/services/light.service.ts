@@ -16,6 +16,7 @@ import { getLightSettings, recomputeCategories } from './light-settings.service'
 import { printSpotChanges } from './measurement.service';
 import type { Actor } from './print.service';
 import { staleEdit } from './versioning';
+import { markScheduleStale } from './schedule-stale';
 
 type OverrideInput = z.infer<typeof responsivityOverrideInputSchema>;
 type OverBudgetItem = z.infer<typeof overBudgetItemSchema>;
@@ -74,6 +75,8 @@ export async function refreshLightWarnings(t: Transaction, printIds?: readonly s
     { transaction: t, type: QueryTypes.SELECT },
   )).map((r) => r.id);
   const asOf = todayIso();
+  // The light warning and the coming displays are inputs of the inspection schedule.
+  await markScheduleStale(t, { printIds: ids });
   for (let i = 0; i < ids.length; i += 500) {
     const chunk = ids.slice(i, i + 500);
     // One after the other: both run on the transaction's one connection.

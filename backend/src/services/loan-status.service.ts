@@ -8,6 +8,7 @@ import { recordAudit } from './audit.service';
 import { blockersFor, displayApprovalsFor, signedReportsFor } from './loan-rules';
 import { ENTITY, loanDetail, lockLoan } from './loan.service';
 import { moveForLoan, type Actor } from './print.service';
+import { markScheduleStale } from './schedule-stale';
 
 /** The top-level place a print lent out is recorded at, one child per borrowing institution. */
 export const AWAY_ON_LOAN = 'Away on loan';
@@ -75,6 +76,8 @@ export async function changeLoanStatus(id: string, body: z.infer<typeof loanStat
     if (loan.direction === 'out' && body.to === 'returned') await bringBack(loan, objects, movedAt, actor, requestId, t);
 
     await Loan.update({ status: body.to, version: loan.version + 1 }, { where: { id }, transaction: t });
+    // A loan that will still leave fixes a check before dispatch; one that left, ended or was cancelled no longer does.
+    await markScheduleStale(t, { printIds: objects.map((o) => o.printId) });
     await LoanStatusChange.create({ loanId: id, fromStatus: from, toStatus: body.to, onDate: on, note: body.note ?? null, byId: actor.id, byName: actor.name }, { transaction: t });
     await recordAudit(
       { actor, action: 'loan.status_changed', entityType: ENTITY, entityId: id, before: { status: from }, after: { status: body.to, on, note: body.note ?? null }, requestId },

@@ -15,6 +15,7 @@ import { conditionColumns, presentLoan, presentStatusChange } from '../presenter
 import { recordAudit } from './audit.service';
 import { blockersOf, displayApprovalsFor, overlappingLoans, REPORT_CONTEXT, signedReportsFor, spanOf } from './loan-rules';
 import { insertPrint, type Actor } from './print.service';
+import { markScheduleStale } from './schedule-stale';
 import { changedFields, rethrowUnique, staleEdit } from './versioning';
 
 /** Loans out and in: the record, its prints and their values, and the detail the loan page reads. Status changes: loan-status.service.ts. */
@@ -213,6 +214,8 @@ export async function updateLoan(id: string, update: LoanUpdate, actor: Actor, r
       rethrowUnique(err, 'reference', DUPLICATE);
     }
     const after = await snapshot(id, t);
+    // A loan's dates fix its prints' checks before dispatch (inspection schedule).
+    await markScheduleStale(t, { printIds: (await LoanObject.findAll({ where: { loanId: id }, attributes: ['printId'], transaction: t })).map((o) => o.printId) });
     if (changedFields(before, after).length) await recordAudit({ actor, action: 'loan.updated', entityType: ENTITY, entityId: id, before, after, requestId }, t);
     return loanDetail(id, actor.role, t);
   });
@@ -278,6 +281,7 @@ export async function setLoanObjects(id: string, body: z.infer<typeof loanObject
       }
     }
     await Loan.update({ version: loan.version + 1 }, { where: { id }, transaction: t });
+    await markScheduleStale(t, { printIds });
     const after = await snapshot(id, t);
     if (changedFields(before, after).length) await recordAudit({ actor, action: 'loan.objects_set', entityType: ENTITY, entityId: id, before, after, requestId }, t);
     return loanDetail(id, actor.role, t);
@@ -291,6 +295,7 @@ export async function removeLoanObject(id: string, printId: string, version: num
     const before = await snapshot(id, t);
     const n = await LoanObject.destroy({ where: { loanId: id, printId }, transaction: t });
     if (!n) throw notFound('The print on this loan');
+    await markScheduleStale(t, { printIds: [printId] });
     await Loan.update({ version: loan.version + 1 }, { where: { id }, transaction: t });
     await recordAudit({ actor, action: 'loan.object_removed', entityType: ENTITY, entityId: id, before, after: await snapshot(id, t), requestId }, t);
     return loanDetail(id, actor.role, t);

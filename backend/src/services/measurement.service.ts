@@ -15,6 +15,7 @@ import {
   presentAnalysis, presentProjection, presentSession, presentSpot, projectedDateOf, type SpotAnalysisResult,
 } from '../presenters/measurement.presenter';
 import { recordAudit } from './audit.service';
+import { markScheduleStale } from './schedule-stale';
 import { changedFields, rethrowUnique, staleEdit } from './versioning';
 
 /** Who is acting: every measurement write is attributed to a signed-in person. */
@@ -153,6 +154,7 @@ export async function chooseBaseline(id: string, choice: BaselineChoice, actor: 
       { transaction: t },
     );
     const after = presentSpot(spot);
+    await markScheduleStale(t, { printIds: [spot.printId] });
     await recordAudit(
       {
         actor, action: chosen ? 'measurement_spot.baseline_chosen' : 'measurement_spot.baseline_reset', entityType: SPOT, entityId: id,
@@ -235,6 +237,8 @@ export async function recordSession(printId: string, input: SessionInput, actor:
       { transaction: t, returning: true },
     );
     const presented = presentSession(session, readings, spots);
+    // The measured fading is an input of the inspection schedule.
+    await markScheduleStale(t, { printIds: [printId] });
     await recordAudit({ actor, action: 'measurement_session.recorded', entityType: SESSION, entityId: session.id, after: presented, requestId }, t);
     return presented;
   });

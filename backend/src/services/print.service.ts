@@ -12,6 +12,7 @@ import { getCatalogueSettings, warnUncheckedPattern } from './settings.service';
 import { changedFields, rethrowUnique, staleEdit } from './versioning';
 import { accessionSortKey, deriveDate, tonerClassesOf, warningsOf } from './print-derive';
 import { storeLightDerived } from './light.service';
+import { markScheduleStale } from './schedule-stale';
 import { paperLabel, presentMovement, presentPrint, type LoadedPrint } from '../presenters/catalogue.presenter';
 
 /** Who acts, as every write service takes it: for the audit trail, and the role that decides what the answer shows. */
@@ -84,6 +85,8 @@ export async function storeWarnings(p: LoadedPrint, t: Transaction) {
   const codes = warningsOf(p.process, steps, enclosure).map((w) => w.code);
   const toners = tonerClassesOf(steps);
   await Print.update({ warningCodes: codes, tonerClasses: toners }, { where: { id: p.id }, transaction: t, silent: true });
+  // Process, toning and enclosure are inputs of the inspection schedule.
+  await markScheduleStale(t, { printIds: [p.id] });
   // The effective light category follows the process and toning; the light warning is kept among the codes.
   await storeLightDerived(p.id, t);
 }
@@ -181,6 +184,7 @@ export async function moveForLoan(
     await Movement.create({ printId: id, fromLocationId: before.locationId, toLocationId: to.id, movedAt, movedBy: actor.id, movedByName: actor.name, reason }, { transaction: t });
   }
   await Print.update({ locationId: to.id, status, version: before.version + 1 }, { where: { id }, transaction: t });
+  await markScheduleStale(t, { printIds: [id] });
   await recordAudit(
     {
       actor, action: 'print.moved', entityType: 'print', entityId: id,
@@ -265,6 +269,7 @@ export async function movePrint(
     if (movedAt.getTime() > Date.now() + 60_000) throw validationFailed([{ path: 'movedAt', message: 'A movement cannot be in the future', code: 'future' }]);
     await Movement.create({ printId: id, fromLocationId: before.locationId, toLocationId: to.id, movedAt, movedBy: actor.id, movedByName: actor.name, reason: body.reason }, { transaction: t });
     await Print.update({ locationId: to.id, version: before.version + 1 }, { where: { id }, transaction: t });
+    await markScheduleStale(t, { printIds: [id] });
     await recordAudit(
       { actor, action: 'print.moved', entityType: 'print', entityId: id, before: { location: before.location?.pathLabel ?? null }, after: { location: to.pathLabel, reason: body.reason }, requestId },
       t,

@@ -6,6 +6,7 @@ import { recordAudit, type AuditActor } from './audit.service';
 import { changedFields, rethrowUnique, staleEdit } from './versioning';
 import { deriveDate, } from './print-derive';
 import { recomputeWarningsFor } from './print.service';
+import { markScheduleStale } from './schedule-stale';
 import { paperLabel, presentEnclosure, presentLocation, presentMaker, presentPaper, presentRecipe } from '../presenters/catalogue.presenter';
 
 /**
@@ -148,6 +149,7 @@ export const enclosures: ReferenceKind<EnclosureType, ReturnType<typeof presentE
   async afterUpdate(row, before, t) {
     if (row.alkalineBuffered !== before.alkalineBuffered || row.patResult !== before.patResult || row.name !== before.name) {
       await recomputeWarningsFor('enclosure_id', row.id, t);
+      await markScheduleStale(t, { enclosureId: row.id });
     }
   },
 };
