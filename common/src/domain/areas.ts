@@ -24,7 +24,7 @@ export const AREAS: Area[] = [
     summary: 'Exhibitions with their venues, object lists, approval for display and the display periods each print spends in the light.' },
   { id: 'climate', label: 'Climate', path: '/climate', permission: 'climate.read', ready: false,
     summary: 'Temperature and RH from loggers in each store room: excursions, time outside the targets, relative permanence.' },
-  { id: 'schedule', label: 'Inspections', path: '/inspections', permission: 'schedule.read', ready: false,
+  { id: 'schedule', label: 'Inspections', path: '/inspections', permission: 'schedule.read', ready: true,
     summary: 'Next-inspection dates from an explainable risk model; overdue and due-soon prints.' },
   { id: 'research', label: 'Research', path: '/research', permission: 'research.run', ready: false,
     summary: 'Cohorts by process, toner, paper and treatment; fading distributions and survival curves.' },

@@ -72,10 +72,10 @@ describe('route guards and fallbacks', () => {
 
   it('says plainly that an unbuilt area is not built yet, and what it will hold', async () => {
     mockFetch({ 'GET /api/me': () => json({ data: makeMe('conservator') }) });
-    renderRoutes(routes, { path: '/inspections' });
-    expect(await screen.findByRole('heading', { level: 1, name: 'Inspections' })).toBeTruthy();
+    renderRoutes(routes, { path: '/research' });
+    expect(await screen.findByRole('heading', { level: 1, name: 'Research' })).toBeTruthy();
     expect(screen.getByText('This area is not built yet.')).toBeTruthy();
-    expect(screen.getByText(/explainable risk model/)).toBeTruthy();
+    expect(screen.getByText(/survival curves/)).toBeTruthy();
   });
 
   it('does not open the research area for a registrar', async () => {

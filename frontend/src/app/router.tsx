@@ -244,6 +244,19 @@ function exhibitionsRoute(area: Area): RouteObject {
   };
 }
 
+/** Inspections: the work list and rounds (schedule.read reads them; conservators plan rounds on the list itself). */
+function inspectionsRoute(area: Area): RouteObject {
+  return {
+    path: area.path,
+    children: [
+      { index: true, lazy: inArea(area, () => import('@/features/inspections/routes/worklist-page').then((m) => m.WorklistPage)) },
+      { path: 'rounds', lazy: inArea(area, () => import('@/features/inspections/routes/rounds-page').then((m) => m.RoundsPage)) },
+      { path: 'rounds/:id', lazy: inArea(area, () => import('@/features/inspections/routes/round-page').then((m) => m.RoundPage)) },
+      { path: '*', Component: NotFoundPage },
+    ],
+  };
+}
+
 function PlainErrorPage() {
   return (
     <PlainPage>
@@ -259,6 +272,7 @@ const AREA_ROUTES: Record<string, (area: Area) => RouteObject> = {
   measurements: measurementsRoute,
   loans: loansRoute,
   exhibitions: exhibitionsRoute,
+  schedule: inspectionsRoute,
 };
 
 export const routes: RouteObject[] = [
