@@ -34,7 +34,7 @@ const keyOf = (e: Endpoint) => `${e.method.toUpperCase()} ${e.path}`;
 const perRouteMs = Math.max(1_000, Math.floor(TIME_MS / routes.length));
 
 /** Settings a lucky body could change for the files that run after this one: put back afterwards. */
-const SETTINGS = ['/api/settings/catalogue', '/api/settings/condition', '/api/settings/measurements', '/api/settings/light'];
+const SETTINGS = ['/api/settings/catalogue', '/api/settings/condition', '/api/settings/measurements', '/api/settings/light', '/api/settings/climate'];
 const saved = new Map<string, unknown>();
 
 beforeAll(async () => {
