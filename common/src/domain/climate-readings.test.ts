@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { DateTime } from 'luxon';
 import { fahrenheitToCelsius, readClimateRows, readNumber, readTimestamp, suggestMapping, zoneOf } from './climate-readings';
 import type { ClimateMapping } from '../schemas/climate';
 
@@ -54,6 +55,23 @@ describe('timestamps', () => {
     expect(utc([['03/04/2026 10:00', '17', '45']], mapping({ dateOrder: 'month-first' }))).toEqual(['2026-03-04T10:00:00.000Z']);
     expect(utc([['03/04/2026 10:00', '17', '45']], mapping({ dateOrder: 'day-first' }))).toEqual(['2026-04-03T10:00:00.000Z']);
     expect(utc([['03/04/2026 10:00', '17', '45']])).toEqual(['2026-04-03T10:00:00.000Z']);
+  });
+
+  it.each(['America/New_York', 'Australia/Lord_Howe'])('reads every hour of 2026 in %s as luxon does (second opinion: luxon alone)', (name) => {
+    // The fast path keeps a day's offset when the clocks do not change near it; luxon's own reading of each local time is the reference.
+    const zone = zoneOf(name)!;
+    let previous: number | null = null;
+    for (let local = Date.UTC(2026, 0, 1); local < Date.UTC(2027, 0, 1); local += 3_600_000) {
+      const d = new Date(local);
+      const text = d.toISOString().slice(0, 16).replace('T', ' ');
+      const ours = readTimestamp(text, zone, 'auto', previous);
+      const theirs = DateTime.fromObject({ year: d.getUTCFullYear(), month: d.getUTCMonth() + 1, day: d.getUTCDate(), hour: d.getUTCHours(), minute: d.getUTCMinutes() }, { zone: name });
+      if (theirs.hour !== d.getUTCHours() || theirs.minute !== d.getUTCMinutes()) { expect(ours).toHaveProperty('error'); continue; }
+      const possible = theirs.getPossibleOffsets().map((x) => x.toMillis());
+      expect(possible).toContain((ours as { at: number }).at);
+      if (possible.length === 1) expect((ours as { at: number }).at).toBe(theirs.toMillis());
+      previous = (ours as { at: number }).at;
+    }
   });
 
   it('refuses impossible dates, years out of range and offsets past ±14:00', () => {

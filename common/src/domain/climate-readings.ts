@@ -79,30 +79,64 @@ function fieldsOf(text: string, order: ClimateMapping['dateOrder']): Fields | st
   };
 }
 
+const DAY = 86_400_000;
+
+/**
+ * Turns local date-time fields into instants in one zone. A fixed offset is arithmetic. In an IANA
+ * zone the offset of each local day is asked of luxon once and kept when it is the same a day before
+ * and two days after (no change of the clocks near that day); on the days the clocks change, every
+ * time goes through luxon's own reading, so a skipped or doubled local time is seen.
+ */
+export function instantReader(zone: Zone) {
+  const days = new Map<number, number | null>();
+  const steadyOffset = (local: number): number | null => {
+    const day = Math.floor(local / DAY);
+    let o = days.get(day);
+    if (o === undefined) {
+      const before = zone.offset(day * DAY - DAY - 14 * 3_600_000);
+      const after = zone.offset(day * DAY + 2 * DAY + 14 * 3_600_000);
+      o = before === after ? before : null;
+      days.set(day, o);
+    }
+    return o;
+  };
+  return (f: Omit<Fields, 'offset'>, previous: number | null): { at: number } | { error: string } => {
+    const local = Date.UTC(f.year, f.month - 1, f.day, f.hour, f.minute, f.second);
+    const back = new Date(local);
+    if (f.month < 1 || f.month > 12 || back.getUTCDate() !== f.day || back.getUTCMonth() !== f.month - 1 || f.hour > 23 || f.minute > 59 || f.second > 59) {
+      return { error: 'Not a real date and time' };
+    }
+    if (zone.isUniversal) return { at: local - zone.offset(local) * 60_000 };
+    const steady = steadyOffset(local);
+    if (steady !== null) return { at: local - steady * 60_000 };
+    const dt = DateTime.fromObject(f, { zone });
+    if (!dt.isValid) return { error: `Not a real date and time (${dt.invalidExplanation ?? dt.invalidReason ?? 'out of range'})` };
+    // luxon moves a local time that the clocks skipped (spring forward) to a real one: refuse it instead.
+    if (dt.hour !== f.hour || dt.minute !== f.minute || dt.day !== f.day) {
+      return { error: `This local time does not exist in ${zone.name} (the clocks went forward)` };
+    }
+    const candidates = dt.getPossibleOffsets().map((d) => d.toMillis()).sort((x, y) => x - y);
+    if (candidates.length > 1 && previous !== null) return { at: candidates.find((c) => c > previous) ?? candidates[0] };
+    return { at: candidates[0] ?? dt.toMillis() };
+  };
+}
+
 /**
  * One timestamp as an instant. `previous` is the instant of the file's row before (when read well):
  * a local time that happens twice when the clocks go back is the earlier instant unless that would
  * go back before the previous row, so a logger writing local time across the change reads in order.
  */
-export function readTimestamp(text: string, zone: Zone, order: ClimateMapping['dateOrder'], previous: number | null = null): { at: number } | { error: string } {
+export function readTimestamp(
+  text: string, zone: Zone, order: ClimateMapping['dateOrder'], previous: number | null = null, reader: ReturnType<typeof instantReader> = instantReader(zone),
+): { at: number } | { error: string } {
   const f = fieldsOf(text, order);
   if (typeof f === 'string') return { error: f };
   if (f.year < READING_YEARS.min || f.year > READING_YEARS.max) return { error: `The year must be between ${READING_YEARS.min} and ${READING_YEARS.max}` };
-  const ownZone = f.offset ? zoneOf(f.offset.toUpperCase() === 'Z' ? 'UTC' : f.offset) : null;
-  if (f.offset && !ownZone) return { error: 'The offset must be at most ±14:00' };
-  const { offset: _o, ...units } = f;
-  const dt = DateTime.fromObject(units, { zone: ownZone ?? zone });
-  if (!dt.isValid) return { error: `Not a real date and time (${dt.invalidExplanation ?? dt.invalidReason ?? 'out of range'})` };
-  // luxon moves a local time that the clocks skipped (spring forward) to a real one: refuse it instead.
-  if (dt.hour !== f.hour || dt.minute !== f.minute || dt.day !== f.day) {
-    return { error: `This local time does not exist in ${zone.name} (the clocks went forward)` };
-  }
-  const candidates = dt.getPossibleOffsets().map((d) => d.toMillis()).sort((x, y) => x - y);
-  if (candidates.length > 1 && previous !== null) {
-    const later = candidates.find((c) => c > previous);
-    return { at: later ?? candidates[0] };
-  }
-  return { at: candidates[0] ?? dt.toMillis() };
+  const { offset, ...units } = f;
+  if (!offset) return reader(units, previous);
+  const own = zoneOf(offset.toUpperCase() === 'Z' ? 'UTC' : offset);
+  if (!own) return { error: 'The offset must be at most ±14:00' };
+  return instantReader(own)(units, previous);
 }
 
 export interface ReadOutcome {
@@ -129,11 +163,12 @@ export function readClimateRows(header: readonly string[], dataRows: readonly (r
   if (missing.length) return { ...out, badRows: dataRows.length, problems: missing };
 
   const seen = new Map<number, number>();
+  const reader = instantReader(zone!);
   let previous: number | null = null;
   dataRows.forEach((cells, i) => {
     const row = i + 2;
     const problems: RowProblem[] = [];
-    const t = readTimestamp(cells[idx.t] ?? '', zone!, mapping.dateOrder, previous);
+    const t = readTimestamp(cells[idx.t] ?? '', zone!, mapping.dateOrder, previous, reader);
     if ('error' in t) problems.push({ row, column: mapping.timestampColumn, message: t.error });
     const rawT = readNumber(cells[idx.temp] ?? '');
     let temperatureC: number | null = null;
