@@ -6,6 +6,7 @@ import { DEMO_ACCOUNTS } from '../../seed/demo-accounts';
 import { testApp, sessionFor } from '../../../test/app';
 import { createLocation } from '../../../test/factories';
 import { db } from '../../db';
+import { settleSchedules } from '../../services/schedule-jobs';
 
 const t = testApp();
 const c = {} as Record<Role, string>;
@@ -42,13 +43,32 @@ async function newPrint(n: number, locationId: string) {
   return res.body.data as { id: string; accessionNumber: string };
 }
 
-/** A schedule row written straight to the table, as the risk model would. */
-async function schedule(printId: string, dueIn: number, risk: string, rank: number, reasons: string[], factorText: string) {
-  await db().query(
-    `INSERT INTO print_schedules (print_id, computed_due_on, due_on, interval_months, risk, risk_rank, factors, reasons, main_reason)
-     VALUES ($1, $2, $2, 12, $3, $4, $5::jsonb, $6::text[], $7)`,
-    { bind: [printId, day(dueIn), risk, rank, JSON.stringify([{ code: reasons[0], text: factorText, months: -6, dueBy: null }]), reasons, factorText] },
-  );
+/** The schedule rows of the test, as the risk model would write them: due in n days, risk, reasons, main factor's words. */
+const ROWS: [key: string, dueIn: number, risk: string, rank: number, reasons: string[], text: string][] = [
+  ['a', -10, 'urgent', 4, ['condition', 'never_checked'], 'graded poor at the last check'],
+  ['b', 10, 'high', 3, ['light'], 'on display for 90 days this year'],
+  ['c', 60, 'moderate', 2, ['climate'], 'store room RH above 60% for weeks'],
+  ['d', 200, 'low', 1, ['vulnerable_process'], 'selenium-toned print'],
+  ['e', -1, 'high', 3, ['light'], 'lent twice in three years'],
+  ['f', -5, 'urgent', 4, ['fading'], 'fading 0.6 ΔE00 a year'],
+];
+
+/**
+ * Writes the rows straight to the table once the schedule work has settled (creating a print or
+ * signing a report makes the risk model recompute its row), so the figures are the test's own.
+ */
+async function pinSchedules() {
+  await settleSchedules();
+  for (const [key, dueIn, risk, rank, reasons, text] of ROWS) {
+    await db().query(
+      `INSERT INTO print_schedules (print_id, computed_due_on, due_on, interval_months, risk, risk_rank, factors, reasons, main_reason, last_checked_on)
+       VALUES ($1, $2, $2, 12, $3, $4, $5::jsonb, $6::text[], $7, NULL)
+       ON CONFLICT (print_id) DO UPDATE SET computed_due_on = EXCLUDED.computed_due_on, due_on = EXCLUDED.due_on, risk = EXCLUDED.risk,
+         risk_rank = EXCLUDED.risk_rank, factors = EXCLUDED.factors, reasons = EXCLUDED.reasons, main_reason = EXCLUDED.main_reason,
+         last_checked_on = NULL, override_due_on = NULL`,
+      { bind: [p[key]!.id, day(dueIn), risk, rank, JSON.stringify([{ code: reasons[0], text, months: -6, dueBy: null }]), reasons, text] },
+    );
+  }
 }
 
 beforeAll(async () => {
@@ -60,12 +80,7 @@ beforeAll(async () => {
   // a..d in the aisle (accession .10, .2, .3, .4), e in the bay, f in another building.
   p.a = await newPrint(10, aisle); p.b = await newPrint(2, aisle); p.c = await newPrint(3, aisle); p.d = await newPrint(4, aisle);
   p.e = await newPrint(5, bay); p.f = await newPrint(6, elsewhere);
-  await schedule(p.a.id, -10, 'urgent', 4, ['condition', 'never_checked'], 'graded poor at the last check');
-  await schedule(p.b.id, 10, 'high', 3, ['light'], 'on display for 90 days this year');
-  await schedule(p.c.id, 60, 'moderate', 2, ['climate'], 'store room RH above 60% for weeks');
-  await schedule(p.d.id, 200, 'low', 1, ['vulnerable_process'], 'selenium-toned print');
-  await schedule(p.e.id, -1, 'high', 3, ['light'], 'lent twice in three years');
-  await schedule(p.f.id, -5, 'urgent', 4, ['fading'], 'fading 0.6 ΔE00 a year');
+  await pinSchedules();
   const users = await db().query<{ id: string; email: string }>('SELECT id, email FROM users WHERE email = ANY($1)', {
     bind: [DEMO_ACCOUNTS.map((d) => d.email)], type: QueryTypes.SELECT,
   });
@@ -171,6 +186,7 @@ describe('rounds', () => {
     });
     expect(draft.status, JSON.stringify(draft.body)).toBe(201);
     expect((await api('conservator').post(`/api/condition-reports/${draft.body.data.id}/sign`, { version: draft.body.data.version })).status).toBe(200);
+    await pinSchedules();
 
     const key = `round-${base}`;
     const body = { title: 'Inspection wing, first pass', plannedOn: day(7), assigneeId: conservatorId, printIds: of('e', 'a', 'b') };
