@@ -77,9 +77,13 @@ function catalogueRoute(area: Area): RouteObject {
         // The print page with the panels other features add to it (composed here, not in the catalogue).
         path: 'prints/:id',
         lazy: page(() =>
-          Promise.all([import('@/features/catalogue/routes/print-page'), import('@/features/light/components/light-panel')]).then(
-            ([{ PrintPage }, { LightPanel }]) =>
-              () => <PrintPage panels={[LightPanel]} />,
+          Promise.all([
+            import('@/features/catalogue/routes/print-page'),
+            import('@/features/light/components/light-panel'),
+            import('@/features/inspections/components/print-schedule-panel'),
+          ]).then(
+            ([{ PrintPage }, { LightPanel }, { PrintSchedulePanel }]) =>
+              () => <PrintPage panels={[PrintSchedulePanel, LightPanel]} />,
           ),
         ),
       },
