@@ -16,7 +16,7 @@ export interface DigestJobOptions {
 export async function runDigestTick(queue: JobQueue, ctx: Pick<DigestContext, 'now'>, options: DigestJobOptions = {}) {
   const result = await digestTick(ctx);
   for (const sendId of [...result.toSend, ...result.again]) {
-    await queue.boss.send(QUEUES.digestSend, { sendId }, {
+    await queue.boss.send(QUEUES.digestSend, { sendId, today: result.today }, {
       retryLimit: options.retryLimit ?? 8, retryDelay: options.retryDelaySeconds ?? 30, retryBackoff: true,
     });
   }
@@ -30,9 +30,9 @@ export async function startDigestWorkers(queue: JobQueue, ctx: DigestContext, lo
     const result = await runDigestTick(queue, ctx, options);
     if (result.toSend.length + result.empty.length + result.again.length) logger.info({ ...result }, 'weekly digests claimed');
   });
-  await boss.work<{ sendId: string }>(QUEUES.digestSend, { batchSize: 1, pollingIntervalSeconds: 1 }, async ([job]) => {
+  await boss.work<{ sendId: string; today?: string }>(QUEUES.digestSend, { batchSize: 1, pollingIntervalSeconds: 1 }, async ([job]) => {
     try {
-      await sendDigest(job.data.sendId, ctx);
+      await sendDigest(job.data.sendId, ctx, job.data.today);
     } catch (err) {
       logger.warn({ err, sendId: job.data.sendId }, 'a weekly digest was not sent; it will be tried again');
       throw err;

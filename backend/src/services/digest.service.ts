@@ -40,7 +40,7 @@ async function dueItems(today: string): Promise<DigestItem[]> {
  * Also hands back this week's rows left failed or unsent (a server stopped between claim and queue),
  * so the caller queues them again; a send job locks its row, so two jobs for one row send once.
  */
-export async function digestTick(ctx: Pick<DigestContext, 'now'>): Promise<{ toSend: string[]; empty: string[]; again: string[] }> {
+export async function digestTick(ctx: Pick<DigestContext, 'now'>): Promise<{ today: string; toSend: string[]; empty: string[]; again: string[] }> {
   const now = ctx.now();
   const week = isoWeek(now);
   const today = utcDay(now);
@@ -73,7 +73,7 @@ export async function digestTick(ctx: Pick<DigestContext, 'now'>): Promise<{ toS
     `SELECT id FROM digest_sends WHERE week = $1 AND (status = 'failed' OR (status = 'sending' AND created_at < now() - interval '15 minutes'))`,
     { bind: [week], type: QueryTypes.SELECT },
   );
-  return { toSend, empty, again: again.map((r) => r.id) };
+  return { today, toSend, empty, again: again.map((r) => r.id) };
 }
 
 /**
@@ -81,8 +81,9 @@ export async function digestTick(ctx: Pick<DigestContext, 'now'>): Promise<{ toS
  * and does nothing) and must still be unsent; the message is built afresh. A refusal by the mail server
  * marks the row failed with attempts + 1 and the error, and is thrown again so the job is retried.
  * Returns what happened: 'sent', 'empty' (nothing due any more), or 'skipped' (sent already or busy).
+ * `today` is the day of the tick that claimed it (carried in the job, so every server words it alike).
  */
-export async function sendDigest(sendId: string, ctx: DigestContext): Promise<'sent' | 'empty' | 'skipped'> {
+export async function sendDigest(sendId: string, ctx: DigestContext, today = utcDay(ctx.now())): Promise<'sent' | 'empty' | 'skipped'> {
   let failure: unknown = null;
   const outcome = await db().transaction(async (transaction) => {
     const [row] = await db().query<{ id: string; week: string; name: string; email: string | null }>(
@@ -91,7 +92,6 @@ export async function sendDigest(sendId: string, ctx: DigestContext): Promise<'s
       { bind: [sendId], type: QueryTypes.SELECT, transaction },
     );
     if (!row) return 'skipped' as const;
-    const today = utcDay(ctx.now());
     const items = await dueItems(today);
     if (items.length === 0 || !row.email) {
       await db().query(`UPDATE digest_sends SET status = 'empty', attempts = attempts + 1 WHERE id = $1`, { bind: [row.id], transaction });
