@@ -24,7 +24,7 @@ export function overrideValuesToBody(values: OverrideFormValues) {
 }
 
 const FIELDS = [
-  { key: 'dueOn', label: 'Next inspection' },
+  { key: 'dueOn', label: 'Inspect by' },
   { key: 'reason', label: 'Reason' },
 ] as const;
 
@@ -65,7 +65,7 @@ export function PrintScheduleOverrideForm({ schedule, onDone }: { schedule: Prin
     >
       <DateInput
         name="dueOn"
-        label="Next inspection"
+        label="Inspect by"
         hint={`Leave empty to use the computed date, ${formatDay(schedule.computedDueOn)}.`}
         fieldClassName="max-w-xs"
       />
