@@ -8,6 +8,7 @@ import { seedDemoCatalogue } from './demo-catalogue';
 import { seedDemoCondition } from './demo-condition';
 import { seedDemoLoans } from './demo-loans';
 import { seedDemoMeasurements } from './demo-measurements';
+import { seedDemoSchedules } from './demo-schedule';
 
 export interface SeedDemoOptions {
   /**
@@ -35,7 +36,7 @@ export interface SeedDemoOptions {
  * begun and not finished (a stop during the seed) is carried on by the next seed, which skips what
  * is there and writes the rest, so an interrupted first start never leaves the demo half made.
  */
-type Part = 'catalogue' | 'condition' | 'measurements' | 'loans';
+type Part = 'catalogue' | 'condition' | 'measurements' | 'loans' | 'schedule';
 type Progress = Partial<Record<Part, 'started' | 'done'>>;
 const PROGRESS_KEY = 'demo_seed';
 
@@ -73,7 +74,8 @@ export async function seedDemoIfEmpty(sequelize: Sequelize, options: SeedDemoOpt
   if (!(options.histories ?? catalogue)) return seededUsers || seededCatalogue;
   const seededHistories = await seedHistoriesIfEmpty(sequelize, options.store ?? null, log, signal);
   const seededLoans = await seedLoansIfEmpty(sequelize, log, signal);
-  return seededUsers || seededCatalogue || seededHistories || seededLoans;
+  const seededSchedules = await seedSchedulesIfNew(sequelize, log, signal);
+  return seededUsers || seededCatalogue || seededHistories || seededLoans || seededSchedules;
 }
 
 /**
@@ -191,6 +193,28 @@ async function seedLoansIfEmpty(sequelize: Sequelize, log: (m: string) => void, 
     await mark('loans', 'started');
     await seedDemoLoans(registrar, conservator, log, { signal });
     await mark('loans', 'done');
+    return true;
+  } finally {
+    await lock.commit();
+  }
+}
+
+/**
+ * Every demo print's next-inspection date (demo-schedule.ts), last, since the other parts are its
+ * inputs: when the demo has prints and this part was never finished (begun and stopped: carried on).
+ */
+async function seedSchedulesIfNew(sequelize: Sequelize, log: (m: string) => void, signal?: AbortSignal): Promise<boolean> {
+  signal?.throwIfAborted();
+  const lock = await sequelize.transaction();
+  try {
+    await sequelize.query('SELECT pg_advisory_xact_lock(727005)', { transaction: lock });
+    const [{ prints }] = await sequelize.query<{ prints: number }>('SELECT count(*)::int AS prints FROM prints', { type: QueryTypes.SELECT, transaction: lock });
+    const begun = await progress();
+    if (prints === 0 || begun.schedule === 'done') return false;
+    log(begun.schedule === 'started' ? 'Carrying on with the demo next-inspection dates an earlier start began…' : 'Computing every demo print\'s next-inspection date…');
+    await mark('schedule', 'started');
+    await seedDemoSchedules(log, { signal });
+    await mark('schedule', 'done');
     return true;
   } finally {
     await lock.commit();
