@@ -17,6 +17,7 @@ const AREA_PAGES: Record<string, PageLoader> = {
   users: () => import('@/features/users/routes/users-page').then((m) => m.UsersPage),
   audit: () => import('@/features/audit/routes/audit-page').then((m) => m.AuditPage),
   mail: () => import('@/features/dev-mail/routes/mail-page').then((m) => m.MailPage),
+  digests: () => import('@/features/reminders/routes/digests-page').then((m) => m.DigestsPage),
 };
 
 /** A lazily loaded screen shown only to roles that may use the area (the server enforces it anyway). */
@@ -256,6 +257,7 @@ function inspectionsRoute(area: Area): RouteObject {
       { index: true, lazy: inArea(area, () => import('@/features/inspections/routes/worklist-page').then((m) => m.WorklistPage)) },
       { path: 'rounds', lazy: inArea(area, () => import('@/features/inspections/routes/rounds-page').then((m) => m.RoundsPage)) },
       { path: 'rounds/:id', lazy: inArea(area, () => import('@/features/inspections/routes/round-page').then((m) => m.RoundPage)) },
+      { path: 'reminders', lazy: inArea(area, () => import('@/features/reminders/routes/reminders-page').then((m) => m.RemindersPage)) },
       { path: '*', Component: NotFoundPage },
     ],
   };
