@@ -49,7 +49,10 @@ const ONLY = process.argv.includes('--only') ? process.argv[process.argv.indexOf
 /** The storage-climate scenario runs in its own process (scripts/bench-climate.ts); `--only climate` runs it alone. */
 const CLIMATE_SCENARIO = 'climate file, 100,000 rows';
 const CLIMATE_ONLY = ONLY !== '' && CLIMATE_SCENARIO.includes(ONLY);
-const IMAGES = !process.argv.includes('--no-images') && !CLIMATE_ONLY;
+/** The full recompute of every print's inspection date runs in its own process (scripts/bench-schedule.ts); `--only schedule` runs it alone. */
+const SCHEDULE_SCENARIO = 'schedule, full recompute';
+const SCHEDULE_ONLY = ONLY !== '' && SCHEDULE_SCENARIO.includes(ONLY);
+const IMAGES = !process.argv.includes('--no-images') && !CLIMATE_ONLY && !SCHEDULE_ONLY;
 
 interface Scenario {
   name: string;
@@ -91,7 +94,7 @@ let sqlPool: pg.Pool | null = null;
 let code = 0;
 
 try {
-  if (CLIMATE_ONLY) throw Object.assign(new Error('list skipped'), { skip: true });
+  if (CLIMATE_ONLY || SCHEDULE_ONLY) throw Object.assign(new Error('list skipped'), { skip: true });
   if (!(await reachable(pgPort))) {
     cluster = await startPostgres({
       baseDir: path.resolve(ROOT, process.env.TONELEDGER_DATA_DIR ?? '.data', 'pg'), port: pgPort, database: 'postgres', log, fallbackKey: 'dev',
@@ -302,6 +305,8 @@ try {
 // The image pipeline, in a process of its own (its own services and environment).
 const images = !IMAGES ? { status: 0 } : spawnSync(path.join(ROOT, 'node_modules', '.bin', 'tsx'), [path.join(ROOT, 'scripts', 'bench-images.ts')], { stdio: 'inherit', cwd: ROOT });
 if (images.status !== 0 && code === 0) code = images.status ?? 1;
-const climate = ONLY && !CLIMATE_ONLY ? { status: 0 } : spawnSync(path.join(ROOT, 'node_modules', '.bin', 'tsx'), [path.join(ROOT, 'scripts', 'bench-climate.ts')], { stdio: 'inherit', cwd: ROOT });
+const climate = (ONLY && !CLIMATE_ONLY) || SCHEDULE_ONLY ? { status: 0 } : spawnSync(path.join(ROOT, 'node_modules', '.bin', 'tsx'), [path.join(ROOT, 'scripts', 'bench-climate.ts')], { stdio: 'inherit', cwd: ROOT });
 if (climate.status !== 0 && code === 0) code = climate.status ?? 1;
+const schedule = ONLY && !SCHEDULE_ONLY ? { status: 0 } : spawnSync(path.join(ROOT, 'node_modules', '.bin', 'tsx'), [path.join(ROOT, 'scripts', 'bench-schedule.ts')], { stdio: 'inherit', cwd: ROOT });
+if (schedule.status !== 0 && code === 0) code = schedule.status ?? 1;
 process.exit(code);
