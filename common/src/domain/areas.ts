@@ -37,6 +37,8 @@ export const ADMIN_AREAS: Area[] = [
     summary: 'Every sign-in, sign-out and change: who, when, before and after.' },
   { id: 'mail', label: 'Outgoing mail', path: '/admin/mail', permission: 'dev_mail.read', ready: true,
     summary: 'Messages caught by the local mail sink (development only).' },
+  { id: 'digests', label: 'Weekly digests', path: '/admin/digests', permission: 'digests.read', ready: true,
+    summary: 'The weekly e-mail of prints due for inspection: each one sent or tried, with failures and their error.' },
 ];
 
 export function areasFor(role: Role | null | undefined, areas: Area[] = AREAS): Area[] {

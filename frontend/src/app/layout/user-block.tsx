@@ -1,4 +1,5 @@
-import { ROLE_LABELS } from '@toneledger/common/domain/roles';
+import { Link } from 'react-router-dom';
+import { can, ROLE_LABELS } from '@toneledger/common/domain/roles';
 import type { Me } from '@toneledger/common/schemas/users';
 import { useSignOut } from '@/lib/auth';
 
@@ -15,6 +16,11 @@ export function UserBlock({ me }: { me: Pick<Me, 'name' | 'email' | 'role'> }) {
           <span data-testid="user-role">{ROLE_LABELS[me.role]}</span>
         </p>
       </div>
+      {can(me.role, 'schedule.read') ? (
+        <Link to="/inspections/reminders" className="on-dark text-sm text-paper-50 underline-offset-2 hover:underline">
+          Reminders
+        </Link>
+      ) : null}
       <button
         type="button"
         onClick={() => signOut.mutate()}
