@@ -80,7 +80,7 @@ export const remindersApi = {
     access: 'schedule.read', status: 204, response: { description: 'Ended' },
   }),
   feed: endpoint({
-    method: 'get', path: '/api/calendar/:token', summary: "A person's calendar (iCalendar, RFC 5545): a VEVENT per planned round of theirs and a VTODO per print due in 90 days in their rounds; the secret address is the only key",
+    method: 'get', path: '/api/calendar/:token', summary: "A person's calendar (iCalendar, RFC 5545): an all-day VEVENT per planned round of theirs, its prints listed in the description; the secret address is the only key",
     tags: ['inspections'], access: 'public', params: z.object({ token: z.string().min(20).max(200).regex(/^[A-Za-z0-9_-]+(\.ics)?$/, 'Not a feed address') }),
     response: { description: 'iCalendar', contentType: 'text/calendar' },
   }),
