@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
+import { DateTime } from 'luxon';
 import {
-  addMonths, assessPrint, BASE_INTERVAL_MONTHS, DISPLAY_LEAD_DAYS, LOAN_LEAD_DAYS, MAX_INTERVAL_MONTHS, MIN_INTERVAL_MONTHS, type RiskInputs,
+  addDays, addMonths, assessPrint, daysBetween, BASE_INTERVAL_MONTHS, DISPLAY_LEAD_DAYS, LOAN_LEAD_DAYS, MAX_INTERVAL_MONTHS, MIN_INTERVAL_MONTHS, type RiskInputs,
 } from './inspection-risk';
 import { DEFAULT_CLIMATE_SETTINGS, relativePermanence } from './isoperm';
 
@@ -154,7 +155,16 @@ describe('assessPrint: floors, caps, bands and words', () => {
       'iron-blue print in a buffered enclosure (Buffered folder) (−9 months), loan to Hollin Gallery on 2027-04',
     );
   });
-  it('month arithmetic holds the day to the month\'s end (luxon): 2026-01-31 + 1 month = 2026-02-28', () => {
+  it('calendar arithmetic agrees with luxon (a general-purpose date library) over eight years of days', () => {
+    const utc = (d: string) => DateTime.fromISO(d, { zone: 'utc' });
+    for (let day = utc('2023-01-01'); day < utc('2031-01-01'); day = day.plus({ days: 1 })) {
+      const iso = day.toISODate()!;
+      for (const m of [-48, -13, -1, 1, 12, 24, 59, 120]) expect(addMonths(iso, m), `${iso} ${m}`).toBe(day.plus({ months: m }).toISODate());
+      for (const n of [-42, -14, 1, 400]) expect(addDays(iso, n)).toBe(day.plus({ days: n }).toISODate());
+      expect(daysBetween('2026-12-02', iso)).toBe(Math.round(day.diff(utc('2026-12-02'), 'days').days));
+    }
+  });
+  it('month arithmetic holds the day to the month\'s end: 2026-01-31 + 1 month = 2026-02-28', () => {
     expect(addMonths('2026-01-31', 1)).toBe('2026-02-28');
     expect(addMonths('2024-01-31', 1)).toBe('2024-02-29'); // leap year
   });

@@ -11,7 +11,6 @@
  */
 import type { Grade } from '../schemas/condition';
 import type { RiskBand, RiskFactor, RiskFactorCode } from '../schemas/inspections';
-import { DateTime } from 'luxon';
 import { isPrussianBlue } from './compatibility';
 
 /** A routine check of a stable print in store every five years: common practice for survey cycles. */
@@ -107,20 +106,35 @@ export interface PrintRisk {
 
 // ── Calendar days ──
 
-const utc = (day: string) => DateTime.fromISO(day, { zone: 'utc' });
+// Calendar arithmetic on 'YYYY-MM-DD' by Date.UTC: a full recompute runs these for every print, and
+// luxon's parsing cost more than the rest of the model; the tests check them against luxon.
+const DAY_MS = 86_400_000;
+const pad = (n: number, w = 2) => String(n).padStart(w, '0');
+function ymd(day: string): [number, number, number] {
+  return [Number(day.slice(0, 4)), Number(day.slice(5, 7)), Number(day.slice(8, 10))];
+}
+const dayOf = (ms: number) => new Date(ms).toISOString().slice(0, 10);
 
-/** Whole months later (or earlier), the day held to the month's last (2026-01-31 + 1 → 2026-02-28, luxon's rule). */
+/** Whole months later (or earlier), the day held to the month's last (2026-01-31 + 1 → 2026-02-28, as luxon does). */
 export function addMonths(day: string, months: number): string {
-  return utc(day).plus({ months: Math.round(months) }).toISODate()!;
+  const [y, m, d] = ymd(day);
+  const index = y * 12 + (m - 1) + Math.round(months);
+  const ny = Math.floor(index / 12);
+  const nm = index - ny * 12 + 1;
+  const last = new Date(Date.UTC(ny, nm, 0)).getUTCDate();
+  return `${pad(ny, 4)}-${pad(nm)}-${pad(Math.min(d, last))}`;
 }
 
 export function addDays(day: string, days: number): string {
-  return utc(day).plus({ days }).toISODate()!;
+  const [y, m, d] = ymd(day);
+  return dayOf(Date.UTC(y, m - 1, d) + days * DAY_MS);
 }
 
 /** Days from a to b (b later: positive). */
 export function daysBetween(a: string, b: string): number {
-  return Math.round(utc(b).diff(utc(a), 'days').days);
+  const [y1, m1, d1] = ymd(a);
+  const [y2, m2, d2] = ymd(b);
+  return Math.round((Date.UTC(y2, m2 - 1, d2) - Date.UTC(y1, m1 - 1, d1)) / DAY_MS);
 }
 
 const minDay = (a: string, b: string) => (a <= b ? a : b);
