@@ -22,7 +22,7 @@ export const AREAS: Area[] = [
     summary: 'Loans out and in: the other institution, dates, conditions asked for, objects with their condition reports, and a status that moves in order.' },
   { id: 'exhibitions', label: 'Exhibitions', path: '/exhibitions', permission: 'loans.read', ready: true,
     summary: 'Exhibitions with their venues, object lists, approval for display and the display periods each print spends in the light.' },
-  { id: 'climate', label: 'Climate', path: '/climate', permission: 'climate.read', ready: false,
+  { id: 'climate', label: 'Climate', path: '/climate', permission: 'climate.read', ready: true,
     summary: 'Temperature and RH from loggers in each store room: excursions, time outside the targets, relative permanence.' },
   { id: 'schedule', label: 'Inspections', path: '/inspections', permission: 'schedule.read', ready: true,
     summary: 'Next-inspection dates from an explainable risk model; overdue and due-soon prints.' },

@@ -263,6 +263,19 @@ function inspectionsRoute(area: Area): RouteObject {
   };
 }
 
+/** Storage climate: climate.read reads the rooms, a location's figures and the settings; conservators load logger files. */
+function climateRoute(area: Area): RouteObject {
+  return {
+    path: area.path,
+    children: [
+      { index: true, lazy: inArea(area, () => import('@/features/climate/routes/climate-rooms-page').then((m) => m.ClimateRoomsPage)) },
+      { path: 'locations/:id', lazy: inArea(area, () => import('@/features/climate/routes/climate-location-page').then((m) => m.ClimateLocationPage)) },
+      { path: 'settings', lazy: inArea(area, () => import('@/features/climate/routes/climate-settings-page').then((m) => m.ClimateSettingsPage)) },
+      { path: '*', Component: NotFoundPage },
+    ],
+  };
+}
+
 function PlainErrorPage() {
   return (
     <PlainPage>
@@ -279,6 +292,7 @@ const AREA_ROUTES: Record<string, (area: Area) => RouteObject> = {
   loans: loansRoute,
   exhibitions: exhibitionsRoute,
   schedule: inspectionsRoute,
+  climate: climateRoute,
 };
 
 export const routes: RouteObject[] = [
