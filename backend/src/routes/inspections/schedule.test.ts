@@ -3,7 +3,8 @@ import { QueryTypes } from 'sequelize';
 import { DateTime } from 'luxon';
 import { testApp } from '../../../test/app';
 import { daysFromToday, exhibitionClient, paths } from '../../../test/exhibition-helpers';
-import { AuditEventModel, Setting } from '../../models';
+import { AuditEventModel, Setting, User } from '../../models';
+import { accession, createLocation } from '../../../test/factories';
 import { db } from '../../db';
 import { settleScheduleRecompute, settleSchedules } from '../../services/schedule-jobs';
 
@@ -96,6 +97,37 @@ describe("a print's next inspection", () => {
     expect(b.dueOn < q.dueOn).toBe(true);
     expect(b.factors.map((f) => f.code)).toEqual(['never_checked', 'vulnerable_process', 'enclosure']);
     expect(b.explanation).toContain('iron-blue print in a buffered enclosure');
+  });
+});
+
+describe('storage climate', () => {
+  it('a warm room (25 °C, 50 % RH) shortens the interval of a print in a box inside it, by its isoperm permanence', async () => {
+    const room = await createLocation();
+    const box = await createLocation(undefined, room);
+    const res = await h.as('registrar').post('/api/prints', { accessionNumber: accession(), title: 'Warm room print', process: 'gelatin_silver_developing_out', locationId: box.id });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const p = res.body.data;
+    await signReport(p.id, 'good', daysFromToday(-5));
+    // A logger in the room (not the box): two days of readings every 10 minutes at 25 °C / 50 % RH, written as an accepted file would be.
+    const user = (await User.findOne({ where: { role: 'conservator' } }))!;
+    const [[file]] = (await db().query(
+      `INSERT INTO climate_files (location_id, file_name, status, uploaded_by, accepted_at) VALUES ($1, 'logger.csv', 'accepted', $2, now()) RETURNING id`,
+      { bind: [room.id, user.id] },
+    )) as unknown as [[{ id: string }]];
+    await db().query(
+      `INSERT INTO climate_readings (location_id, taken_at, temperature_c, rh_percent, file_id)
+       SELECT $1, now() - interval '3 days' + g * interval '10 minutes', 25, 50, $2 FROM generate_series(0, 288) g`,
+      { bind: [room.id, file.id] },
+    );
+    await h.as('registrar').patch(`/api/prints/${p.id}`, { title: 'Warm room print, read again', version: p.version });
+    await settleSchedules();
+    const s = await schedule(p.id);
+    // REFERENCES.md §3: 25 °C / 50 % against 20 °C / 50 % at Ea 83.68 kJ/mol → permanence 0.562; 12 × log2(0.562) = −9.98 → −10 months.
+    const climate = s.factors.find((f) => f.code === 'climate');
+    expect(climate?.months).toBe(-10);
+    expect(climate?.text).toMatch(/permanence 0\.6\)/);
+    expect(s.intervalMonths).toBe(50);
+    expect(s.dueOn).toBe(monthsAfter(daysFromToday(-5), 50));
   });
 });
 
