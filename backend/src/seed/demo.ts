@@ -5,6 +5,7 @@ import { Setting, User } from '../models';
 import { recordAudit } from '../services/audit.service';
 import { DEMO_ACCOUNTS } from './demo-accounts';
 import { seedDemoCatalogue } from './demo-catalogue';
+import { seedDemoClimate } from './demo-climate';
 import { seedDemoCondition } from './demo-condition';
 import { seedDemoLoans } from './demo-loans';
 import { seedDemoMeasurements } from './demo-measurements';
@@ -36,7 +37,7 @@ export interface SeedDemoOptions {
  * begun and not finished (a stop during the seed) is carried on by the next seed, which skips what
  * is there and writes the rest, so an interrupted first start never leaves the demo half made.
  */
-type Part = 'catalogue' | 'condition' | 'measurements' | 'loans' | 'schedule';
+type Part = 'catalogue' | 'condition' | 'measurements' | 'loans' | 'climate' | 'schedule';
 type Progress = Partial<Record<Part, 'started' | 'done'>>;
 const PROGRESS_KEY = 'demo_seed';
 
@@ -74,8 +75,9 @@ export async function seedDemoIfEmpty(sequelize: Sequelize, options: SeedDemoOpt
   if (!(options.histories ?? catalogue)) return seededUsers || seededCatalogue;
   const seededHistories = await seedHistoriesIfEmpty(sequelize, options.store ?? null, log, signal);
   const seededLoans = await seedLoansIfEmpty(sequelize, log, signal);
+  const seededClimate = await seedClimateIfEmpty(sequelize, log, signal);
   const seededSchedules = await seedSchedulesIfNew(sequelize, log, signal);
-  return seededUsers || seededCatalogue || seededHistories || seededLoans || seededSchedules;
+  return seededUsers || seededCatalogue || seededHistories || seededLoans || seededClimate || seededSchedules;
 }
 
 /**
@@ -193,6 +195,31 @@ async function seedLoansIfEmpty(sequelize: Sequelize, log: (m: string) => void, 
     await mark('loans', 'started');
     await seedDemoLoans(registrar, conservator, log, { signal });
     await mark('loans', 'done');
+    return true;
+  } finally {
+    await lock.commit();
+  }
+}
+
+/** Invented logger readings for the print stores (demo-climate.ts), before the schedule that reads them: when no reading is held, or the part was begun and stopped. */
+async function seedClimateIfEmpty(sequelize: Sequelize, log: (m: string) => void, signal?: AbortSignal): Promise<boolean> {
+  signal?.throwIfAborted();
+  const lock = await sequelize.transaction();
+  try {
+    await sequelize.query('SELECT pg_advisory_xact_lock(727006)', { transaction: lock });
+    const [{ prints, readings }] = await sequelize.query<{ prints: number; readings: number }>(
+      'SELECT (SELECT count(*) FROM prints)::int AS prints, (SELECT count(*) FROM (SELECT 1 FROM climate_readings LIMIT 1) x)::int AS readings',
+      { type: QueryTypes.SELECT, transaction: lock },
+    );
+    const begun = await progress();
+    if (prints === 0 || (readings > 0 && begun.climate !== 'started')) return false;
+    const account = DEMO_ACCOUNTS.find((a) => a.role === 'conservator')!;
+    const user = await User.findOne({ where: { email: account.email }, transaction: lock });
+    if (!user) return false;
+    log(begun.climate === 'started' ? 'Carrying on with the demo logger readings an earlier start began…' : 'Writing demo logger readings for the print stores…');
+    await mark('climate', 'started');
+    await seedDemoClimate({ id: user.id, name: user.name, role: 'conservator' }, log, { signal });
+    await mark('climate', 'done');
     return true;
   } finally {
     await lock.commit();
