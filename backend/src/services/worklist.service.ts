@@ -37,8 +37,11 @@ export function buildWorklistSql(query: WorklistQuery, today: string): WorklistS
     return `$${params.length}`;
   };
   const where: string[] = [];
+  // The place is kept on the schedule row (migration 20261202174500). The subtree is gathered once into an
+  // array, so each of its places is an index range of (location_id, due_on, print_id); as a subquery the
+  // planner walked the whole date index instead, testing each row against the subtree.
   if (query.locationId) {
-    where.push(`p.location_id IN (WITH RECURSIVE sub AS (SELECT id FROM locations WHERE id = ${p(query.locationId)} UNION ALL SELECT c.id FROM locations c JOIN sub ON c.parent_id = sub.id) SELECT id FROM sub)`);
+    where.push(`s.location_id = ANY (ARRAY(WITH RECURSIVE sub AS (SELECT id FROM locations WHERE id = ${p(query.locationId)} UNION ALL SELECT c.id FROM locations c JOIN sub ON c.parent_id = sub.id) SELECT id FROM sub))`);
   }
   if (query.risk) where.push(`s.risk = ${p(query.risk)}`);
   if (query.reason) where.push(`s.reasons @> ARRAY[${p(query.reason)}]::text[]`);
@@ -53,13 +56,14 @@ export function buildWorklistSql(query: WorklistQuery, today: string): WorklistS
   const order = SORT_SQL[query.sort];
   const limit = p(query.pageSize);
   const offset = p((query.page - 1) * query.pageSize);
-  // The page first (only the sort's columns), then its rows' last report and open round.
+  // The page first, reading prints and places only when the sort needs them; then its rows' details.
+  const needsPrint = query.sort === 'location' || query.sort === 'accessionNumber';
+  const pageFrom = `print_schedules s${needsPrint ? ' JOIN prints p ON p.id = s.print_id' : ''}${query.sort === 'location' ? ' LEFT JOIN locations l ON l.id = p.location_id' : ''}`;
   const select = `SELECT s.print_id, p.accession_number, p.title, s.due_on::text AS due_on, (${day}::date - s.due_on) AS overdue_days, s.risk,
       s.override_due_on IS NOT NULL AS overridden, s.main_reason, s.reasons, p.location_id, l.path_label AS location_label,
       lr.grade AS last_grade, coalesce(s.last_checked_on, lr.examined_on)::text AS last_checked_on,
       rd.id AS round_id, rd.title AS round_title, rd.planned_on::text AS round_planned_on, rd.assignee_name
-    FROM (SELECT s.print_id FROM print_schedules s JOIN prints p ON p.id = s.print_id LEFT JOIN locations l ON l.id = p.location_id
-          ${whereSql} ORDER BY ${order} LIMIT ${limit} OFFSET ${offset}) page
+    FROM (SELECT s.print_id FROM ${pageFrom} ${whereSql} ORDER BY ${order} LIMIT ${limit} OFFSET ${offset}) page
     JOIN print_schedules s ON s.print_id = page.print_id
     JOIN prints p ON p.id = s.print_id
     LEFT JOIN locations l ON l.id = p.location_id
@@ -69,11 +73,12 @@ export function buildWorklistSql(query: WorklistQuery, today: string): WorklistS
                        JOIN inspection_rounds r ON r.id = ri.round_id AND r.status = 'planned' JOIN users u ON u.id = r.assignee_id
                        WHERE ri.print_id = s.print_id ORDER BY r.planned_on, r.id LIMIT 1) rd ON true
     ORDER BY ${order}`;
+  // Every schedule row belongs to a print (the foreign key cascades), so the counts need no join.
   const cday = `$${countParams.length + 1}::date`;
   const counts = `SELECT count(*) FILTER (WHERE s.due_on < ${cday})::int AS overdue,
       count(*) FILTER (WHERE s.due_on <= ${cday} + 30)::int AS within30,
       count(*) FILTER (WHERE s.due_on <= ${cday} + 90)::int AS within90, count(*)::int AS total
-    FROM print_schedules s JOIN prints p ON p.id = s.print_id ${filters.length ? `WHERE ${filters.join(' AND ')}` : ''}`;
+    FROM print_schedules s ${filters.length ? `WHERE ${filters.join(' AND ')}` : ''}`;
   return { select, params, counts, countParams: [...countParams, today] };
 }
 

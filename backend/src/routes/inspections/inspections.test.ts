@@ -136,6 +136,26 @@ describe('work list', () => {
     expect(page2.pagination.total).toBe(5);
   });
 
+  it('follows a print that moves: the place filter reads the print\'s new place', async () => {
+    const extra = await newPrint(7, aisle);
+    await settleSchedules();
+    await db().query(
+      `INSERT INTO print_schedules (print_id, computed_due_on, due_on, interval_months, risk, risk_rank, reasons, main_reason)
+       VALUES ($1, $2, $2, 12, 'low', 1, '{}', 'routine') ON CONFLICT (print_id) DO UPDATE SET due_on = EXCLUDED.due_on`,
+      { bind: [extra.id, day(500)] },
+    );
+    const inAisle = await api('conservator').get(`/api/inspections?locationId=${aisle}&window=all`);
+    expect(inAisle.body.data.map((r: { printId: string }) => r.printId)).toContain(extra.id);
+    const { body: { data: print } } = await api('registrar').get(`/api/prints/${extra.id}`);
+    const moved = await api('registrar').post(`/api/prints/${extra.id}/movements`, { toLocationId: elsewhere, reason: 'Rehoused in the annexe', version: print.version });
+    expect(moved.status, JSON.stringify(moved.body)).toBe(201);
+    const after = await api('conservator').get(`/api/inspections?locationId=${aisle}&window=all`);
+    expect(after.body.data.map((r: { printId: string }) => r.printId)).toEqual(of('a', 'b', 'c', 'd'));
+    const there = await api('conservator').get(`/api/inspections?locationId=${elsewhere}&window=all`);
+    expect(there.body.data.map((r: { printId: string }) => r.printId)).toEqual([p.f.id, extra.id]);
+    await db().query('DELETE FROM print_schedules WHERE print_id = $1', { bind: [extra.id] });
+  });
+
   it('who reads: viewer 403, no session 401, researcher and registrar read', async () => {
     expect((await api('viewer').get('/api/inspections')).status).toBe(403);
     expect((await api(null).get('/api/inspections')).status).toBe(401);
