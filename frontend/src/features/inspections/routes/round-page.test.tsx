@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { fireEvent, screen, waitFor, within } from '@testing-library/react';
+import { fireEvent, screen, within } from '@testing-library/react';
 import { errorResponse, json, mockFetch } from '@/test/fetch-mock';
 import { makeMe } from '@/test/fixtures';
 import { renderRoutes } from '@/test/render';
