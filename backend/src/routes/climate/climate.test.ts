@@ -94,6 +94,17 @@ describe('a logger file from upload to accept', () => {
   });
 });
 
+describe('a file larger than one insert batch', () => {
+  it('writes every reading across batches (INSERT_BATCH = 25,000)', async () => {
+    const room = await createLocation();
+    const start = Date.parse('2025-01-01T00:00:00Z');
+    const rows = Array.from({ length: 30_001 }, (_, i) => `${new Date(start + i * 60_000).toISOString()},17.5,45`);
+    const acc = await loaded(room.id, ['Time,Temp °C,RH %', ...rows].join('\n'));
+    expect(acc.acceptedRows).toBe(30_001);
+    expect(await held(room.id)).toBe(30_001);
+  });
+});
+
 describe('figures of a location', () => {
   it('summary over a small file, worked by hand', async () => {
     const room = await createLocation();
