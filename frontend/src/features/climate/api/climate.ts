@@ -2,7 +2,7 @@ import { keepPreviousData, useMutation, useQuery, useQueryClient } from '@tansta
 import type { BodyIn } from '@toneledger/common/api/endpoint';
 import { climateApi, climateSettingsApi } from '@toneledger/common/api/climate';
 import type { ClimateFile, ClimateMapping } from '@toneledger/common/schemas/climate';
-import { callData } from '@/lib/api-client';
+import { call, callData } from '@/lib/api-client';
 import { climateKeys, climateSettingsKeys, type Period } from '@/features/climate/api/keys';
 
 const query = (p: Period) => ({ ...(p.from ? { from: p.from } : {}), ...(p.to ? { to: p.to } : {}) });
@@ -68,7 +68,7 @@ export function useAcceptClimateFile() {
 export function useDiscardClimateFile(locationId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (file: Pick<ClimateFile, 'id'>) => callData(climateApi.discard, { params: { id: file.id } }),
+    mutationFn: async (file: Pick<ClimateFile, 'id'>) => { await call(climateApi.discard, { params: { id: file.id } }); },
     onSuccess: () => qc.invalidateQueries({ queryKey: climateKeys.files(locationId) }),
   });
 }

@@ -157,6 +157,7 @@ export function UploadFlow({ locationId, resume, onClose }: { locationId: string
             <Button size="sm" disabled={discard.isPending} onClick={() => discard.mutate(file, { onSuccess: () => { reset(); onClose?.(); } })}>
               Discard this file
             </Button>
+            {discard.isError ? <ErrorNotice error={discard.error} title="The file was not discarded." /> : null}
           </div>
         </>
       )}

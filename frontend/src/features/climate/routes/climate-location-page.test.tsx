@@ -70,6 +70,19 @@ describe('ClimateLocationPage', { timeout: 20_000 }, () => {
     expect((accept.body as { mapping: { timeZone: string } }).mapping.timeZone).toBe('Europe/London');
   });
 
+  it('discards a file not accepted and goes back to the start', async () => {
+    const { requests } = mockFetch({
+      ...base,
+      [`GET /api/locations/${LOCATION_ID}/climate-files`]: () => json({ data: [makeFile()] }),
+      [`DELETE /api/climate-files/${FILE_ID}`]: () => new Response(null, { status: 204 }),
+    });
+    render();
+    fireEvent.click(await screen.findByRole('button', { name: 'Continue' }));
+    fireEvent.click(await screen.findByRole('button', { name: 'Discard this file' }));
+    expect(await screen.findByRole('button', { name: 'Load a logger file' })).toBeTruthy();
+    expect(requests.filter((r) => r.method === 'DELETE')).toHaveLength(1);
+  });
+
   it('shows a refused upload in the error envelope’s words', async () => {
     mockFetch({
       ...base,
