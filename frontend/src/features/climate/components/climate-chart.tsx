@@ -10,6 +10,8 @@ const EXCURSION = '#f4d9cf';
 const GRID = '#ebe4d6';
 
 const dayLabel = (t: number) => new Date(t).toISOString().slice(0, 10);
+/** Times of day (UTC) when the period is a few days, dates otherwise. */
+const timeLabel = (t: number) => new Date(t).toISOString().slice(11, 16);
 
 export interface ClimateChartProps {
   series: ClimateSeries;
@@ -38,7 +40,7 @@ export function ClimateChart({ series, summary, quantity, width }: ClimateChartP
       <div role="img" aria-label={label}>
         <ComposedChart responsive={!width} style={size} width={width} height={width ? 220 : undefined} data={data} margin={{ top: 8, right: 16, bottom: 4, left: 4 }} accessibilityLayer={false}>
           <CartesianGrid stroke={GRID} />
-          <XAxis type="number" dataKey="t" domain={[start, end]} tickFormatter={dayLabel} stroke={INK} fontSize={11} allowDataOverflow />
+          <XAxis type="number" dataKey="t" domain={[start, end]} tickFormatter={end - start <= 3 * 86_400_000 ? timeLabel : dayLabel} stroke={INK} fontSize={11} allowDataOverflow />
           <YAxis type="number" stroke={INK} fontSize={11} width={40} domain={['auto', 'auto']} />
           <ReferenceArea y1={lo} y2={hi} fill={BAND} fillOpacity={0.7} ifOverflow="extendDomain" className="chart-target" />
           {excursions.map((e) => (
