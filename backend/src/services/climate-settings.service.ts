@@ -4,6 +4,7 @@ import { DEFAULT_CLIMATE_SETTINGS } from '@toneledger/common/domain/isoperm';
 import { Setting } from '../models';
 import { db } from '../db';
 import { recordAudit, type AuditActor } from './audit.service';
+import { markScheduleStale } from './schedule-stale';
 
 /**
  * The climate settings (target ranges with their source, the reference climate, the isoperm
@@ -22,6 +23,8 @@ export async function putClimateSettings(next: ClimateSettings, actor: AuditActo
     const before = await getClimateSettings(t);
     await Setting.upsert({ key: KEY, value: next }, { transaction: t });
     await recordAudit({ actor, action: 'settings.updated', entityType: 'settings', entityId: KEY, before, after: next, requestId }, t);
+    // The permanence of every store with readings feeds the risk model: its prints are rescheduled.
+    await markScheduleStale(t, { climateStores: true });
     return next;
   });
 }

@@ -48,6 +48,8 @@ export async function putMeasurementSettings(next: MeasurementSettings, actor: A
     const before = await getMeasurementSettings(t);
     await Setting.upsert({ key: SETTINGS_KEY, value: next }, { transaction: t });
     await recordAudit({ actor, action: 'settings.updated', entityType: 'settings', entityId: SETTINGS_KEY, before, after: next, requestId }, t);
+    // The noticeable-change threshold moves every measured print's projection, hence its inspection date.
+    if (before.noticeableDeltaE !== next.noticeableDeltaE) await markScheduleStale(t, { measured: true });
     return next;
   });
 }

@@ -14,7 +14,11 @@ export type StaleTarget =
   /** Every print stored at this place or anywhere inside it. */
   | { locationId: string }
   /** Every print housed in this enclosure type. */
-  | { enclosureId: string };
+  | { enclosureId: string }
+  /** Every print with a measurement session (the noticeable-change threshold changed). */
+  | { measured: true }
+  /** Every print stored where logger readings are held, or inside such a place (the climate settings changed). */
+  | { climateStores: true };
 
 const LOCATION_SUBTREE = `WITH RECURSIVE sub AS (SELECT id FROM locations WHERE id = :id UNION ALL SELECT l.id FROM locations l JOIN sub ON l.parent_id = sub.id)`;
 
@@ -30,10 +34,22 @@ export async function markScheduleStale(t: Transaction, target: StaleTarget): Pr
       `${LOCATION_SUBTREE} INSERT INTO schedule_stale (print_id) SELECT p.id FROM prints p WHERE p.location_id IN (SELECT id FROM sub) ON CONFLICT (print_id) DO NOTHING`,
       { replacements: { id: target.locationId }, transaction: t, type: QueryTypes.INSERT },
     );
-  } else {
+  } else if ('enclosureId' in target) {
     await db().query(
       `INSERT INTO schedule_stale (print_id) SELECT p.id FROM prints p WHERE p.enclosure_id = :id ON CONFLICT (print_id) DO NOTHING`,
       { replacements: { id: target.enclosureId }, transaction: t, type: QueryTypes.INSERT },
+    );
+  } else if ('measured' in target) {
+    await db().query(
+      `INSERT INTO schedule_stale (print_id) SELECT DISTINCT print_id FROM measurement_sessions ON CONFLICT (print_id) DO NOTHING`,
+      { transaction: t, type: QueryTypes.INSERT },
+    );
+  } else {
+    await db().query(
+      `WITH RECURSIVE sub AS (SELECT DISTINCT location_id AS id FROM climate_files WHERE status = 'accepted'
+         UNION SELECT l.id FROM locations l JOIN sub ON l.parent_id = sub.id)
+       INSERT INTO schedule_stale (print_id) SELECT p.id FROM prints p WHERE p.location_id IN (SELECT id FROM sub) ON CONFLICT (print_id) DO NOTHING`,
+      { transaction: t, type: QueryTypes.INSERT },
     );
   }
   t.afterCommit(() => wakeScheduleUpdate());

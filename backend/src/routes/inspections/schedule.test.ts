@@ -128,6 +128,21 @@ describe('storage climate', () => {
     expect(climate?.text).toMatch(/permanence 0\.6\)/);
     expect(s.intervalMonths).toBe(50);
     expect(s.dueOn).toBe(monthsAfter(daysFromToday(-5), 50));
+
+    // An administrator raises the activation energy: the stores with readings are rescheduled without any other change.
+    // REFERENCES.md §3: 25 °C / 50 % at Ea 104.6 kJ/mol → permanence 0.487; 12 × log2(0.487) = −12.46 → −12 months.
+    const before = (await h.as('admin').get('/api/settings/climate')).body.data;
+    const put = await h.as('admin').put('/api/settings/climate', { ...before, activationEnergyKjMol: 104.6 });
+    expect(put.status, JSON.stringify(put.body)).toBe(200);
+    try {
+      await settleSchedules();
+      const after = await schedule(p.id);
+      expect(after.factors.find((f) => f.code === 'climate')?.months).toBe(-12);
+      expect(after.intervalMonths).toBe(48);
+    } finally {
+      expect((await h.as('admin').put('/api/settings/climate', before)).status).toBe(200);
+      await settleSchedules();
+    }
   });
 });
 
