@@ -1,12 +1,13 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import pg from 'pg';
+import ICAL from 'ical.js';
 import type { BrowserContext, Page } from 'playwright-core';
 import { openBrowser, screenshot, signInAs, BASE_URL } from './browser';
 
 /**
  * A conservator's round of checks: three prints due in one store room are chosen on the work list and
  * planned as a round; on the round's sheet one is checked into a condition report, signed, and shows
- * as checked. The prints are made through the API. The risk model schedules new prints in a background
+ * as checked; the round is then found in the conservator's calendar feed. The prints are made through the API. The risk model schedules new prints in a background
  * job; so that the list need not wait for it, a row is written straight to the table where none is yet,
  * and the test looks at every scheduled print of the room (window "all"), whatever dates the model gives.
  */
@@ -116,5 +117,23 @@ describe('a round of checks in one store room', () => {
     await screenshot(page, 'inspections-round-checked');
   }, 60_000);
 
-  // The calendar feed's step goes here: the assignee's feed lists this round as a VEVENT.
+  it("the round is in the assignee's calendar feed: made on the Reminders page, read by a general-purpose iCalendar parser", async () => {
+    await page.goto(`${BASE_URL}/inspections/reminders`);
+    await page.getByRole('heading', { level: 2, name: 'Calendar' }).waitFor();
+    const make = page.getByRole('button', { name: /^Make a (new |calendar )address$/ });
+    await make.click();
+    const url = (await page.getByTestId('feed-url').textContent({ timeout: 20_000 }))!.trim();
+    expect(url).toMatch(/\/api\/calendar\/[A-Za-z0-9_-]{40,}\.ics$/);
+    await screenshot(page, 'inspections-calendar-address');
+    // A calendar program asks without the session: a bare fetch from Node, not the signed-in page.
+    const res = await fetch(url);
+    expect(res.status).toBe(200);
+    expect(res.headers.get('content-type')).toMatch(/^text\/calendar/);
+    const events = new ICAL.Component(ICAL.parse(await res.text())).getAllSubcomponents('vevent').map((e) => new ICAL.Event(e));
+    const mine = events.find((e) => e.summary.includes(ROUND));
+    expect(mine, events.map((e) => e.summary).join(' | ')).toBeDefined();
+    expect(mine!.startDate.isDate).toBe(true);
+    expect(mine!.startDate.toString()).toBe(day(2));
+    expect(mine!.uid).toContain(new URL(roundUrl).pathname.split('/').pop()!);
+  }, 60_000);
 });
