@@ -19,10 +19,10 @@ function navLinks(role: Role, environment: 'development' | 'test' | 'production'
 describe('MainNav', () => {
   // Written out by hand from the product's role table, so a change to the permissions shows up here.
   const expected: Record<Role, string[]> = {
-    admin: ['Catalogue', 'Condition', 'Measurements', 'Loans', 'Exhibitions', 'Inspections', 'Research', 'People and roles', 'Audit trail', 'Outgoing mail', 'Weekly digests'],
-    registrar: ['Catalogue', 'Condition', 'Measurements', 'Loans', 'Exhibitions', 'Inspections'],
-    conservator: ['Catalogue', 'Condition', 'Measurements', 'Loans', 'Exhibitions', 'Inspections', 'Research'],
-    researcher: ['Catalogue', 'Condition', 'Measurements', 'Loans', 'Exhibitions', 'Inspections', 'Research'],
+    admin: ['Catalogue', 'Condition', 'Measurements', 'Loans', 'Exhibitions', 'Climate', 'Inspections', 'Research', 'People and roles', 'Audit trail', 'Outgoing mail', 'Weekly digests'],
+    registrar: ['Catalogue', 'Condition', 'Measurements', 'Loans', 'Exhibitions', 'Climate', 'Inspections'],
+    conservator: ['Catalogue', 'Condition', 'Measurements', 'Loans', 'Exhibitions', 'Climate', 'Inspections', 'Research'],
+    researcher: ['Catalogue', 'Condition', 'Measurements', 'Loans', 'Exhibitions', 'Climate', 'Inspections', 'Research'],
     viewer: ['Catalogue', 'Loans', 'Exhibitions'],
   };
 
