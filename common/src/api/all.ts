@@ -11,6 +11,7 @@ import { lightApi, lightSettingsApi } from './light';
 import { loansApi } from './loans';
 import { measurementSettingsApi, measurementsApi } from './measurements';
 import { printsApi } from './prints';
+import { researchApi } from './research';
 import { catalogueSettingsApi, enclosuresApi, locationsApi, makersApi, papersApi, recipesApi } from './reference';
 import { systemApi } from './system';
 import { auditApi, meApi, usersApi } from './users';
@@ -20,5 +21,5 @@ export const allContracts: Record<string, Contract> = {
   systemApi, authApi, meApi, usersApi, auditApi, devMailApi, printsApi, importsApi, makersApi, papersApi, recipesApi, enclosuresApi,
   locationsApi, catalogueSettingsApi, imagesApi, fixityApi, conditionSettingsApi, conditionTermsApi, reportsApi, measurementSettingsApi,
   measurementsApi, exhibitionsApi, displaysApi, lightApi, lightSettingsApi, loansApi,
-  climateApi, climateSettingsApi, scheduleApi, roundsApi, remindersApi,
+  climateApi, climateSettingsApi, scheduleApi, roundsApi, remindersApi, researchApi,
 };

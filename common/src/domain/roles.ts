@@ -55,6 +55,8 @@ export const PERMISSIONS = {
   /** Every weekly digest sent or tried, with failures. */
   'digests.read': ['admin'],
   'research.run': ['admin', 'conservator', 'researcher'],
+  /** Cohort datasets out (Frictionless Data Packages); audited. */
+  'research.export': ['admin', 'conservator', 'researcher'],
   'users.manage': ['admin'],
   'audit.read': ['admin'],
   'settings.manage': ['admin'],
