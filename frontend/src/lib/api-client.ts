@@ -250,3 +250,29 @@ export function uploadWithProgress<E extends Endpoint & { requestContentType: 'm
     xhr.send(input.body);
   });
 }
+
+/**
+ * Calls an endpoint that answers with a file (a POST whose body says what to put in it, e.g. a data
+ * package zip): the bytes as a Blob and the file name from Content-Disposition. Errors are ApiErrors.
+ */
+export async function callFile<E extends Endpoint>(e: E, ...[input]: OptionalIfEmpty<E>): Promise<{ blob: Blob; fileName: string | null }> {
+  const { params, body, signal } = (input ?? {}) as { params?: Record<string, unknown>; body?: unknown; signal?: AbortSignal };
+  let response: Response;
+  try {
+    response = await fetch(pathOf(e, params), {
+      method: METHODS[e.method],
+      headers: { accept: e.response.contentType ?? '*/*', ...(body === undefined ? {} : { 'content-type': 'application/json' }) },
+      body: body === undefined ? undefined : JSON.stringify(body),
+      credentials: 'same-origin',
+      signal,
+    });
+  } catch (cause) {
+    if (cause instanceof DOMException && cause.name === 'AbortError') throw cause;
+    throw unreachable();
+  }
+  const requestId = response.headers.get('x-request-id');
+  if (!response.ok) throw errorFrom(parseJson(await response.text()), response.status, response.statusText, requestId);
+  const disposition = response.headers.get('content-disposition') ?? '';
+  const fileName = /filename="?([^";]+)"?/i.exec(disposition)?.[1] ?? null;
+  return { blob: await response.blob(), fileName };
+}
