@@ -26,7 +26,7 @@ export const AREAS: Area[] = [
     summary: 'Temperature and RH from loggers in each store room: excursions, time outside the targets, relative permanence.' },
   { id: 'schedule', label: 'Inspections', path: '/inspections', permission: 'schedule.read', ready: true,
     summary: 'Next-inspection dates from an explainable risk model; overdue and due-soon prints.' },
-  { id: 'research', label: 'Research', path: '/research', permission: 'research.run', ready: false,
+  { id: 'research', label: 'Research', path: '/research', permission: 'research.run', ready: true,
     summary: 'Cohorts by process, toner, paper and treatment; fading distributions and survival curves.' },
 ];
 

@@ -70,14 +70,6 @@ describe('route guards and fallbacks', () => {
     expect(requests.map((r) => r.path)).toEqual(['/api/me']);
   });
 
-  it('says plainly that an unbuilt area is not built yet, and what it will hold', async () => {
-    mockFetch({ 'GET /api/me': () => json({ data: makeMe('conservator') }) });
-    renderRoutes(routes, { path: '/research' });
-    expect(await screen.findByRole('heading', { level: 1, name: 'Research' })).toBeTruthy();
-    expect(screen.getByText('This area is not built yet.')).toBeTruthy();
-    expect(screen.getByText(/survival curves/)).toBeTruthy();
-  });
-
   it('does not open the research area for a registrar', async () => {
     mockFetch({ 'GET /api/me': () => json({ data: makeMe('registrar') }) });
     renderRoutes(routes, { path: '/research' });
