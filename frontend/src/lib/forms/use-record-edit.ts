@@ -53,6 +53,16 @@ export function useRecordEdit<R extends { version: number }, V extends FieldValu
     return base ? toValues(base) : null;
   }
 
+  /** Takes a failed save that is a stale edit; false for anything else. */
+  function catchConflict(error: unknown): boolean {
+    if (!base || !isApiError(error) || error.code !== 'conflict') return false;
+    const details = staleEditDetailsSchema.safeParse(error.details);
+    const current = details.success ? recordSchema.safeParse(details.data.current) : null;
+    if (!details.success || !current?.success) return false;
+    setConflict({ current: current.data, lastChangedBy: details.data.lastChangedBy, lastChangedAt: details.data.lastChangedAt });
+    return true;
+  }
+
   return {
     base,
     conflict,
@@ -67,14 +77,10 @@ export function useRecordEdit<R extends { version: number }, V extends FieldValu
       setConflict(null);
       form.reset(toValues(record));
     },
-    /** Takes a failed save that is a stale edit; false for anything else. */
-    catchConflict(error: unknown): boolean {
-      if (!base || !isApiError(error) || error.code !== 'conflict') return false;
-      const details = staleEditDetailsSchema.safeParse(error.details);
-      const current = details.success ? recordSchema.safeParse(details.data.current) : null;
-      if (!details.success || !current?.success) return false;
-      setConflict({ current: current.data, lastChangedBy: details.data.lastChangedBy, lastChangedAt: details.data.lastChangedAt });
-      return true;
+    catchConflict,
+    /** A failed save: a stale edit shows the review beside what was typed; any other failure goes to the form (field messages, the summary). */
+    failed(error: unknown): void {
+      if (!catchConflict(error)) form.serverError(error);
     },
     rows(mine: V) {
       const start = opened();

@@ -89,9 +89,7 @@ export function PrintForm(props: PrintFormProps) {
       { id: edit.base.id, update: changesOnly(body, changed, edit.base.version) as never },
       {
         onSuccess: props.onSaved,
-        onError: (error) => {
-          if (!edit.catchConflict(error)) form.serverError(error);
-        },
+        onError: edit.failed,
       },
     );
   }

@@ -226,9 +226,7 @@ export function StepsEditor({ print, onSaved, onCancel }: StepsEditorProps) {
       { printId: print.id, body },
       {
         onSuccess: onSaved,
-        onError: (error) => {
-          if (!edit.catchConflict(error)) form.serverError(error);
-        },
+        onError: edit.failed,
       },
     );
   }

@@ -87,9 +87,7 @@ export function ReportForm(props: ReportFormProps) {
   const observationsHeading = useId();
   const dirty = edit.base ? edit.changed(values).length > 0 : true;
 
-  function failed(error: unknown) {
-    if (!edit.catchConflict(error)) form.serverError(error);
-  }
+  const failed = edit.failed;
 
   /** Saves the draft if anything changed; the saved report, or null when it was not saved. */
   async function saveDraft(body: ReturnType<typeof reportInputSchema.parse>, current: ReportFormValues): Promise<ConditionReport | null> {

@@ -57,9 +57,7 @@ export function PrintScheduleOverrideForm({ schedule, onDone }: { schedule: Prin
             edit.saved(saved);
             onDone(saved);
           },
-          onError: (error) => {
-            if (!edit.catchConflict(error)) form.serverError(error);
-          },
+          onError: edit.failed,
         })
       }
     >

@@ -58,9 +58,7 @@ export function CategoryForm({ light, onDone }: { light: PrintLight; onDone: (sa
             edit.saved(saved);
             onDone(saved);
           },
-          onError: (error) => {
-            if (!edit.catchConflict(error)) form.serverError(error);
-          },
+          onError: edit.failed,
         })
       }
     >

@@ -113,9 +113,7 @@ export function LoanEditForm({ loan, onSaved, onCancel }: { loan: LoanDetail; on
     if (changed.length === 0) return form.setNotice(NOTHING_TO_SAVE);
     update.mutate(changesOnly(body, changed, edit.base.version) as never, {
       onSuccess: onSaved,
-      onError: (error) => {
-        if (!edit.catchConflict(error)) form.serverError(error);
-      },
+      onError: edit.failed,
     });
   }
 

@@ -152,9 +152,7 @@ export function SpotForm({ printId, spot, images, others, onDone }: SpotFormProp
       { id: edit.base.id, update: changesOnly(body, changed, edit.base.version) as never },
       {
         onSuccess: onDone,
-        onError: (error) => {
-          if (!edit.catchConflict(error)) form.serverError(error);
-        },
+        onError: edit.failed,
       },
     );
   }

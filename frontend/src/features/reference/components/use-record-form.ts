@@ -53,9 +53,7 @@ export function useRecordForm<R extends { id: string; version: number }, V exten
         edit.saved(saved);
         onSaved?.(saved, request.id === null);
       },
-      onError: (error) => {
-        if (!edit.catchConflict(error)) form.serverError(error);
-      },
+      onError: edit.failed,
     });
   }
 
