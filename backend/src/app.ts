@@ -32,6 +32,7 @@ import { climateRoutes } from './routes/climate/climate.routes';
 import { remindersRoutes } from './routes/reminders/reminders.routes';
 import { roundsRoutes, worklistRoutes } from './routes/inspections/rounds.routes';
 import { scheduleRoutes } from './routes/inspections/schedule.routes';
+import { researchRoutes } from './routes/research/research.routes';
 
 /** Every route the app serves, in one list: Express mounts it and OpenAPI describes it. */
 export function allRoutes(deps: AppDeps): RouteDef[] {
@@ -57,6 +58,7 @@ export function allRoutes(deps: AppDeps): RouteDef[] {
     ...worklistRoutes(),
     ...roundsRoutes(),
     ...scheduleRoutes(deps),
+    ...researchRoutes(),
   ];
   return routes;
 }

@@ -6,6 +6,7 @@ import { db } from '../db';
 import { conflict } from '../errors';
 import { onScheduleWake } from './schedule-stale';
 import { recomputeSchedules } from './schedule.service';
+import { recomputeOutcomes } from './print-outcomes';
 
 /**
  * Keeping every print's date current.
@@ -33,6 +34,7 @@ export async function processStaleBatch(size = SCHEDULE_BATCH): Promise<number> 
     )).map((r) => r.print_id);
     if (!ids.length) return 0;
     await recomputeSchedules(ids, t);
+    await recomputeOutcomes(ids, t);
     await db().query('DELETE FROM schedule_stale WHERE print_id = ANY ($1::uuid[])', { bind: [ids], transaction: t });
     return ids.length;
   });
@@ -76,10 +78,11 @@ export function installScheduleWake(queue: JobQueue | null): void {
     : runHere);
 }
 
-/** When the workers start: every print without a schedule row is marked, and the marks are worked off. Returns how many were marked. */
+/** When the workers start: every print without a schedule row or without an outcomes row (research) is marked, and the marks are worked off. Returns how many were marked. */
 export async function markUnscheduled(queue: JobQueue): Promise<number> {
   const [, count] = await db().query(
-    `INSERT INTO schedule_stale (print_id) SELECT p.id FROM prints p WHERE NOT EXISTS (SELECT 1 FROM print_schedules s WHERE s.print_id = p.id)
+    `INSERT INTO schedule_stale (print_id) SELECT p.id FROM prints p
+      WHERE NOT EXISTS (SELECT 1 FROM print_schedules s WHERE s.print_id = p.id) OR NOT EXISTS (SELECT 1 FROM print_outcomes o WHERE o.print_id = p.id)
      ON CONFLICT (print_id) DO NOTHING`,
   ) as [unknown, { rowCount?: number } | number];
   await queue.boss.send(QUEUES.scheduleUpdate, {}, { singletonKey: 'schedule-update', singletonSeconds: 2, singletonNextSlot: true });
@@ -150,6 +153,7 @@ export async function scheduleRecomputeBatch(size = SCHEDULE_BATCH): Promise<boo
       { bind: [p.cursor, size], transaction: t, type: QueryTypes.SELECT },
     )).map((r) => r.id);
     await recomputeSchedules(ids, t);
+    await recomputeOutcomes(ids, t);
     // These prints are current now: any mark of theirs made before this batch is done.
     if (ids.length) await db().query('DELETE FROM schedule_stale WHERE print_id = ANY ($1::uuid[])', { bind: [ids], transaction: t });
     const done = p.done + ids.length;

@@ -1,0 +1,152 @@
+import { COHORT_FACTORS, type CohortFactorCode } from '@toneledger/common/fields/cohort';
+import type { CohortQuery } from '@toneledger/common/schemas/research';
+
+/**
+ * The cohort statement: one parameterised SELECT per question, built from `COHORT_FACTORS`. Each
+ * factor has one SQL expression here (never text from the request; every value of the query is a
+ * bind parameter) and names the joins it needs, so a query over the catalogue alone joins nothing
+ * else. The statement returns one row per print of the cohort (one per toner class when grouping by
+ * `tonerClass`: a print toned twice belongs to both groups) with the raw values of the grouping and
+ * Cox factors, its fading rates from `print_outcomes`, and its survival time and event for the
+ * question's event and origin. Groups, bands and figures are assembled by `cohort.service.ts`.
+ */
+
+type Need = 'steps' | 'paper' | 'enclosure' | 'outcomes';
+interface FactorSql { expr: string; needs: Need[] }
+
+const flag = (yes: string, no: string) => `CASE WHEN ${yes} THEN 'yes' WHEN ${no} THEN 'no' ELSE 'unknown' END`;
+
+/** The expression of each factor (text for choice/text/flag, float8 for number and year, uuid for place). */
+export const FACTOR_SQL: Record<CohortFactorCode, FactorSql> = {
+  process: { expr: 'p.process', needs: [] },
+  support: { expr: 'p.support', needs: [] },
+  paperBase: { expr: 'pa.base', needs: ['paper'] },
+  paperSurface: { expr: 'pa.surface', needs: ['paper'] },
+  paperTint: { expr: 'pa.base_tint', needs: ['paper'] },
+  // A print toned with two classes has both; the Cox model and a single value take the first.
+  tonerClass: { expr: 'p.toner_classes[1]', needs: [] },
+  toned: { expr: flag('st.toned', 'st.n > 0'), needs: ['steps'] },
+  tonerSequence: { expr: 'st.seq', needs: ['steps'] },
+  ferricyanideGL: { expr: 'o.ferricyanide_gl', needs: ['outcomes'] },
+  acidGL: { expr: 'o.acid_gl', needs: ['outcomes'] },
+  toningMinutes: { expr: 'st.toning_min', needs: ['steps'] },
+  toningExtent: { expr: 'st.extent', needs: ['steps'] },
+  washingMinutes: { expr: 'st.wash_min', needs: ['steps'] },
+  hypoClearing: { expr: flag('st.hypo', 'st.n > 0'), needs: ['steps'] },
+  alkalineAfterBath: { expr: flag('st.alk_yes', 'st.n > 0 AND NOT st.alk_unknown'), needs: ['steps'] },
+  enclosureType: { expr: 'et.name', needs: ['enclosure'] },
+  enclosureBuffered: { expr: flag('et.alkaline_buffered', 'et.alkaline_buffered = false'), needs: ['enclosure'] },
+  location: { expr: 'p.location_id', needs: [] },
+  climatePermanence: { expr: 'o.climate_permanence', needs: ['outcomes'] },
+  lightBand: { expr: `CASE WHEN p.over_light_budget THEN 'over' WHEN EXISTS (SELECT 1 FROM display_periods d WHERE d.print_id = p.id) THEN 'within' ELSE 'none' END`, needs: [] },
+  dateMade: { expr: 'extract(year FROM p.date_earliest)::float8', needs: [] },
+  maker: { expr: 'p.maker_name', needs: [] },
+};
+
+const JOINS: Record<Need, string> = {
+  paper: 'LEFT JOIN papers pa ON pa.id = p.paper_id',
+  enclosure: 'LEFT JOIN enclosure_types et ON et.id = p.enclosure_id',
+  outcomes: 'LEFT JOIN print_outcomes o ON o.print_id = p.id',
+  steps: `LEFT JOIN LATERAL (
+    SELECT count(*) AS n, coalesce(bool_or(s.type = 'toning'), false) AS toned,
+           string_agg(s.toner_class, ' → ' ORDER BY s.position) FILTER (WHERE s.type = 'toning') AS seq,
+           (sum(s.time_seconds) FILTER (WHERE s.type = 'toning') / 60.0)::float8 AS toning_min,
+           (array_agg(s.extent ORDER BY s.position) FILTER (WHERE s.type = 'toning'))[1] AS extent,
+           (sum(s.time_seconds) FILTER (WHERE s.type IN ('washing','final_wash')) / 60.0)::float8 AS wash_min,
+           coalesce(bool_or(s.type = 'hypo_clearing'), false) AS hypo,
+           coalesce(bool_or(s.alkaline) FILTER (WHERE s.type = 'after_bath'), false) AS alk_yes,
+           coalesce(bool_or(s.alkaline IS NULL) FILTER (WHERE s.type = 'after_bath'), false) AS alk_unknown
+      FROM process_steps s WHERE s.print_id = p.id) st ON true`,
+};
+
+export const GRADE_COLUMN = { good: 'o.good_on', fair: 'o.fair_on', poor: 'o.poor_on', unacceptable: 'o.unacceptable_on' } as const;
+
+export interface CohortRow {
+  id: string;
+  accession_number: string;
+  accession_sort: string;
+  title: string | null;
+  /** Raw values of the group factors, g0 and g1 (text, number or a location id). */
+  g0: string | number | null;
+  g1: string | number | null;
+  /** Raw values of the Cox factors, in the query's order. */
+  x: (string | number | null)[] | null;
+  de_per_year: number | null;
+  density_loss_per_year: number | null;
+  /** Years from the origin to the event or the last observation; null when the print does not count for survival. */
+  time: number | null;
+  event: boolean | null;
+  terms: string[] | null;
+  has_report: boolean;
+  computed_at: Date | null;
+}
+
+export interface CohortSql { text: string; values: unknown[] }
+
+/**
+ * The statement for a query. `threshold` is the ΔE00 for the fading event (the query's or the
+ * settings'). `extra` adds SQL conditions of the caller's own (with their binds), none from the request.
+ */
+export function buildCohortSql(q: CohortQuery, threshold: number): CohortSql {
+  const values: unknown[] = [];
+  const bind = (v: unknown, cast: string) => { values.push(v); return `$${values.length}::${cast}`; };
+  const needs = new Set<Need>(['outcomes']);
+  const used = [...q.filters.map((f) => f.factor), ...q.groupBy, ...q.coxFactors];
+  for (const code of used) for (const n of FACTOR_SQL[code].needs) needs.add(n);
+
+  const ctes: string[] = [];
+  const where: string[] = [];
+  for (const [i, f] of q.filters.entries()) {
+    const kind = COHORT_FACTORS[f.factor].kind;
+    const e = FACTOR_SQL[f.factor].expr;
+    if (f.factor === 'tonerClass') where.push(`p.toner_classes && ${bind(f.values, 'text[]')}`);
+    else if (kind === 'choice' || kind === 'text' || kind === 'flag') where.push(`${e} = ANY (${bind(f.values, 'text[]')})`);
+    else if (kind === 'number') {
+      if (f.min !== undefined) where.push(`${e} >= ${bind(f.min, 'float8')}`);
+      if (f.max !== undefined) where.push(`${e} <= ${bind(f.max, 'float8')}`);
+    } else if (kind === 'place') {
+      ctes.push(`sub${i} AS (SELECT id FROM locations WHERE id = ${bind(f.locationId, 'uuid')} UNION ALL SELECT l.id FROM locations l JOIN sub${i} ON l.parent_id = sub${i}.id)`);
+      where.push(`p.location_id IN (SELECT id FROM sub${i})`);
+    } else if (kind === 'year') {
+      where.push('p.date_earliest IS NOT NULL');
+      if (f.fromYear !== undefined) where.push(`extract(year FROM coalesce(p.date_latest, p.date_earliest)) >= ${bind(f.fromYear, 'int')}`);
+      if (f.toYear !== undefined) where.push(`extract(year FROM p.date_earliest) <= ${bind(f.toYear, 'int')}`);
+    }
+  }
+
+  const tonerGroup = q.groupBy.includes('tonerClass');
+  const groupExpr = (code: CohortFactorCode | undefined) => (!code ? 'NULL' : code === 'tonerClass' ? 'tc.v' : FACTOR_SQL[code].expr);
+
+  const origin = q.origin === 'made' ? 'p.date_earliest' : 'o.first_exam_on';
+  let eventOn: string;
+  let censorOn: string;
+  if (q.event.kind === 'fading') {
+    eventOn = `(SELECT min(u.d) FROM unnest(o.de_dates, o.de_values) AS u(d, v) WHERE u.v >= ${bind(threshold, 'float8')})`;
+    censorOn = 'o.last_measured_on';
+  } else if (q.event.kind === 'observation') {
+    eventOn = `(o.term_first ->> ${bind(q.event.term, 'text')})::date`;
+    censorOn = 'o.last_report_on';
+  } else {
+    eventOn = GRADE_COLUMN[q.event.grade!];
+    censorOn = 'o.last_report_on';
+  }
+  const cox = q.coxFactors.length ? `ARRAY[${q.coxFactors.map((c) => `(${FACTOR_SQL[c].expr})::text`).join(', ')}]` : 'NULL::text[]';
+
+  const joins = (['paper', 'enclosure', 'outcomes', 'steps'] as Need[]).filter((n) => needs.has(n)).map((n) => JOINS[n]).join('\n');
+  const text = `${ctes.length ? `WITH RECURSIVE ${ctes.join(', ')}\n` : ''}SELECT id, accession_number, accession_sort, title, g0, g1, x, de_per_year, density_loss_per_year,
+       CASE WHEN origin_on IS NOT NULL AND end_on > origin_on THEN ((end_on - origin_on) / 365.25)::float8 END AS time,
+       CASE WHEN origin_on IS NOT NULL AND end_on > origin_on THEN event_on IS NOT NULL END AS event,
+       terms, has_report, computed_at
+  FROM (SELECT p.id, p.accession_number, p.accession_sort, p.title,
+               (${groupExpr(q.groupBy[0])})::text AS g0, (${groupExpr(q.groupBy[1])})::text AS g1, ${cox} AS x,
+               o.de_per_year, o.density_loss_per_year,
+               ${origin} AS origin_on, coalesce(ev.on_, ${censorOn}) AS end_on, ev.on_ AS event_on,
+               ARRAY(SELECT jsonb_object_keys(coalesce(o.term_first, '{}'))) AS terms, o.last_report_on IS NOT NULL AS has_report, o.computed_at
+          FROM prints p
+          ${joins}
+          ${tonerGroup ? "CROSS JOIN LATERAL unnest(CASE WHEN cardinality(p.toner_classes) = 0 THEN ARRAY[NULL::text] ELSE p.toner_classes END) AS tc(v)" : ''}
+          LEFT JOIN LATERAL (SELECT ${eventOn} AS on_) ev ON true
+         ${where.length ? `WHERE ${where.join('\n           AND ')}` : ''}) c
+ ORDER BY accession_sort, id`;
+  return { text, values };
+}
