@@ -9,8 +9,8 @@ const jStat = jStatModule as { chisquare: { cdf(x: number, df: number): number }
 // from Freireich et al. (1963), as tabulated in D. R. Cox & D. Oakes, Analysis of Survival Data (1984),
 // p. 7 [published; via /work/shared/REFERENCES.md §2]. A negative number here means censored (“+”).
 const parse = (xs: number[]): SurvivalObs[] => xs.map((x) => ({ time: Math.abs(x), event: x > 0 }));
-export const SIX_MP = parse([6, 6, 6, -6, 7, -9, 10, -10, -11, 13, 16, -17, -19, -20, 22, 23, -25, -32, -32, -34, -35]);
-export const PLACEBO = parse([1, 1, 2, 2, 3, 4, 4, 5, 5, 8, 8, 8, 8, 11, 11, 12, 12, 15, 17, 22, 23]);
+const SIX_MP = parse([6, 6, 6, -6, 7, -9, 10, -10, -11, 13, 16, -17, -19, -20, 22, 23, -25, -32, -32, -34, -35]);
+const PLACEBO = parse([1, 1, 2, 2, 3, 4, 4, 5, 5, 8, 8, 8, 8, 11, 11, 12, 12, 15, 17, 22, 23]);
 
 describe('kaplanMeier on the 6-MP remission data', () => {
   it('gives the product-limit estimates and Greenwood SEs of the table', () => {
@@ -160,7 +160,13 @@ describe('edge cases', () => {
     expect(km.steps.every((s) => s.s === 1 && s.se === 0)).toBe(true);
     expect(km.steps[0]).toMatchObject({ lower: null, upper: null }); // log-log undefined at S = 1
     expect(kaplanMeier(obs, { ci: 'plain' }).steps[0]).toMatchObject({ lower: 1, upper: 1 });
-    expect(logRank([obs, PLACEBO])).toMatchObject({ chi2: expect.any(Number), df: 1 });
+    // Against the placebo group it still counts while at risk: E = 2·4/25 + 2·3/22 + 1/18 + 2/17 + 2/15
+    // = 0.8993 at t = 1, 2, 3, 4, 5 (none of it at risk from t = 8) [computed by hand].
+    const r = logRank([obs, PLACEBO]);
+    expect(r.observed).toEqual([0, 21]);
+    expect(r.expected[0]).toBeCloseTo(0.8993, 4);
+    expect(r.df).toBe(1);
+    expect(r.chi2).toBeGreaterThan(0);
   });
 
   it('one group empty: it is left out of the test', () => {
