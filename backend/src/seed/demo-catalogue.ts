@@ -654,6 +654,37 @@ function planPrints(r: Rng, ids: Ids, target: number): PlannedPrint[] {
   return out;
 }
 
+/**
+ * Nearly half of the plainly iron-blue-toned prints get a borax after-bath too (the printers who
+ * liked a slate-grey blue), so the research screens have a group with and a group without an
+ * alkaline after-bath large enough to compare. A generator of its own, keyed by accession number,
+ * decides: the draws of the plan above stay as they were, so the rest of the demo is unchanged.
+ */
+function withBoraxAfterBaths(planned: PlannedPrint[], ids: Ids): PlannedPrint[] {
+  for (const p of planned) {
+    const toning = p.steps.findIndex((s) => s.type === 'toning' && s.tonerClass === 'iron_blue');
+    if (toning < 0 || p.steps.some((s) => s.type === 'after_bath') || p.steps.filter((s) => s.type === 'toning').length > 1) continue;
+    const r = prng(hashOf(`borax:${p.input.accessionNumber}`));
+    if (!r.chance(0.45)) continue;
+    p.steps.splice(
+      toning + 1, 0,
+      processStepInputSchema.parse({ type: 'washing', agent: 'Running water', timeSeconds: r.int(60, 180), temperatureC: 20 }),
+      processStepInputSchema.parse({
+        type: 'after_bath', agent: 'Dilute borax bath', recipeId: ids.recipes.get('borax')!, concentration: '0.5 %', timeSeconds: r.int(10, 45), temperatureC: 20, alkaline: true,
+        notes: r.pick(['To shift the blue toward slate grey.', 'A quick dip to cool the blue.', 'Borax until the blue went grey-violet.']),
+      }),
+    );
+  }
+  return planned;
+}
+
+/** A 32-bit FNV-1a hash of a text, to seed a generator. */
+function hashOf(text: string): number {
+  let h = 0x811c9dc5;
+  for (let i = 0; i < text.length; i++) h = Math.imul(h ^ text.charCodeAt(i), 0x01000193);
+  return h >>> 0;
+}
+
 // ── Writing it through the services ────────────────────────────────────────
 
 /**
@@ -721,7 +752,7 @@ export async function seedDemoCatalogue(actor: SeedActor, log: (m: string) => vo
   }
   log(`Demo catalogue: ${MAKERS.length} makers, ${PAPERS.length} papers, ${RECIPES.length} recipes, ${LOCATIONS.length} places, ${ENCLOSURES.length} enclosure types.`);
 
-  const planned = planPrints(r, ids, options.prints ?? 300);
+  const planned = withBoraxAfterBaths(planPrints(r, ids, options.prints ?? 300), ids);
   let done = 0;
   await inPool(planned, options.concurrency ?? 4, async (p) => {
     // A print an interrupted seed wrote is completed (its steps, its move), not written again.

@@ -83,6 +83,8 @@ export interface DemoPrint {
   madeYear: number;
   accessionYear: number;
   buffered: boolean | null;
+  /** An alkaline after-bath (borax) is recorded in the process history. */
+  alkalineAfterBath: boolean;
   enclosureName: string | null;
   warmPaper: boolean;
   imageWidthMm: number;
@@ -102,6 +104,7 @@ interface PrintRow {
   partialToning: boolean;
   madeYear: number | null;
   buffered: boolean | null;
+  alkalineAfterBath: boolean;
   enclosureName: string | null;
   paperTint: string | null;
   imageWidthMm: number | null;
@@ -120,7 +123,8 @@ export async function loadDemoPrints(): Promise<DemoPrint[]> {
             p.image_width_mm::float8 AS "imageWidthMm", p.image_height_mm::float8 AS "imageHeightMm",
             p.sheet_width_mm::float8 AS "sheetWidthMm", p.sheet_height_mm::float8 AS "sheetHeightMm",
             EXISTS (SELECT 1 FROM process_steps s WHERE s.print_id = p.id AND s.type = 'toning')
-              AND NOT EXISTS (SELECT 1 FROM process_steps s WHERE s.print_id = p.id AND s.type = 'toning' AND s.extent = 'full') AS "partialToning"
+              AND NOT EXISTS (SELECT 1 FROM process_steps s WHERE s.print_id = p.id AND s.type = 'toning' AND s.extent = 'full') AS "partialToning",
+            EXISTS (SELECT 1 FROM process_steps s WHERE s.print_id = p.id AND s.type = 'after_bath' AND s.alkaline) AS "alkalineAfterBath"
        FROM prints p
        LEFT JOIN enclosure_types e ON e.id = p.enclosure_id
        LEFT JOIN papers pa ON pa.id = p.paper_id
@@ -136,7 +140,7 @@ export async function loadDemoPrints(): Promise<DemoPrint[]> {
       id: p.id, accessionNumber: p.accessionNumber, title: p.title, process: p.process, support: p.support,
       tonerClasses: p.tonerClasses ?? [], partialToning: p.partialToning,
       madeYear: Math.min(accessionYear, p.madeYear ?? accessionYear - 5), accessionYear,
-      buffered: p.buffered, enclosureName: p.enclosureName,
+      buffered: p.buffered, alkalineAfterBath: p.alkalineAfterBath, enclosureName: p.enclosureName,
       warmPaper: /warm|cream|ivory|natural/i.test(p.paperTint ?? ''),
       imageWidthMm: iw, imageHeightMm: ih,
       sheetWidthMm: Math.max(iw, p.sheetWidthMm ?? iw), sheetHeightMm: Math.max(ih, p.sheetHeightMm ?? ih),
@@ -166,8 +170,12 @@ export interface Story {
   housedYear: number;
   /** Fading already present when it came in (0–1 of the way to fully faded). */
   initialFade: number;
-  /** Fading per year once housed (0–1 scale). */
+  /** Fading per year once housed (0–1 scale); for iron blue, the rate at the start of a curve that slows. */
   fadeRate: number;
+  /** Iron blue: the fading the curve levels off at (it slows as it nears it); null for a steady rate. */
+  fadeLimit: number | null;
+  /** Iron blue: a display that faded the print at `at` (decimal year) by `dip`, most of which came back in the dark. */
+  display: { at: number; dip: number } | null;
   /** When silver mirroring starts at the edges, if it does. */
   mirroringOnset: number | null;
   /** Relative weight of the mirroring on each edge: top, right, bottom, left (strongest at the dark foreground). */
@@ -195,47 +203,92 @@ export function storyOf(p: DemoPrint): Story {
   const kind = kindOf(p);
   const toner = tonerOf(p);
   const story: Story = {
-    print: p, toner, kind, housedYear: p.accessionYear, initialFade: 0, fadeRate: 0, mirroringOnset: null,
+    print: p, toner, kind, housedYear: p.accessionYear, initialFade: 0, fadeRate: 0, fadeLimit: null, display: null, mirroringOnset: null,
     mirroringEdges: [0.2 + r.next() * 0.4, 0.4 + r.next() * 0.5, 1, 0.4 + r.next() * 0.5], mirroringYears: 30 + r.int(0, 20), yellowingRate: 0,
   };
+  // The rates are drawn from a generator of their own, so the other draws of a story stay as they were.
+  const f = rngFor(p.accessionNumber, 'fading');
+  const spread = Math.exp(0.35 * gauss(f));
+  // An alkaline after-bath (borax) leaves the blue less stable: the demo's invented factor.
+  const borax = toner === 'iron_blue' && p.alkalineAfterBath ? BORAX_FACTOR : 1;
   switch (kind) {
     case 'blue_buffered':
       // Buffered folders became the store standard in the 1990s; prints that came later went straight into them.
       story.housedYear = Math.max(p.accessionYear, 1989 + r.int(0, 6));
       story.initialFade = r.next() * 0.03;
-      story.fadeRate = 0.008 + r.next() * 0.01;
+      story.fadeRate = (0.008 + r.next() * 0.01) * spread * borax;
       break;
     case 'blue_unbuffered':
       story.initialFade = r.next() * 0.02;
-      story.fadeRate = 0.0018 + r.next() * 0.0022;
+      story.fadeRate = (0.0035 + r.next() * 0.003) * spread * borax;
       break;
     case 'sulfide':
-      story.fadeRate = 0.0004 + r.next() * 0.0004;
+      r.next(); // the draw of an earlier, slower rate, kept so the draws after it stay as they were
+      story.fadeRate = 0.006 * spread;
       break;
     case 'other':
-      story.fadeRate = toner === 'copper' ? 0.0015 + r.next() * 0.001 : 0;
+      story.fadeRate = toner === 'copper' ? 0.0015 + r.next() * 0.001 : (STEADY_RATE[toner] ?? 0) * spread;
       break;
     case 'mirroring':
       story.mirroringOnset = Math.max(p.accessionYear + 2, 1986 + r.int(0, 14));
+      story.fadeRate = STEADY_RATE.untoned! * spread;
       break;
     case 'rc_untoned':
       story.yellowingRate = 0.004 + r.next() * 0.003;
+      story.fadeRate = STEADY_RATE.untoned! * 1.4 * spread;
+      break;
+    case 'selenium_fibre':
+      story.fadeRate = STEADY_RATE.selenium! * spread;
       break;
     default:
       break;
   }
   if (p.support === 'resin_coated' && kind !== 'rc_untoned') story.yellowingRate = 0.002 + r.next() * 0.002;
+  if (toner === 'iron_blue') {
+    story.fadeLimit = 0.3 + f.next() * 0.25;
+    // Some were shown in the light for a season and faded, then won most of it back in the dark.
+    const at = Math.max(p.accessionYear + 2, 1995) + f.int(0, 22) + f.next();
+    if (f.chance(0.35) && at < 2025.5) story.display = { at, dip: 0.03 + f.next() * 0.04 };
+  }
   return story;
+}
+
+/** A roughly normal draw with mean 0 and standard deviation 1 (the sum of three uniform draws). */
+function gauss(r: Rng): number {
+  return (r.next() + r.next() + r.next() - 1.5) / 0.5;
+}
+
+/**
+ * How much faster iron blue fades after an alkaline (borax) after-bath. Invented for the demo, like
+ * every rate here: plausible in direction (Prussian blue is decomposed by alkali, common practice
+ * keeps iron-blue prints away from alkaline baths and buffered board), not a measured figure.
+ */
+export const BORAX_FACTOR = 3;
+
+/** Steady fading per year (0–1 scale) of the toners that fade slowly and evenly, before each print's own spread. Invented. */
+const STEADY_RATE: Partial<Record<Toner, number>> = { untoned: 0.0026, selenium: 0.0007, gold: 0.0012 };
+
+/** Iron blue slows as it nears its limit: f(τ) = limit · (1 − exp(−rate · τ / limit)), which starts at `rate` per year. */
+function saturating(s: Story, years: number): number {
+  if (s.fadeLimit === null) return years * s.fadeRate;
+  return s.fadeLimit * (1 - Math.exp((-s.fadeRate * years) / s.fadeLimit));
+}
+
+/** A display's fading at t: the whole dip at once, then 60 % of it back in the dark over a year or two. */
+function displayFadeAt(s: Story, t: number): number {
+  if (!s.display || t < s.display.at) return 0;
+  return s.display.dip * (0.4 + 0.6 * Math.exp(-(t - s.display.at) / 0.8));
 }
 
 /** How far the image has faded at decimal year t: 0 as made, 1 all but gone. */
 export function fadeAt(s: Story, t: number): number {
   const since = (y: number) => Math.max(0, t - y);
   if (s.kind === 'blue_buffered') {
-    const before = Math.max(0, Math.min(t, s.housedYear) - s.print.accessionYear) * 0.002;
-    return clamp(s.initialFade + before + since(s.housedYear) * s.fadeRate, 0, 0.9);
+    // Before the buffered housing the print faded at 0.002 a year: as many years of the housed rate as give the same.
+    const before = (Math.max(0, Math.min(t, s.housedYear) - s.print.accessionYear) * 0.002) / s.fadeRate;
+    return clamp(s.initialFade + saturating(s, before + since(s.housedYear)) + displayFadeAt(s, t), 0, 0.9);
   }
-  return clamp(s.initialFade + since(s.print.accessionYear) * s.fadeRate, 0, 0.9);
+  return clamp(s.initialFade + saturating(s, since(s.print.accessionYear)) + displayFadeAt(s, t), 0, 0.9);
 }
 
 /** Silver mirroring at the edges: 0 none, 1 heavy. */
@@ -270,6 +323,10 @@ const FADED: Partial<Record<Toner, Tone>> = {
   iron_blue: { paper: [93, -0.6, 2.5], mid: [72, -4.5, -4], dmax: [47, -5, -9] },
   sulfide: { paper: [90, 1.5, 12], mid: [64, 7, 20], dmax: [33, 7, 13] },
   copper: { paper: [92, 1.5, 6], mid: [63, 10, 17], dmax: [39, 12, 14] },
+  // Silver images lose density and warm slightly as they age (slowly: see STEADY_RATE).
+  untoned: { paper: [93.5, 0.3, 5], mid: [60, 1.2, 5], dmax: [30, 1.5, 8] },
+  selenium: { paper: [93, 0.5, 5], mid: [58, 3, 4], dmax: [28, 2.5, 5] },
+  gold: { paper: [93, 0.2, 3.5], mid: [58, 0, -1], dmax: [28, 0.8, 0] },
 };
 
 const mix = (a: Lab3, b: Lab3, t: number): Lab3 => [lerp(a[0], b[0], t), lerp(a[1], b[1], t), lerp(a[2], b[2], t)];

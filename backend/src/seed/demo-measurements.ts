@@ -7,12 +7,15 @@ import {
 import { inPool } from './pool';
 
 /**
- * Colour and density measurements of about 60 demo prints, from the early 1990s to now: two or
- * three registered spots per print, a session every two to six years, two or three readings per
- * spot. The readings follow the same ageing model as the condition reports and photographs
- * (demo-condition.ts), with instrument noise on top: iron blue in buffered board loses its blue
- * at a few tenths of a ΔE00 a year, selenium on fibre holds within the noise, sulfide barely
- * moves, and brightened RC paper yellows a little at the margin.
+ * Colour and density measurements of about 190 demo prints (most of the gelatin silver prints),
+ * from the early 1990s to now: two or three registered spots per print, a session every two to six
+ * years, two or three readings per spot. Some prints were first measured only recently, so their
+ * histories are short (censored in a survival analysis). The readings follow the same ageing model
+ * as the condition reports and photographs (demo-condition.ts), with noise on top: a session's own
+ * offset (placement, instrument warm-up) of about 0.2–0.3 ΔE00 and reading noise within it. Iron
+ * blue fades fastest at first and slows (faster still after a borax after-bath), sulfide and
+ * untoned silver slowly and steadily, selenium slowest; an iron-blue print that went on display
+ * is measured on its return and a year later, when most of the loss has come back in the dark.
  *
  * Two deliberate cases: one print has a session in the middle measured under D65/10° (stored,
  * and shown as not comparable), and one has its baseline moved by the conservator to a later
@@ -65,29 +68,46 @@ interface PlannedSession {
   offset: Lab3;
 }
 
-/** About 60 prints: the 40 with condition histories, then more iron blue, then a mix. */
-function chooseMeasuredPrints(all: Story[], withHistories: Story[], target = 60): Story[] {
-  const chosen = new Set(withHistories.map((s) => s.print.id));
-  const out = [...withHistories];
-  const rest = all.filter((s) => !chosen.has(s.print.id) && s.print.accessionYear <= 2016).sort((a, b) => a.print.accessionYear - b.print.accessionYear);
-  const blue = rest.filter((s) => s.toner === 'iron_blue');
-  for (const s of blue.slice(0, 10)) {
-    out.push(s);
-    chosen.add(s.print.id);
-  }
-  // Then one of each other kind in turn, earliest first.
-  const queues = new Map<string, Story[]>();
-  for (const s of rest) if (!chosen.has(s.print.id)) queues.set(s.kind, [...(queues.get(s.kind) ?? []), s]);
-  while (out.length < target && [...queues.values()].some((q) => q.length)) {
-    for (const q of queues.values()) if (q.length && out.length < target) out.push(q.shift()!);
-  }
-  return out;
+/**
+ * The share of each group that is measured: nearly every print of the groups a study compares
+ * (iron blue with and without a borax after-bath, resin-coated paper, sulfide, untoned), fewer
+ * of the many selenium prints; some iron-blue prints stay unmeasured (the demo's touring loans take them).
+ */
+function measuredShare(s: Story): number {
+  if (s.toner === 'iron_blue') return s.print.alkalineAfterBath ? 0.95 : 0.85;
+  if (s.print.support === 'resin_coated') return 0.85;
+  if (s.toner === 'sulfide') return 0.8;
+  if (s.toner === 'untoned') return 0.6;
+  if (s.toner === 'selenium') return 0.45;
+  return 0.4;
 }
 
-function planSessions(s: Story, today: string): PlannedSession[] {
+/** The prints with condition histories, then a share of each group (a draw per print), accessioned in time for two sessions. */
+function chooseMeasuredPrints(all: Story[], withHistories: Story[]): Story[] {
+  const chosen = new Set(withHistories.map((s) => s.print.id));
+  const rest = all.filter((s) => !chosen.has(s.print.id) && s.print.accessionYear <= 2024 && rngFor(s.print.accessionNumber, 'measured').chance(measuredShare(s)));
+  return [...withHistories, ...rest];
+}
+
+const dateOf = (t: number) => {
+  const year = Math.floor(t);
+  const month = Math.min(12, 1 + Math.floor((t - year) * 12));
+  const day = Math.min(28, 1 + Math.floor(((t - year) * 12 - (month - 1)) * 28));
+  return `${year}-${pad2(month)}-${pad2(day)}`;
+};
+
+function planSessions(s: Story, today: string, withHistory: boolean): PlannedSession[] {
   const r = rngFor(s.print.accessionNumber, 'sessions');
   const sessions: PlannedSession[] = [];
   let year = Math.max(1992, s.print.accessionYear) + r.int(0, 1);
+  // About one print in six was first measured only in the last decade (a short, censored history).
+  const late = rngFor(s.print.accessionNumber, 'late');
+  const lateStart = !withHistory && late.chance(0.17);
+  if (lateStart) year = Math.max(year, 2014 + late.int(0, 9));
+  // An iron-blue print back from display is measured on its return and again after a year in the dark.
+  const extra = s.display && s.display.at > year
+    ? [{ t: s.display.at + 0.08, note: 'Measured on return from display, before it went back into store.' }, { t: s.display.at + 1.1, note: 'Measured again after a year in the dark, to see how much of the blue had come back.' }]
+    : [];
   while (year <= 2026) {
     const month = year === 2026 ? r.int(1, 10) : r.int(1, 12);
     const day = r.int(1, 28);
@@ -108,9 +128,23 @@ function planSessions(s: Story, today: string): PlannedSession[] {
       },
       offset: era.offset,
     });
-    year += r.int(2, 6);
+    // Recent acquisitions are measured more often at first (a baseline and then every year or three).
+    year += s.print.accessionYear >= 2008 && !lateStart ? r.int(1, 3) : r.int(2, 6);
   }
-  return sessions;
+  for (const e of extra) {
+    const date = dateOf(e.t);
+    if (date > today || sessions.some((x) => x.date.slice(0, 7) === date.slice(0, 7))) continue;
+    const era = INSTRUMENTS.find((i) => Math.floor(e.t) <= i.until)!;
+    sessions.push({
+      date, t: e.t,
+      input: {
+        measuredOn: date, instrument: era.instrument, serial: era.serial, illuminant: 'D50', observer: '2', geometry: '45/0',
+        condition: era.condition, aperture: era.aperture, backing: 'White backing tile', notes: e.note,
+      },
+      offset: era.offset,
+    });
+  }
+  return sessions.sort((a, b) => a.t - b.t);
 }
 
 export interface DemoMeasurementResult {
@@ -120,7 +154,7 @@ export interface DemoMeasurementResult {
   readings: number;
 }
 
-/** Records spots and sessions for about 60 prints; spots are placed on the latest recto photograph when there is one. */
+/** Records spots and sessions for about 190 prints; spots are placed on the latest recto photograph when there is one. */
 export async function seedDemoMeasurements(
   actor: Actor, log: (m: string) => void, options: { concurrency?: number; signal?: AbortSignal } = {},
 ): Promise<DemoMeasurementResult> {
@@ -130,8 +164,10 @@ export async function seedDemoMeasurements(
   const today = seedToday();
   const prints = await loadDemoPrints();
   const all = prints.map(storyOf);
-  const measured = chooseMeasuredPrints(all, chooseConditionPrints(prints));
-  const planned = measured.map((s) => ({ story: s, sessions: planSessions(s, today) })).filter((x) => x.sessions.length >= 2);
+  const withHistories = chooseConditionPrints(prints);
+  const histories = new Set(withHistories.map((s) => s.print.id));
+  const measured = chooseMeasuredPrints(all, withHistories);
+  const planned = measured.map((s) => ({ story: s, sessions: planSessions(s, today, histories.has(s.print.id)) })).filter((x) => x.sessions.length >= 2);
 
   // One print measured once under D65/10° in the middle of its history; one whose baseline is moved.
   const d65 = planned.find((x) => x.story.kind === 'blue_buffered' && x.sessions.length >= 5);
@@ -185,15 +221,16 @@ export async function seedDemoMeasurements(
     }
     const recorded: string[] = [];
     for (const session of plan) {
-      const drift: Lab3 = [noise(r.next, 0.08), noise(r.next, 0.06), noise(r.next, 0.06)];
+      // The session's own offset (placement on the spot, instrument warm-up): about 0.2–0.3 ΔE00.
+      const drift: Lab3 = [noise(r.next, 0.3), noise(r.next, 0.2), noise(r.next, 0.25)];
       const spotReadings = made.map((spot) => {
         const truth = labAt(s, spot.purpose, session.t);
         const centre: Lab3 = [0, 1, 2].map((k) => truth[k] + session.offset[k] + drift[k]) as Lab3;
         const n = r.int(2, 3);
         const labs = Array.from({ length: n }, () => ({
-          L: round(Math.min(100, Math.max(0, centre[0] + noise(r.next, 0.1)))),
-          a: round(centre[1] + noise(r.next, 0.08)),
-          b: round(centre[2] + noise(r.next, 0.08)),
+          L: round(Math.min(100, Math.max(0, centre[0] + noise(r.next, 0.12)))),
+          a: round(centre[1] + noise(r.next, 0.1)),
+          b: round(centre[2] + noise(r.next, 0.1)),
         }));
         readings += n;
         return {

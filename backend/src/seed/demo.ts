@@ -151,7 +151,7 @@ async function seedHistoriesIfEmpty(sequelize: Sequelize, store: ObjectStore | n
       }
     }
     if (measurements) {
-      log(begun.measurements === 'started' ? 'Carrying on with the demo measurement histories an earlier start began…' : 'Seeding demo measurement histories (about 60 prints)…');
+      log(begun.measurements === 'started' ? 'Carrying on with the demo measurement histories an earlier start began…' : 'Seeding demo measurement histories (about 190 prints)…');
       await mark('measurements', 'started');
       await seedDemoMeasurements(actor, log, { signal });
       await mark('measurements', 'done');
