@@ -1,5 +1,5 @@
 /**
- * npm run bench [-- --runs 50 --warmup 5] [--only "sorted, page 1"] [--no-images]; `--only climate`: the logger-file scenario alone (bench-climate.ts)
+ * npm run bench [-- --runs 50 --warmup 5] [--only "sorted, page 1"] [--no-images]; `--only climate`: the logger-file scenario alone (bench-climate.ts); `--only research`: the longevity-research scenarios alone (bench-research.ts)
  *
  * Measures the catalogue list at scale, on the toneledger_scale database that
  * `npm run seed:scale` fills (on the development PostgreSQL cluster; the demo database is not
@@ -52,7 +52,10 @@ const CLIMATE_ONLY = ONLY !== '' && CLIMATE_SCENARIO.includes(ONLY);
 /** The full recompute of every print's inspection date runs in its own process (scripts/bench-schedule.ts); `--only schedule` runs it alone. */
 const SCHEDULE_SCENARIO = 'schedule, full recompute';
 const SCHEDULE_ONLY = ONLY !== '' && SCHEDULE_SCENARIO.includes(ONLY);
-const IMAGES = !process.argv.includes('--no-images') && !CLIMATE_ONLY && !SCHEDULE_ONLY;
+/** The longevity-research scenarios run in their own process (scripts/bench-research.ts); `--only research` runs them alone. */
+const RESEARCH_SCENARIO = 'research, fading rates, survival with log-rank, Cox on five factors';
+const RESEARCH_ONLY = ONLY !== '' && RESEARCH_SCENARIO.includes(ONLY);
+const IMAGES = !process.argv.includes('--no-images') && !CLIMATE_ONLY && !SCHEDULE_ONLY && !RESEARCH_ONLY;
 
 interface Scenario {
   name: string;
@@ -94,7 +97,7 @@ let sqlPool: pg.Pool | null = null;
 let code = 0;
 
 try {
-  if (CLIMATE_ONLY || SCHEDULE_ONLY) throw Object.assign(new Error('list skipped'), { skip: true });
+  if (CLIMATE_ONLY || SCHEDULE_ONLY || RESEARCH_ONLY) throw Object.assign(new Error('list skipped'), { skip: true });
   if (!(await reachable(pgPort))) {
     cluster = await startPostgres({
       baseDir: path.resolve(ROOT, process.env.TONELEDGER_DATA_DIR ?? '.data', 'pg'), port: pgPort, database: 'postgres', log, fallbackKey: 'dev',
@@ -309,4 +312,6 @@ const climate = (ONLY && !CLIMATE_ONLY) || SCHEDULE_ONLY ? { status: 0 } : spawn
 if (climate.status !== 0 && code === 0) code = climate.status ?? 1;
 const schedule = ONLY && !SCHEDULE_ONLY ? { status: 0 } : spawnSync(path.join(ROOT, 'node_modules', '.bin', 'tsx'), [path.join(ROOT, 'scripts', 'bench-schedule.ts')], { stdio: 'inherit', cwd: ROOT });
 if (schedule.status !== 0 && code === 0) code = schedule.status ?? 1;
+const research = ONLY && !RESEARCH_ONLY ? { status: 0 } : spawnSync(path.join(ROOT, 'node_modules', '.bin', 'tsx'), [path.join(ROOT, 'scripts', 'bench-research.ts'), ...(ONLY ? ['--only', ONLY] : [])], { stdio: 'inherit', cwd: ROOT });
+if (research.status !== 0 && code === 0) code = research.status ?? 1;
 process.exit(code);

@@ -1,0 +1,99 @@
+/**
+ * The longevity-research scenarios of `npm run bench` ("research, …"), on the toneledger_scale
+ * database (`npm run seed:scale`), in process: the cohort service as a request runs it (statement,
+ * grouping and statistics), beside the bare statement (`buildCohortSql`'s text alone). First fills
+ * `print_outcomes` for prints without a row (as the workers do at start), batch by batch, and says
+ * how long that took. Medians of 5 runs after one warm-up. Run alone with `npm run bench -- --only research`.
+ *
+ * Targets: a grouped fading-rate query and a two-group survival curve with its log-rank test under
+ * 1 s each, a five-factor Cox model under 3 s.
+ */
+import path from 'node:path';
+import os from 'node:os';
+import { fileURLToPath } from 'node:url';
+import pg from 'pg';
+import { startPostgres, type LocalPostgres } from './postgres';
+import { startLocalServices } from './services';
+import type { CohortQueryIn } from '../common/src/schemas/research';
+
+const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const log = (m: string) => console.log(`[bench:research] ${m}`);
+const pgPort = Number(process.env.TONELEDGER_PG_PORT ?? 54329);
+const ONLY = process.argv.includes('--only') ? process.argv[process.argv.indexOf('--only') + 1] ?? '' : '';
+
+async function reachable(): Promise<boolean> {
+  const c = new pg.Client({ host: '127.0.0.1', port: pgPort, user: 'app', database: 'postgres', connectionTimeoutMillis: 1500 });
+  try { await c.connect(); await c.end(); return true; } catch { return false; }
+}
+
+const SCENARIOS: { name: string; query: CohortQueryIn; targetMs: number }[] = [
+  { name: 'research, fading rates by toner class', query: { groupBy: ['tonerClass'], event: { kind: 'fading' } }, targetMs: 1000 },
+  { name: 'research, survival toned vs untoned with log-rank', query: { groupBy: ['toned'], event: { kind: 'fading' } }, targetMs: 1000 },
+  { name: 'research, Cox on five factors', query: { event: { kind: 'fading' }, coxFactors: ['process', 'toned', 'alkalineAfterBath', 'toningMinutes', 'enclosureBuffered'] }, targetMs: 3000 },
+];
+
+const median = (xs: number[]) => { const s = [...xs].sort((a, b) => a - b); return s[Math.floor(s.length / 2)]!; };
+
+let cluster: LocalPostgres | null = null;
+const services = await startLocalServices('test', () => {});
+let code = 0;
+try {
+  if (!(await reachable())) {
+    cluster = await startPostgres({ baseDir: path.resolve(ROOT, process.env.TONELEDGER_DATA_DIR ?? '.data', 'pg'), port: pgPort, database: 'postgres', log, fallbackKey: 'dev' });
+  }
+  Object.assign(process.env, services.env, { DATABASE_URL: `postgres://app@127.0.0.1:${pgPort}/toneledger_scale`, LOG_LEVEL: 'warn' });
+  const { db } = await import('../backend/src/db');
+  const { migrateUp } = await import('../backend/src/migrate');
+  const { recomputeOutcomes } = await import('../backend/src/services/print-outcomes');
+  const { runCohort } = await import('../backend/src/services/cohort.service');
+  const { buildCohortSql } = await import('../backend/src/services/cohort-sql');
+  const { pgRows } = await import('../backend/src/services/print-list.service');
+  const { cohortQuerySchema } = await import('../common/src/schemas/research');
+  await migrateUp(db());
+  const [[{ n, have, measured }]] = (await db().query(
+    `SELECT (SELECT count(*) FROM prints)::int AS n, (SELECT count(*) FROM print_outcomes)::int AS have, (SELECT count(DISTINCT print_id) FROM spot_readings)::int AS measured`,
+  )) as unknown as [[{ n: number; have: number; measured: number }]];
+  if (n === 0) throw new Error('toneledger_scale is empty: npm run seed:scale -- --prints 200000');
+  log(`${n.toLocaleString('en-GB')} prints, ${measured.toLocaleString('en-GB')} measured, ${have.toLocaleString('en-GB')} with outcomes; load ${os.loadavg()[0]!.toFixed(1)}`);
+  if (have < n) {
+    const f0 = performance.now();
+    let done = 0;
+    for (;;) {
+      const [rows] = (await db().query(`SELECT p.id FROM prints p WHERE NOT EXISTS (SELECT 1 FROM print_outcomes o WHERE o.print_id = p.id) ORDER BY p.id LIMIT 5000`)) as unknown as [{ id: string }[]];
+      if (!rows.length) break;
+      await db().transaction((t) => recomputeOutcomes(rows.map((r) => r.id), t));
+      done += rows.length;
+    }
+    const s = (performance.now() - f0) / 1000;
+    log(`outcomes filled for ${done.toLocaleString('en-GB')} prints in ${s.toFixed(1)} s (${Math.round(done / s).toLocaleString('en-GB')} prints/s)`);
+  }
+  for (const sc of SCENARIOS) {
+    if (ONLY && !sc.name.includes(ONLY) && !'research'.includes(ONLY)) continue;
+    const q = cohortQuerySchema.parse(sc.query);
+    const sql = buildCohortSql(q, q.event.thresholdDeltaE ?? 1.6);
+    const api: number[] = [];
+    const bare: number[] = [];
+    let last: Awaited<ReturnType<typeof runCohort>> | null = null;
+    for (let i = 0; i < 6; i += 1) {
+      const a = performance.now();
+      last = await runCohort(q);
+      const b = performance.now();
+      await pgRows(sql.text, sql.values);
+      const c = performance.now();
+      if (i > 0) { api.push(b - a); bare.push(c - b); }
+    }
+    const m = median(api);
+    const detail = sc.query.coxFactors
+      ? `${last!.cox?.n ?? 0} prints, ${last!.cox?.events ?? 0} events, ${last!.cox?.terms.length ?? 0} terms`
+      : `${last!.total.toLocaleString('en-GB')} prints, ${last!.groups.length} groups${last!.survival.logRank ? `, log-rank χ² ${last!.survival.logRank.chi2.toFixed(1)}` : ''}`;
+    log(`${sc.name}: ${m.toFixed(0)} ms (bare SQL ${median(bare).toFixed(0)} ms; ${detail}); target < ${sc.targetMs} ms ${m < sc.targetMs ? 'met' : 'MISSED'}; load ${os.loadavg()[0]!.toFixed(1)}`);
+  }
+  await db().close();
+} catch (err) {
+  console.error(err instanceof Error ? err.stack ?? err.message : err);
+  code = 1;
+} finally {
+  await services.stop();
+  await cluster?.stop();
+}
+process.exit(code);
