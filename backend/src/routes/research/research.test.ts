@@ -3,7 +3,9 @@ import { kaplanMeier, logRank, type SurvivalObs } from '@toneledger/common/domai
 import { coxPH } from '@toneledger/common/domain/cox';
 import { testApp } from '../../../test/app';
 import { createLocation } from '../../../test/factories';
-import { settleSchedules } from '../../services/schedule-jobs';
+import { QueryTypes } from 'sequelize';
+import { db } from '../../db';
+import { processStale, settleSchedules } from '../../services/schedule-jobs';
 import { paths, researchClient } from './research-helpers';
 
 const t = testApp();
@@ -144,6 +146,24 @@ describe('cohort query', () => {
     const atRisk = await api('researcher').post('/api/research/cohort/prints', { query, which: 'at_risk', time: 3.5 });
     // Still observed 3.5 years after 2010-01-01: y4 (2014), n3, n4, n5.
     expect(atRisk.body.data.map((p: { printId: string }) => p.printId).sort()).toEqual([ids.y4, ids.n3, ids.n4, ids.n5].sort());
+  });
+});
+
+describe('the outcome table', () => {
+  const row = async (id: string) => (await db().query<{ term_first: Record<string, string>; last_report_on: string; de_values: number[] }>(
+    'SELECT term_first, last_report_on::text, de_values FROM print_outcomes WHERE print_id = $1', { bind: [id], type: QueryTypes.SELECT }))[0];
+
+  it('follows a newly signed report through the stale marks, and a print without a row gets one from its mark', async () => {
+    await signedReport(ids.n4!, '2017-01-01', 'poor', ['silver_mirroring']);
+    await settleSchedules();
+    const after = await row(ids.n4!);
+    expect(after!.term_first).toEqual({ silver_mirroring: '2017-01-01' });
+    expect(after!.last_report_on).toBe('2017-01-01');
+    await db().query('DELETE FROM print_outcomes WHERE print_id = $1', { bind: [ids.z1] });
+    await db().query('INSERT INTO schedule_stale (print_id) VALUES ($1) ON CONFLICT DO NOTHING', { bind: [ids.z1] });
+    await processStale();
+    // The fitted ΔE00 of the dmax spot: 0 at the baseline, then Sharma pair 1 (2.0425) twice.
+    expect((await row(ids.z1!))!.de_values.map((v) => Number(v.toFixed(4)))).toEqual([0, 2.0425, 2.0425]);
   });
 });
 
