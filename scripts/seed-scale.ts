@@ -2,8 +2,9 @@
  * npm run seed:scale -- --prints 200000 [--seed 1]
  *
  * Fills a separate database, toneledger_scale, on the development PostgreSQL cluster with an
- * invented catalogue of N prints and their process histories, for measuring the list API at
- * scale. It never touches the demo database (toneledger). Reference records are written from JS
+ * invented catalogue of N prints and their process histories, measurement histories (three spots,
+ * about ten sessions each) and signed condition reports, for measuring the list API and the research
+ * queries at scale. It never touches the demo database (toneledger). Reference records are written from JS
  * in one statement per table; prints and steps are generated in PostgreSQL with set-based
  * INSERT … SELECT over generate_series, with pseudo-random choices from a hash of the row number
  * (the same seed gives the same catalogue).
@@ -22,6 +23,7 @@ import { migrateUp } from '../backend/src/migrate';
 import { accessionSortKey, deriveDate, tonerClassesOf, warningsOf, type StepFacts } from '../backend/src/services/print-derive';
 import { prng } from '../backend/src/seed/demo-catalogue';
 import { categorySql } from '../backend/src/services/light-category-sql';
+import { seedScaleHistories } from './seed-scale-histories';
 import { DEFAULT_LIGHT_SETTINGS, categoryByRules } from '@toneledger/common/domain/light-rules';
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
@@ -607,6 +609,17 @@ try {
     }
   });
 
+  // ── Measurement histories and signed condition reports (seed-scale-histories.ts), by COPY ──
+  const histories = await timed('measurements and condition reports', () => count('spot_readings'), async () =>
+    seedScaleHistories(c, {
+      prints: PRINTS, seed: SEED, log,
+      profiles: profiles.map((p) => ({
+        tonerClasses: tonerClassesOf(facts(p.steps)), alkaline: p.steps.some((x) => x.type === 'after_bath' && x.alkaline === true), support: p.support, process: p.process,
+      })),
+    }));
+  log(`  ${histories.spots.toLocaleString('en-GB')} spots, ${histories.sessions.toLocaleString('en-GB')} sessions, ${histories.readings.toLocaleString('en-GB')} spot readings, ` +
+    `${histories.reports.toLocaleString('en-GB')} signed reports, ${histories.observations.toLocaleString('en-GB')} observations`);
+
   // ── Light categories: the statement the app runs when the light settings' rules change ──
   await timed('light categories (one UPDATE, default rules)', () => PRINTS, async () => {
     const bind: unknown[] = [];
@@ -650,9 +663,11 @@ try {
   });
 
   const summary = (await c.query(`SELECT (SELECT count(*) FROM prints) AS prints, (SELECT count(*) FROM process_steps) AS steps,
+      (SELECT count(*) FROM spot_readings) AS readings, (SELECT count(*) FROM condition_reports) AS reports,
       (SELECT count(*) FROM prints WHERE warning_codes <> '{}') AS with_warnings,
       pg_size_pretty(pg_database_size(current_database())) AS size`)).rows[0];
   log(`${DATABASE}: ${Number(summary.prints).toLocaleString('en-GB')} prints, ${Number(summary.steps).toLocaleString('en-GB')} steps, ` +
+    `${Number(summary.readings).toLocaleString('en-GB')} spot readings, ${Number(summary.reports).toLocaleString('en-GB')} condition reports, ` +
     `${Number(summary.with_warnings).toLocaleString('en-GB')} with warnings, ${summary.size}; total ${((performance.now() - started) / 1000).toFixed(1)} s.`);
   await c.end();
   log('Next: npm run bench');
