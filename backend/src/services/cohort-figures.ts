@@ -214,7 +214,7 @@ export function coxFigures(q: CohortQuery, rows: CohortRow[]): CohortResult['cox
       label: c.label, factor: c.factor, level: c.level, reference: c.reference,
       beta: num(fit.beta[k]!), se: num(fit.se[k]!), hazardRatio: num(fit.hazardRatio[k]!), lower: num(fit.lower[k]!), upper: num(fit.upper[k]!), p: num(fit.p[k]!),
     })),
-    likelihoodRatio: fit.lr,
+    likelihoodRatio: { chi2: num(fit.lr.chi2), df: fit.lr.df, p: Number.isFinite(fit.lr.p) ? fit.lr.p : 1 },
     proportionalHazards: cols.map((c, k) => {
       const ph = fit.ph[k];
       const rho = ph && Number.isFinite(ph.rho) ? ph.rho : null;

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import yauzl from 'yauzl';
+import type supertest from 'supertest';
 import { parse } from 'csv-parse/sync';
 import { COHORT_FACTOR_CODES } from '@toneledger/common/fields/cohort';
 import { testApp } from '../../../test/app';
@@ -57,7 +58,7 @@ function unzip(buf: Buffer): Promise<Map<string, string>> {
   });
 }
 
-const binary = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
+const binary = (res: supertest.Response, cb: (err: Error | null, body: Buffer) => void) => {
   const chunks: Buffer[] = [];
   res.on('data', (c: Buffer) => chunks.push(c));
   res.on('end', () => cb(null, Buffer.concat(chunks)));
