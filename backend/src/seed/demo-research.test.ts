@@ -1,5 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { Readable } from 'node:stream';
 import pg from 'pg';
+import type { ObjectStore } from '@toneledger/storage/object-store';
 
 /**
  * What the demo gives a longevity study: the catalogue and its measurement histories, seeded into a
@@ -77,12 +79,16 @@ beforeAll(async () => {
   await migrateUp(db.db());
   const { seedDemoIfEmpty } = await import('./demo');
   const started = performance.now();
-  // The users and catalogue, then the measurement histories, as the first start seeds them (no object store: no photographs).
+  // The users and catalogue, then the condition histories (photographs kept in memory) and the
+  // measurement histories, in the order the first start seeds them.
   const lines: string[] = [];
   await seedDemoIfEmpty(db.db(), { catalogue: true, histories: false, log: (l) => lines.push(l) });
   const { seedDemoMeasurements } = await import('./demo-measurements');
+  const { seedDemoCondition } = await import('./demo-condition');
   const [conservator] = await db.db().query<{ id: string; name: string }>("SELECT id, name FROM users WHERE role = 'conservator' LIMIT 1", { type: 'SELECT' as never });
-  await seedDemoMeasurements({ id: conservator.id, name: conservator.name }, (l) => lines.push(l));
+  const actor = { id: conservator.id, name: conservator.name };
+  await seedDemoCondition(memoryStore(), actor, (l) => lines.push(l));
+  await seedDemoMeasurements(actor, (l) => lines.push(l));
   seedSeconds = (performance.now() - started) / 1000;
   console.info(`${lines.filter((l) => l.startsWith('Demo')).join('\n')}\n[demo research] catalogue and measurements seeded in ${seedSeconds.toFixed(1)} s`);
   m = { db, measurements: await import('../services/measurement.service'), fading: await import('@toneledger/common/domain/fading') };
@@ -108,6 +114,29 @@ beforeAll(async () => {
     .map((g) => `${g}: ${of(g).length} measured, median ${median(rates(g)).toFixed(3)} ΔE00/yr`);
   console.info(`[demo research] ${measured.length} measured prints\n${summary.join('\n')}`);
 }, 300_000);
+
+/** An object store in memory: the demo photographs are written and read back, never kept. */
+function memoryStore(): ObjectStore {
+  const objects = new Map<string, { body: Buffer; contentType?: string }>();
+  const read = async (body: Buffer | Readable) => {
+    if (Buffer.isBuffer(body)) return body;
+    const parts: Buffer[] = [];
+    for await (const part of body) parts.push(Buffer.from(part));
+    return Buffer.concat(parts);
+  };
+  return {
+    bucket: 'memory',
+    put: async (key, body, options) => { objects.set(key, { body: await read(body), contentType: options?.contentType }); },
+    get: async (key) => {
+      const o = objects.get(key);
+      if (!o) throw Object.assign(new Error(`NoSuchKey: ${key}`), { name: 'NoSuchKey' });
+      return Readable.from([o.body]);
+    },
+    head: async (key) => { const o = objects.get(key); return o ? { size: o.body.length, contentType: o.contentType } : null; },
+    delete: async (key) => { objects.delete(key); },
+    ping: async () => {},
+  };
+}
 
 afterAll(async () => {
   await m?.db.closeDb();
@@ -176,6 +205,19 @@ describe('the demo as data for longevity research', () => {
       if (early.ok && late.ok && late.slopePerYear < early.slopePerYear) slower += 1;
     }
     expect(slower / long.length).toBeGreaterThan(0.6);
+  });
+
+  it('has signed condition reports recording fading and silver mirroring in some of the examined prints', async () => {
+    const terms = await rows<{ term: string; prints: number }>(
+      `SELECT o.term_code AS term, count(DISTINCT r.print_id)::int AS prints FROM observations o JOIN condition_reports r ON r.id = o.report_id
+        WHERE r.status = 'signed' GROUP BY o.term_code`,
+    );
+    const printsWith = (term: string) => terms.find((t) => t.term === term)?.prints ?? 0;
+    expect(printsWith('fading')).toBeGreaterThanOrEqual(5);
+    expect(printsWith('silver_mirroring')).toBeGreaterThanOrEqual(3);
+    const [{ reported }] = await rows<{ reported: number }>("SELECT count(DISTINCT print_id)::int AS reported FROM condition_reports WHERE status = 'signed'");
+    // Not every examined print shows something: incidence is a share, not all or nothing.
+    expect(printsWith('fading')).toBeLessThan(reported);
   });
 
   it('records a display\'s loss on return and most of it back after a year in the dark', async () => {
