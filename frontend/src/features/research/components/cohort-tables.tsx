@@ -1,3 +1,4 @@
+import { COHORT_FACTORS } from '@toneledger/common/fields/cohort';
 import type { CohortResult } from '@toneledger/common/schemas/research';
 import { FigureLink, type ShowPrints } from '@/features/research/components/figure-link';
 import { Words } from '@/features/research/components/survival-section';
@@ -28,6 +29,16 @@ export function GroupsTable({ result, onShow }: { result: CohortResult; onShow: 
   );
 }
 
+type CoxTerm = NonNullable<CohortResult['cox']>['terms'][number];
+
+/** A term in people's words from the factor table: "Alkaline after-bath: Yes (against No)", "Toning time (per min)". */
+export function termLabel(t: CoxTerm): string {
+  const f = COHORT_FACTORS[t.factor] as { label: string; unit?: string; choices?: { labels: Record<string, string> } };
+  const word = (v: string) => f.choices?.labels[v] ?? (['yes', 'no', 'unknown'].includes(v) ? v[0]!.toUpperCase() + v.slice(1) : v);
+  if (t.level === null) return f.unit ? `${f.label} (per ${f.unit})` : f.label;
+  return `${f.label}: ${word(t.level)}${t.reference !== null ? ` (against ${word(t.reference)})` : ''}`;
+}
+
 /** The Cox model: hazard ratio per term with its interval and p, the likelihood-ratio test, the proportional-hazards check, warnings. */
 export function CoxTable({ cox, onShow }: { cox: NonNullable<CohortResult['cox']>; onShow: ShowPrints }) {
   return (
@@ -43,7 +54,7 @@ export function CoxTable({ cox, onShow }: { cox: NonNullable<CohortResult['cox']
         <tbody>
           {cox.terms.map((t) => (
             <tr key={t.label} className="border-t border-paper-200">
-              <th scope="row" className="py-1 text-left font-normal">{t.label}</th>
+              <th scope="row" className="py-1 text-left font-normal">{termLabel(t)}</th>
               <td className="num text-right">{fixed(t.hazardRatio, 2)}</td>
               <td className="num text-right">{fixed(t.lower, 2)} – {fixed(t.upper, 2)}</td>
               <td className="num text-right">{formatP(t.p)}</td>
@@ -57,7 +68,7 @@ export function CoxTable({ cox, onShow }: { cox: NonNullable<CohortResult['cox']
         <ul className="list-disc pl-5 text-sm">
           {cox.proportionalHazards.map((ph) => (
             <li key={ph.label}>
-              {ph.label}: {ph.verdict}
+              {(() => { const term = cox.terms.find((t) => t.label === ph.label); return term ? termLabel(term) : ph.label; })()}: {ph.verdict}
               {ph.rho !== null && ph.p !== null ? <span className="num text-ink-600"> (ρ = {ph.rho.toFixed(2)}, {formatP(ph.p)})</span> : null}
             </li>
           ))}
