@@ -2,7 +2,11 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import yauzl from 'yauzl';
 import type supertest from 'supertest';
+import fs from 'node:fs/promises';
+import os from 'node:os';
+import path from 'node:path';
 import { parse } from 'csv-parse/sync';
+import { Package } from 'datapackage';
 import { COHORT_FACTOR_CODES } from '@toneledger/common/fields/cohort';
 import { testApp } from '../../../test/app';
 import { createLocation } from '../../../test/factories';
@@ -121,6 +125,25 @@ describe('export', () => {
       `SELECT after FROM audit_events WHERE action = 'research.exported' ORDER BY id DESC LIMIT 1`, { type: QueryTypes.SELECT });
     expect(audit[0]!.after.rows).toBe(4);
     expect(audit[0]!.after.query.groupBy).toEqual(['tonerClass']);
+  });
+
+  it('the Frictionless reference library (datapackage, offline) finds the descriptor valid and casts every CSV row by its Table Schema', async () => {
+    const res = await api('conservator').post('/api/research/cohort/export', query()).buffer(true).parse(binary);
+    expect(res.status).toBe(200);
+    const files = await unzip(res.body as Buffer);
+    const dir = await fs.mkdtemp(path.join(os.tmpdir(), 'toneledger-datapackage-'));
+    try {
+      for (const [name, text] of files) await fs.writeFile(path.join(dir, name), text);
+      const pkg = await Package.load(path.join(dir, 'datapackage.json'));
+      expect(pkg.errors.map((e) => e.message)).toEqual([]);
+      expect(pkg.valid).toBe(true);
+      for (const name of ['cohort', 'survival', 'fading']) {
+        const rows = await pkg.getResource(name)!.read({ keyed: true });
+        expect(rows.length, name).toBe(parse(files.get(`${name}.csv`)!).length - 1);
+      }
+    } finally {
+      await fs.rm(dir, { recursive: true, force: true });
+    }
   });
 
   it('admins export too; viewers and registrars get 403', async () => {
