@@ -70,7 +70,7 @@ try {
   for (const sc of SCENARIOS) {
     if (ONLY && !sc.name.includes(ONLY) && !'research'.includes(ONLY)) continue;
     const q = cohortQuerySchema.parse(sc.query);
-    const sql = buildCohortSql(q, q.event.thresholdDeltaE ?? 1.6);
+    const sql = buildCohortSql(q, q.event.thresholdDeltaE ?? 1.6, { aggregate: true });
     const api: number[] = [];
     const bare: number[] = [];
     let last: Awaited<ReturnType<typeof runCohort>> | null = null;

@@ -99,7 +99,7 @@ CSV files are UTF-8 with a header row. A text cell that a spreadsheet would run 
 export async function writeCohortPackage(q: CohortQuery, actor: { id: string; name: string | null }, requestId: string | null, out: Writable): Promise<number> {
   const figures = await runCohort(q);
   const everyFactor: CohortQuery = { ...q, coxFactors: [...COHORT_FACTOR_CODES] };
-  const { rows } = await loadCohort(everyFactor);
+  const { rows } = await loadCohort(everyFactor, { ordered: true });
   const created = new Date().toISOString();
   await db().transaction((t) => recordAudit({ actor, action: 'research.exported', entityType: 'research_query', entityId: null, after: { query: q, rows: rows.length }, requestId }, t));
 

@@ -36,7 +36,9 @@ export function makeGrouping(q: CohortQuery, rows: CohortRow[], places: Map<stri
   const medians = new Map<string, number | null>();
   for (const [i, code] of q.groupBy.entries()) {
     if (COHORT_FACTORS[code].kind !== 'number' || q.bands?.[code]) continue;
-    const vals = rows.flatMap((r) => { const v = i === 0 ? r.g0 : r.g1; return v === null ? [] : [Number(v)]; });
+    // Each row stands for `weight` prints.
+    const vals: number[] = [];
+    for (const r of rows) { const v = i === 0 ? r.g0 : r.g1; if (v !== null) for (let k = 0; k < r.weight; k += 1) vals.push(Number(v)); }
     medians.set(code, describe(vals).median);
   }
   return {
@@ -72,15 +74,22 @@ function bandOrder(label: string): number {
   return m ? Number(m[0]) : Infinity;
 }
 
+/** Gives each row its group key, values and label (in place: a cohort may hold 200,000 rows). */
 export function groupRows(q: CohortQuery, rows: CohortRow[], grouping: Grouping): GroupedRow[] {
-  return rows.map((r) => {
-    const values: Record<string, string | null> = {};
-    for (const [i, code] of q.groupBy.entries()) values[code] = grouping.valueOf(code, i === 0 ? r.g0 : r.g1);
-    const parts = q.groupBy.map((c) => values[c] ?? 'none');
-    const key = q.groupBy.length ? q.groupBy.map((c, i) => `${c}=${parts[i]}`).join('|') : 'all';
-    const label = q.groupBy.length ? q.groupBy.map((c, i) => labelOf(c, parts[i]!)).join(' · ') : 'All prints';
-    return { ...r, key, values, label };
-  });
+  const labels = new Map<string, { values: Record<string, string | null>; label: string }>();
+  const out = rows as GroupedRow[];
+  for (const r of out) {
+    if (!q.groupBy.length) { r.key = 'all'; r.values = {}; r.label = 'All prints'; continue; }
+    const parts = q.groupBy.map((code, i) => grouping.valueOf(code, i === 0 ? r.g0 : r.g1));
+    const key = q.groupBy.map((c, i) => `${c}=${parts[i] ?? 'none'}`).join('|');
+    let seen = labels.get(key);
+    if (!seen) {
+      seen = { values: Object.fromEntries(q.groupBy.map((c, i) => [c, parts[i] ?? null])), label: q.groupBy.map((c, i) => labelOf(c, parts[i] ?? 'none')).join(' · ') };
+      labels.set(key, seen);
+    }
+    r.key = key; r.values = seen.values; r.label = seen.label;
+  }
+  return out;
 }
 
 function labelOf(code: CohortFactorCode, value: string): string {
@@ -109,7 +118,9 @@ const ASSUMPTIONS = [
 export function survivalFigures(q: CohortQuery, groups: { key: string; rows: GroupedRow[] }[]): CohortResult['survival'] {
   const obsOf = (rows: GroupedRow[]): SurvivalObs[] => rows.flatMap((r) => (r.time !== null && r.event !== null ? [{ time: r.time, event: r.event }] : []));
   const all = groups.map((g) => ({ key: g.key, obs: obsOf(g.rows) })).filter((g) => g.obs.length > 0);
-  const ticks = chartTicks(Math.max(0, ...all.flatMap((g) => g.obs.map((o) => o.time))));
+  let maxT = 0;
+  for (const g of all) for (const o of g.obs) if (o.time > maxT) maxT = o.time;
+  const ticks = chartTicks(maxT);
   const curves = all.map((g) => {
     const km = kaplanMeier(g.obs, { ci: q.ci });
     return { key: g.key, n: km.n, events: km.events, censored: km.censored, median: km.median, steps: km.steps, atRisk: atRiskAt(g.obs, ticks) };
@@ -151,15 +162,25 @@ export function fadingFigures(groups: { key: string; rows: GroupedRow[] }[]): Co
 }
 
 export function incidenceFigures(groups: { key: string; rows: GroupedRow[] }[], termLabels: Map<string, string>): CohortResult['incidence'] {
-  const terms = [...new Set(groups.flatMap((g) => g.rows.flatMap((r) => r.terms ?? [])))].sort();
+  // One pass per group: prints with a signed report, and per term those showing it.
+  const tallies = groups.map((g) => {
+    const counts = new Map<string, number>();
+    let seen = 0;
+    for (const r of g.rows) {
+      if (!r.reports) continue;
+      seen += r.reports;
+      for (const term of r.terms ?? []) counts.set(term, (counts.get(term) ?? 0) + 1);
+    }
+    return { key: g.key, seen, counts };
+  });
+  const terms = [...new Set(tallies.flatMap((x) => [...x.counts.keys()]))].sort();
   return terms.map((term) => ({
     term, label: termLabels.get(term) ?? term,
-    groups: groups.map((g) => {
-      const seen = g.rows.filter((r) => r.has_report);
-      const count = seen.filter((r) => r.terms?.includes(term)).length;
-      const w = wilsonInterval(count, seen.length);
-      return { key: g.key, n: seen.length, count, share: w.share, lower: w.lower, upper: w.upper };
-    }).filter((x) => x.n > 0),
+    groups: tallies.filter((x) => x.seen > 0).map((x) => {
+      const count = x.counts.get(term) ?? 0;
+      const w = wilsonInterval(count, x.seen);
+      return { key: x.key, n: x.seen, count, share: w.share, lower: w.lower, upper: w.upper };
+    }),
   }));
 }
 

@@ -78,7 +78,14 @@ export interface CohortRow {
   event: boolean | null;
   terms: string[] | null;
   has_report: boolean;
-  computed_at: Date | null;
+  /** When the outcomes row was computed, in seconds since 1970 (a number parses faster than a timestamp). */
+  computed_at: number | null;
+  /** How many prints the row stands for: 1, or (aggregated) the prints of that group value carrying no figure. */
+  weight: number;
+  /** Of those, how many have a signed report (the denominator of incidence). */
+  reports: number;
+  /** Distinct prints of the cohort (aggregated statements only). */
+  cohort_total: number;
 }
 
 export interface CohortSql { text: string; values: unknown[] }
@@ -87,7 +94,7 @@ export interface CohortSql { text: string; values: unknown[] }
  * The statement for a query. `threshold` is the ΔE00 for the fading event (the query's or the
  * settings'). `extra` adds SQL conditions of the caller's own (with their binds), none from the request.
  */
-export function buildCohortSql(q: CohortQuery, threshold: number): CohortSql {
+export function buildCohortSql(q: CohortQuery, threshold: number, options: { ordered?: boolean; aggregate?: boolean } = {}): CohortSql {
   const values: unknown[] = [];
   const bind = (v: unknown, cast: string) => { values.push(v); return `$${values.length}::${cast}`; };
   const needs = new Set<Need>(['outcomes']);
@@ -121,7 +128,7 @@ export function buildCohortSql(q: CohortQuery, threshold: number): CohortSql {
   let eventOn: string;
   let censorOn: string;
   if (q.event.kind === 'fading') {
-    eventOn = `(SELECT min(u.d) FROM unnest(o.de_dates, o.de_values) AS u(d, v) WHERE u.v >= ${bind(threshold, 'float8')})`;
+    eventOn = `CASE WHEN cardinality(o.de_dates) > 0 THEN (SELECT min(u.d) FROM unnest(o.de_dates, o.de_values) AS u(d, v) WHERE u.v >= ${bind(threshold, 'float8')}) END`;
     censorOn = 'o.last_measured_on';
   } else if (q.event.kind === 'observation') {
     eventOn = `(o.term_first ->> ${bind(q.event.term, 'text')})::date`;
@@ -133,20 +140,39 @@ export function buildCohortSql(q: CohortQuery, threshold: number): CohortSql {
   const cox = q.coxFactors.length ? `ARRAY[${q.coxFactors.map((c) => `(${FACTOR_SQL[c].expr})::text`).join(', ')}]` : 'NULL::text[]';
 
   const joins = (['paper', 'enclosure', 'outcomes', 'steps'] as Need[]).filter((n) => needs.has(n)).map((n) => JOINS[n]).join('\n');
-  const text = `${ctes.length ? `WITH RECURSIVE ${ctes.join(', ')}\n` : ''}SELECT id, accession_number, accession_sort, title, g0, g1, x, de_per_year, density_loss_per_year,
-       CASE WHEN origin_on IS NOT NULL AND end_on > origin_on THEN ((end_on - origin_on) / 365.25)::float8 END AS time,
-       CASE WHEN origin_on IS NOT NULL AND end_on > origin_on THEN event_on IS NOT NULL END AS event,
-       terms, has_report, computed_at
-  FROM (SELECT p.id, p.accession_number, p.accession_sort, p.title,
+  const inner = `SELECT p.id, p.accession_number, p.accession_sort, p.title,
                (${groupExpr(q.groupBy[0])})::text AS g0, (${groupExpr(q.groupBy[1])})::text AS g1, ${cox} AS x,
                o.de_per_year, o.density_loss_per_year,
                ${origin} AS origin_on, coalesce(ev.on_, ${censorOn}) AS end_on, ev.on_ AS event_on,
-               ARRAY(SELECT jsonb_object_keys(coalesce(o.term_first, '{}'))) AS terms, o.last_report_on IS NOT NULL AS has_report, o.computed_at
+               CASE WHEN o.term_first <> '{}'::jsonb THEN ARRAY(SELECT jsonb_object_keys(o.term_first)) END AS terms,
+               o.last_report_on IS NOT NULL AS has_report, extract(epoch FROM o.computed_at)::float8 AS computed_at
           FROM prints p
           ${joins}
           ${tonerGroup ? "CROSS JOIN LATERAL unnest(CASE WHEN cardinality(p.toner_classes) = 0 THEN ARRAY[NULL::text] ELSE p.toner_classes END) AS tc(v)" : ''}
           LEFT JOIN LATERAL (SELECT ${eventOn} AS on_) ev ON true
-         ${where.length ? `WHERE ${where.join('\n           AND ')}` : ''}) c
- ORDER BY accession_sort, id`;
+         ${where.length ? `WHERE ${where.join('\n           AND ')}` : ''}`;
+  const columns = `id, accession_number, accession_sort, title, g0, g1, x, de_per_year, density_loss_per_year,
+       CASE WHEN origin_on IS NOT NULL AND end_on > origin_on THEN ((end_on - origin_on) / 365.25)::float8 END AS time,
+       CASE WHEN origin_on IS NOT NULL AND end_on > origin_on THEN event_on IS NOT NULL END AS event,
+       terms, has_report, computed_at`;
+  const head = ctes.length ? `WITH RECURSIVE ${ctes.join(', ')},\n` : 'WITH ';
+  let text: string;
+  if (!options.aggregate) {
+    // Every print (the prints behind a figure, the export), in accession order.
+    text = `${head}c AS (SELECT ${columns} FROM (${inner}) i)
+SELECT c.*, 1 AS weight, has_report::int AS reports, 0 AS cohort_total FROM c${options.ordered ? ' ORDER BY accession_sort, id' : ''}`;
+  } else {
+    // The figures: prints that carry a figure (a rate, a survival time, a term) one by one; the rest
+    // only counted per raw group value (sizes, reports seen, the median split).
+    text = `${head}c AS MATERIALIZED (SELECT ${columns} FROM (${inner}) i)
+SELECT id, accession_number, NULL AS accession_sort, NULL AS title, g0, g1, x, de_per_year, density_loss_per_year, time, event, terms, has_report, computed_at,
+       1 AS weight, has_report::int AS reports, (SELECT count(DISTINCT id) FROM c)::int AS cohort_total
+  FROM c WHERE de_per_year IS NOT NULL OR density_loss_per_year IS NOT NULL OR time IS NOT NULL OR terms IS NOT NULL
+UNION ALL
+SELECT NULL, NULL, NULL, NULL, g0, g1, NULL, NULL, NULL, NULL, NULL, NULL, false, min(computed_at),
+       count(*)::int, (count(*) FILTER (WHERE has_report))::int, (SELECT count(DISTINCT id) FROM c)::int
+  FROM c WHERE de_per_year IS NULL AND density_loss_per_year IS NULL AND time IS NULL AND terms IS NULL
+ GROUP BY g0, g1`;
+  }
   return { text, values };
 }

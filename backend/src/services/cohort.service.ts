@@ -45,10 +45,10 @@ async function placeGroups(q: CohortQuery): Promise<Map<string, string>> {
 interface Cohort { rows: GroupedRow[]; groups: { key: string; label: string; values: Record<string, string | null>; rows: GroupedRow[] }[]; threshold: number }
 
 /** The cohort's rows, grouped. */
-export async function loadCohort(q: CohortQuery): Promise<Cohort> {
+export async function loadCohort(q: CohortQuery, options: { ordered?: boolean; aggregate?: boolean } = {}): Promise<Cohort> {
   checkQuery(q);
   const threshold = q.event.thresholdDeltaE ?? (await getMeasurementSettings()).noticeableDeltaE;
-  const sql = buildCohortSql(q, threshold);
+  const sql = buildCohortSql(q, threshold, options);
   const [raw, places] = await Promise.all([pgRows<CohortRow>(sql.text, sql.values), placeGroups(q)]);
   const rows = groupRows(q, raw, makeGrouping(q, raw, places));
   const byKey = new Map<string, Cohort['groups'][number]>();
@@ -56,21 +56,23 @@ export async function loadCohort(q: CohortQuery): Promise<Cohort> {
     const g = byKey.get(r.key);
     if (g) g.rows.push(r); else byKey.set(r.key, { key: r.key, label: r.label, values: r.values, rows: [r] });
   }
-  const groups = [...byKey.values()].sort((a, b) => b.rows.length - a.rows.length || a.label.localeCompare(b.label));
+  const size = (g: { rows: GroupedRow[] }) => g.rows.reduce((n, r) => n + r.weight, 0);
+  const groups = [...byKey.values()].sort((a, b) => size(b) - size(a) || a.label.localeCompare(b.label));
   return { rows, groups, threshold };
 }
 
 export async function runCohort(q: CohortQuery): Promise<CohortResult> {
-  const { rows, groups, threshold } = await loadCohort(q);
+  const { rows, groups, threshold } = await loadCohort(q, { aggregate: true });
   const terms = await db().query<{ code: string; label: string }>('SELECT code, label FROM condition_terms', { type: QueryTypes.SELECT });
-  const asOf = rows.reduce<Date | null>((m, r) => (r.computed_at && (!m || r.computed_at < m) ? r.computed_at : m), null);
+  let asOf: number | null = null;
+  for (const r of rows) if (r.computed_at !== null && (asOf === null || r.computed_at < asOf)) asOf = r.computed_at;
   const survival = survivalFigures(q, groups);
   survival.eventLabel = survival.eventLabel.replace('the noticeable threshold', String(threshold));
   return {
     query: q,
-    total: new Set(rows.map((r) => r.id)).size,
+    total: rows[0]?.cohort_total ?? 0,
     groups: groups.map((g) => ({
-      key: g.key, label: g.label, values: g.values, size: g.rows.length,
+      key: g.key, label: g.label, values: g.values, size: g.rows.reduce((n, r) => n + r.weight, 0),
       withRate: g.rows.filter((r) => r.de_per_year !== null).length,
       withSurvival: g.rows.filter((r) => r.time !== null).length,
     })),
@@ -78,7 +80,7 @@ export async function runCohort(q: CohortQuery): Promise<CohortResult> {
     survival,
     cox: coxFigures(q, rows),
     incidence: incidenceFigures(groups, new Map(terms.map((t) => [t.code, t.label]))),
-    outcomesAsOf: asOf ? asOf.toISOString() : null,
+    outcomesAsOf: asOf !== null ? new Date(asOf * 1000).toISOString() : null,
   };
 }
 
@@ -88,7 +90,7 @@ type PrintsInput = z.infer<typeof cohortPrintsInputSchema>;
 export async function cohortPrints(input: PrintsInput): Promise<{ data: z.infer<typeof cohortPrintSchema>[]; pagination: { page: number; pageSize: number; total: number } }> {
   if (input.which === 'at_risk' && input.time === undefined) throw validationFailed([{ path: 'time', code: 'custom', message: 'Give the time (years from the origin)' }]);
   if (input.which === 'term' && !input.term) throw validationFailed([{ path: 'term', code: 'custom', message: 'Choose the observation' }]);
-  const { rows } = await loadCohort(input.query);
+  const { rows } = await loadCohort(input.query, { ordered: true });
   const seen = new Set<string>();
   const pick = rows.filter((r) => {
     if (input.groupKey !== undefined && r.key !== input.groupKey) return false;
