@@ -23,13 +23,13 @@ export function SurvivalSection({ survival, labelOf, onShow, width }: { survival
     <section aria-labelledby="survival-heading" className="flex flex-col gap-3">
       <h2 id="survival-heading" className="text-lg">Survival: {survival.eventLabel}</h2>
       <p className="text-sm text-ink-700" data-testid="survival-basis">
-        Time in years from {survival.originLabel}. Shaded: the 95 % interval of each curve, {CI_WORDS[survival.ci].toLowerCase()}.
+        Time on the axis: {survival.originLabel}. Shaded: the 95 % interval of each curve, {CI_WORDS[survival.ci].toLowerCase()}.
       </p>
       {survival.groups.some((g) => g.steps.length) ? (
-        <div role="img" aria-label={`Kaplan–Meier curves: share without ${survival.eventLabel} over years from ${survival.originLabel}`} className="w-full">
+        <div role="img" aria-label={`Kaplan–Meier curves: share without ${survival.eventLabel} over ${survival.originLabel}`} className="w-full">
           <ComposedChart responsive={!width} style={size} width={width} height={width ? 300 : undefined} margin={{ top: 8, right: 24, bottom: 16, left: 8 }} accessibilityLayer={false}>
             <CartesianGrid stroke="#ebe4d6" />
-            <XAxis type="number" dataKey="t" domain={[0, xTicks[xTicks.length - 1] ?? axis.domain[1]]} ticks={xTicks} fontSize={12} allowDataOverflow label={{ value: `years from ${survival.originLabel}`, position: 'insideBottom', offset: -10, fontSize: 12 }} />
+            <XAxis type="number" dataKey="t" domain={[0, Math.max(lastT, xTicks[xTicks.length - 1] ?? axis.domain[1])]} ticks={xTicks} fontSize={12} allowDataOverflow label={{ value: survival.originLabel, position: 'insideBottom', offset: -10, fontSize: 12 }} />
             <YAxis type="number" domain={[0, 1]} ticks={[0, 0.25, 0.5, 0.75, 1]} fontSize={12} width={48} label={{ value: 'share without the event', angle: -90, position: 'insideLeft', fontSize: 11 }} />
             {survival.groups.map((g, i) => (
               <Area key={`band-${g.key}`} data={curvePoints(g)} dataKey="band" type="stepAfter" stroke="none" fill={SERIES[i % SERIES.length]} fillOpacity={0.15} isAnimationActive={false} />
@@ -123,9 +123,14 @@ function LogRank({ survival, labelOf, onShow }: { survival: Survival; labelOf: (
         </tbody>
       </table>
       <Words title="What the test assumes" items={lr.assumptions} />
-      <Words title="Warnings" items={lr.warnings} tone="warn" />
+      <Words title="Warnings" items={lr.warnings.map((w) => withLabels(w, survival.groups.map((g) => g.key), labelOf))} tone="warn" />
     </section>
   );
+}
+
+/** A sentence naming groups by their keys ("alkalineAfterBath=no"), with their labels instead (keys of the factor=value form only, never a plain word). */
+export function withLabels(text: string, keys: string[], labelOf: (key: string) => string): string {
+  return keys.filter((k) => k.includes('=')).sort((a, b) => b.length - a.length).reduce((t, k) => t.replaceAll(k, labelOf(k)), text);
 }
 
 export function Words({ title, items, tone }: { title: string; items: string[]; tone?: 'warn' }) {

@@ -47,32 +47,32 @@ export function makeResult(over: Partial<CohortResult> = {}): CohortResult {
     query: IRON_BLUE_QUERY,
     total: 9,
     groups: [
-      { key: 'no', label: 'Alkaline after-bath: no', values: { alkalineAfterBath: 'no' }, size: 5, withRate: 5, withSurvival: 4 },
-      { key: 'yes', label: 'Alkaline after-bath: yes', values: { alkalineAfterBath: 'yes' }, size: 4, withRate: 4, withSurvival: 3 },
+      { key: 'alkalineAfterBath=no', label: 'Alkaline after-bath: no', values: { alkalineAfterBath: 'no' }, size: 5, withRate: 5, withSurvival: 4 },
+      { key: 'alkalineAfterBath=yes', label: 'Alkaline after-bath: yes', values: { alkalineAfterBath: 'yes' }, size: 4, withRate: 4, withSurvival: 3 },
     ],
     fading: [
-      { key: 'no', deltaEPerYear: distribution([0.1, 0.2, 0.3, 0.4, 0.5]), densityLossPerYear: distribution([0.004, 0.002, 0.003, 0.001, 0.005]) },
-      { key: 'yes', deltaEPerYear: distribution([0.05, 0.07, 0.12, 0.2]), densityLossPerYear: distribution([0.001, 0.002, 0.001, 0.0015]) },
+      { key: 'alkalineAfterBath=no', deltaEPerYear: distribution([0.1, 0.2, 0.3, 0.4, 0.5]), densityLossPerYear: distribution([0.004, 0.002, 0.003, 0.001, 0.005]) },
+      { key: 'alkalineAfterBath=yes', deltaEPerYear: distribution([0.05, 0.07, 0.12, 0.2]), densityLossPerYear: distribution([0.001, 0.002, 0.001, 0.0015]) },
     ],
     survival: {
-      origin: 'first_exam', originLabel: 'the first examination', eventLabel: 'ΔE00 past 2.0', timeUnit: 'years', ci: 'log-log',
+      origin: 'first_exam', originLabel: 'years since the first examination', eventLabel: 'ΔE00 past 2.0', timeUnit: 'years', ci: 'log-log',
       groups: [
         {
-          key: 'no', n: 4, events: 3, censored: 1, median: { value: 5, lower: 2, upper: null },
+          key: 'alkalineAfterBath=no', n: 4, events: 3, censored: 1, median: { value: 5, lower: 2, upper: null },
           steps: [step(2, 4, 1, 0, 0.75, 0.19, 0.96), step(3, 3, 0, 1, 0.75, 0.19, 0.96), step(5, 2, 1, 0, 0.375, 0.01, 0.78), step(8, 1, 1, 0, 0, null, null)],
           atRisk: [{ t: 0, n: 4 }, { t: 2.5, n: 3 }, { t: 5, n: 2 }, { t: 7.5, n: 1 }],
         },
         {
-          key: 'yes', n: 3, events: 1, censored: 2, median: { value: 6, lower: 6, upper: null },
+          key: 'alkalineAfterBath=yes', n: 3, events: 1, censored: 2, median: { value: 6, lower: 6, upper: null },
           steps: [step(4, 3, 0, 1, 1, null, null), step(6, 2, 1, 0, 0.5, 0.06, 0.85), step(9, 1, 0, 1, 0.5, 0.06, 0.85)],
           atRisk: [{ t: 0, n: 3 }, { t: 2.5, n: 3 }, { t: 5, n: 2 }, { t: 7.5, n: 1 }],
         },
       ],
       logRank: {
         chi2: 3.84, df: 1, p: 0.05,
-        groups: [{ key: 'no', observed: 3, expected: 2.1 }, { key: 'yes', observed: 1, expected: 1.9 }],
+        groups: [{ key: 'alkalineAfterBath=no', observed: 3, expected: 2.1 }, { key: 'alkalineAfterBath=yes', observed: 1, expected: 1.9 }],
         assumptions: ['Censoring is unrelated to the chance of the event.'],
-        warnings: ['Fewer than five events in a group: the p value is rough.'],
+        warnings: ['Group alkalineAfterBath=yes has 3 events (fewer than 5): the test has little power.'],
       },
     },
     cox: {
@@ -82,7 +82,7 @@ export function makeResult(over: Partial<CohortResult> = {}): CohortResult {
       proportionalHazards: [{ label: 'Alkaline after-bath = yes (against no)', rho: 0.12, p: 0.71, verdict: 'no sign that the hazard ratio changes over time' }],
       warnings: ['Only 4 events for 1 term.'],
     },
-    incidence: [{ term: 'silvering', label: 'Silvering', groups: [{ key: 'no', n: 5, count: 2, share: 0.4, lower: 0.118, upper: 0.769 }, { key: 'yes', n: 4, count: 0, share: 0, lower: 0, upper: 0.49 }] }],
+    incidence: [{ term: 'silvering', label: 'Silvering', groups: [{ key: 'alkalineAfterBath=no', n: 5, count: 2, share: 0.4, lower: 0.118, upper: 0.769 }, { key: 'alkalineAfterBath=yes', n: 4, count: 0, share: 0, lower: 0, upper: 0.49 }] }],
     outcomesAsOf: '2026-12-01T06:00:00.000Z',
     ...over,
   };
