@@ -16,7 +16,10 @@ export interface CheckGroupProps {
 export function CheckGroup({ name, legend, options, hint, max }: CheckGroupProps) {
   const { id } = useFieldSetup(name);
   const { field } = useController({ name });
-  const error = useFieldError(name) ?? useFieldError(`${name}.0`);
+  // The list's own problem, or one of its first value (a code not in the vocabulary); both hooks run on every render.
+  const listError = useFieldError(name);
+  const firstError = useFieldError(`${name}.0`);
+  const error = listError ?? firstError;
   const chosen = (field.value as string[] | undefined) ?? [];
   const toggle = (value: string, on: boolean) => {
     const next = new Set(chosen);

@@ -87,15 +87,17 @@ function SavedRow({ saved, onOpen }: { saved: SavedQuery; onOpen: (query: Cohort
   );
 }
 
-interface RenameValues { name: string; description: string; version: number }
+interface RenameValues { name: string; description: string; shared: boolean; version: number }
 
 function RenameForm({ saved, onDone }: { saved: SavedQuery; onDone: () => void }) {
   const update = useUpdateSaved();
-  const form = useSchemaForm({ schema: savedQueryUpdateSchema, defaultValues: { name: saved.name, description: saved.description ?? '', version: saved.version } as RenameValues });
+  const form = useSchemaForm({ schema: savedQueryUpdateSchema, // Sharing is always sent as shown: the update schema's default would otherwise send "not shared".
+  defaultValues: { name: saved.name, description: saved.description ?? '', shared: saved.shared, version: saved.version } as RenameValues });
   return (
     <SchemaForm form={form} onValid={(body) => update.mutate({ id: saved.id, body }, { onSuccess: onDone, onError: form.serverError })} aria-label={`Rename ${saved.name}`} className="mt-2 gap-2">
       <TextInput name="name" label="Name" />
       <TextAreaInput name="description" label="Description" rows={2} />
+      <CheckboxInput name="shared" label="Shared: every researcher can open it" />
       <SubmitCancel label="Save" busy={update.isPending} busyLabel="Saving…" onCancel={onDone} size="sm" />
     </SchemaForm>
   );

@@ -157,6 +157,8 @@ describe('ResearchPage', { timeout: 30_000 }, () => {
     const { requests, router } = setup({
       'GET /api/research/queries': () => json({ data: [makeSaved(), other], pagination: page(2) }),
       'POST /api/research/queries': (r) => json({ data: makeSaved({ name: (r.body as { name: string }).name }) }, 201),
+      [`PATCH /api/research/queries/${makeSaved().id}`]: (r) => json({ data: makeSaved({ ...(r.body as object), version: 2 }) }),
+      [`DELETE /api/research/queries/${makeSaved().id}`]: () => new Response(null, { status: 204 }),
     });
     fireEvent.click(await screen.findByRole('button', { name: 'Save the query' }));
     const save = screen.getByRole('form', { name: 'Save the query' });
@@ -173,5 +175,16 @@ describe('ResearchPage', { timeout: 30_000 }, () => {
     expect(within(theirs).queryByRole('button', { name: 'Delete' })).toBeNull();
     fireEvent.click(within(theirs).getByRole('button', { name: 'Open' }));
     await waitFor(() => expect(currentQuery(router)?.groupBy).toEqual(['tonerSequence']));
+
+    // The owner renames (with the version it opened) and deletes (after a question).
+    fireEvent.click(within(mine).getByRole('button', { name: 'Rename' }));
+    const rename = within(mine).getByRole('form', { name: 'Rename Iron blue, after-bath' });
+    fireEvent.change(within(rename).getByLabelText('Name'), { target: { value: 'Iron blue on fibre, after-bath' } });
+    fireEvent.click(within(rename).getByLabelText('Shared: every researcher can open it'));
+    fireEvent.click(within(rename).getByRole('button', { name: 'Save' }));
+    await waitFor(() => expect(requests.find((r) => r.method === 'PATCH')?.body).toEqual({ name: 'Iron blue on fibre, after-bath', description: 'Fibre prints only.', shared: true, version: 1 }));
+    fireEvent.click(within(mine).getByRole('button', { name: 'Delete' }));
+    fireEvent.click(within(mine).getByRole('button', { name: 'Delete it' }));
+    await waitFor(() => expect(requests.find((r) => r.method === 'DELETE')?.search.get('version')).toBe('1'));
   });
 });
