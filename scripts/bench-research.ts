@@ -19,6 +19,8 @@ import type { CohortQueryIn } from '../common/src/schemas/research';
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const log = (m: string) => console.log(`[bench:research] ${m}`);
 const pgPort = Number(process.env.TONELEDGER_PG_PORT ?? 54329);
+/** `--explain`: prints the plan of each scenario's statement (EXPLAIN ANALYZE) instead of timing it. */
+const EXPLAIN = process.argv.includes('--explain');
 const ONLY = process.argv.includes('--only') ? process.argv[process.argv.indexOf('--only') + 1] ?? '' : '';
 
 async function reachable(): Promise<boolean> {
@@ -71,6 +73,11 @@ try {
     if (ONLY && !sc.name.includes(ONLY) && !'research'.includes(ONLY)) continue;
     const q = cohortQuerySchema.parse(sc.query);
     const sql = buildCohortSql(q, q.event.thresholdDeltaE ?? 1.6, { aggregate: true });
+    if (EXPLAIN) {
+      const plan = await pgRows<{ 'QUERY PLAN': string }>(`EXPLAIN (ANALYZE, BUFFERS) ${sql.text}`, sql.values);
+      log(`${sc.name}, plan:\n${plan.map((r) => r['QUERY PLAN']).join('\n')}`);
+      continue;
+    }
     const api: number[] = [];
     const bare: number[] = [];
     let last: Awaited<ReturnType<typeof runCohort>> | null = null;
