@@ -182,7 +182,8 @@ export const savedQueryInputSchema = z.object({
   /** Shared: every researcher sees it; otherwise only its owner. */
   shared: z.boolean().default(false),
 });
-export const savedQueryUpdateSchema = savedQueryInputSchema.partial().extend({ version: z.number().int().min(1) });
+/** A change names only what it changes: `shared` has no default here, so a rename leaves the sharing as it was. */
+export const savedQueryUpdateSchema = savedQueryInputSchema.partial().extend({ shared: z.boolean().optional(), version: z.number().int().min(1) });
 export const savedQuerySchema = z.object({
   id, name: z.string(), description: z.string().nullable(), query: cohortQuerySchema, shared: z.boolean(),
   owner: z.object({ id, name: z.string() }), createdAt: isoDateTime, updatedAt: isoDateTime, version: z.number().int(),

@@ -166,23 +166,26 @@ describe('saved queries', () => {
     expect(shared.status, JSON.stringify(shared.body)).toBe(200);
     expect(shared.body.data).toMatchObject({ shared: true, version: 2, description: 'For the survey', name: 'Toner classes, grade poor' });
     expect((await api('conservator').get(`/api/research/queries/${id}`)).body.data.query.groupBy).toEqual(['tonerClass']);
+    // A rename alone leaves the sharing as it was.
+    const renamed = await api('researcher').patch(`/api/research/queries/${id}`, { version: 2, name: 'Toner classes, graded poor' });
+    expect(renamed.body.data).toMatchObject({ shared: true, version: 3, name: 'Toner classes, graded poor' });
     expect((await api('conservator').get('/api/research/queries')).body.data.map((q: { id: string }) => q.id)).toContain(id);
     expect((await api('conservator').get('/api/research/queries?mine=true')).body.data.map((q: { id: string }) => q.id)).not.toContain(id);
 
-    const notOwner = await api('conservator').patch(`/api/research/queries/${id}`, { version: 2, name: 'Mine now' });
+    const notOwner = await api('conservator').patch(`/api/research/queries/${id}`, { version: 3, name: 'Mine now' });
     expect(notOwner.status).toBe(403);
-    expect((await api('conservator').delete(`/api/research/queries/${id}?version=2`)).status).toBe(403);
+    expect((await api('conservator').delete(`/api/research/queries/${id}?version=3`)).status).toBe(403);
     const stale = await api('researcher').patch(`/api/research/queries/${id}`, { version: 1, name: 'Old form' });
     expect(stale.status).toBe(409);
-    expect(stale.body.error.details.current.version).toBe(2);
+    expect(stale.body.error.details.current.version).toBe(3);
     expect((await api('researcher').delete(`/api/research/queries/${id}?version=1`)).status).toBe(409);
 
     const bad = await api('researcher').post('/api/research/queries', { name: '', query: { groupBy: ['location'] } });
     expect(bad.status).toBe(400);
 
-    expect((await api('researcher').delete(`/api/research/queries/${id}?version=2`)).status).toBe(204);
+    expect((await api('researcher').delete(`/api/research/queries/${id}?version=3`)).status).toBe(204);
     expect((await api('researcher').get(`/api/research/queries/${id}`)).status).toBe(404);
     const trail = await db().query<{ action: string }>(`SELECT action FROM audit_events WHERE entity_id = $1 ORDER BY id`, { bind: [id], type: QueryTypes.SELECT });
-    expect(trail.map((a) => a.action)).toEqual(['research_query.created', 'research_query.updated', 'research_query.deleted']);
+    expect(trail.map((a) => a.action)).toEqual(['research_query.created', 'research_query.updated', 'research_query.updated', 'research_query.deleted']);
   });
 });
