@@ -11,8 +11,7 @@ import { COHORT_FACTOR_CODES } from '@toneledger/common/fields/cohort';
 import { testApp } from '../../../test/app';
 import { createLocation } from '../../../test/factories';
 import { db } from '../../db';
-import { settleSchedules } from '../../services/schedule-jobs';
-import { researchClient } from './research-helpers';
+import { researchClient, settleOutcomes } from './research-helpers';
 
 const t = testApp();
 const { api, signInAll, newPrint, addStep, signedReport, newSpot, session } = researchClient(t);
@@ -23,9 +22,11 @@ beforeAll(async () => {
   await signInAll();
   const wing = await createLocation(`Export wing ${base}`);
   place = wing.id;
+  const made: string[] = [];
   for (let i = 1; i <= 4; i += 1) {
     // A title a spreadsheet would run as a formula: the CSV cell rule must neutralise it.
     const p = await newPrint(`${base}.${i}`, wing.id, i === 1 ? { title: '=HYPERLINK("x")' } : {});
+    made.push(p.id);
     await addStep(p.id, 1, 'toning', { tonerClass: i % 2 ? 'selenium' : 'gold', timeSeconds: 60 * i });
     await signedReport(p.id, '2015-03-01', 'good');
     await signedReport(p.id, '2019-03-01', i % 2 ? 'poor' : 'good', i % 2 ? ['silver_mirroring'] : []);
@@ -36,7 +37,7 @@ beforeAll(async () => {
       await session(p.id, '2019-03-01', [{ spotId: spot.id, lab: { L: 21, a: 0.5, b: 1 }, density: 1.8 }]);
     }
   }
-  await settleSchedules();
+  await settleOutcomes(made);
 }, 120_000);
 afterAll(() => t.close());
 

@@ -2,7 +2,9 @@ import supertest from 'supertest';
 import { expect } from 'vitest';
 import { ROLES, type Role } from '@toneledger/common/domain/roles';
 import { sessionFor, type TestApp } from '../../../test/app';
+import { QueryTypes } from 'sequelize';
 import { db } from '../../db';
+import { settleSchedules } from '../../services/schedule-jobs';
 
 /** Test helpers for the research API: callers per role and a small cohort made through the API (prints, signed reports, measurement sessions). */
 export function researchClient(t: TestApp) {
@@ -57,6 +59,21 @@ export function researchClient(t: TestApp) {
   }
 
   return { c, api, signInAll, newPrint, addStep, signedReport, newSpot, session };
+}
+
+/**
+ * Waits until none of these prints is marked stale. `settleSchedules` waits for this process's work
+ * only: another test file's app on the same database may have taken some of the marks (SKIP LOCKED)
+ * and not yet committed; the marks go with its commit, and the outcomes with them.
+ */
+export async function settleOutcomes(printIds: string[]): Promise<void> {
+  for (let i = 0; i < 600; i += 1) {
+    await settleSchedules();
+    const [{ n }] = await db().query<{ n: number }>('SELECT count(*)::int AS n FROM schedule_stale WHERE print_id = ANY ($1::uuid[])', { bind: [printIds], type: QueryTypes.SELECT });
+    if (n === 0) return;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  throw new Error('the stale marks of the test prints were not worked off within a minute');
 }
 
 export const paths = (res: { body: { error?: { details?: { path: string }[] } } }) => (res.body.error?.details ?? []).map((d) => d.path);

@@ -5,8 +5,8 @@ import { testApp } from '../../../test/app';
 import { createLocation } from '../../../test/factories';
 import { QueryTypes } from 'sequelize';
 import { db } from '../../db';
-import { processStale, settleSchedules } from '../../services/schedule-jobs';
-import { paths, researchClient } from './research-helpers';
+import { processStale } from '../../services/schedule-jobs';
+import { paths, researchClient, settleOutcomes } from './research-helpers';
 
 const t = testApp();
 const { api, signInAll, newPrint, addStep, signedReport, newSpot, session } = researchClient(t);
@@ -52,7 +52,7 @@ beforeAll(async () => {
   await session(z.id, '2010-06-01', [{ spotId: dmax.id, lab: SHARMA_1_BASE, density: 2.0 }, { spotId: high.id, lab: { L: 90, a: 0, b: 0 } }]);
   await session(z.id, '2012-06-01', [{ spotId: dmax.id, lab: SHARMA_1_LATER, density: 1.9 }, { spotId: high.id, lab: { L: 80, a: 5, b: 10 } }]);
   await session(z.id, '2014-06-01', [{ spotId: dmax.id, lab: SHARMA_1_LATER, density: 1.8 }, { spotId: high.id, lab: { L: 70, a: 5, b: 10 } }]);
-  await settleSchedules();
+  await settleOutcomes(Object.values(ids));
 }, 120_000);
 afterAll(() => t.close());
 
@@ -155,13 +155,14 @@ describe('the outcome table', () => {
 
   it('follows a newly signed report through the stale marks, and a print without a row gets one from its mark', async () => {
     await signedReport(ids.n4!, '2017-01-01', 'poor', ['silver_mirroring']);
-    await settleSchedules();
+    await settleOutcomes([ids.n4!]);
     const after = await row(ids.n4!);
     expect(after!.term_first).toEqual({ silver_mirroring: '2017-01-01' });
     expect(after!.last_report_on).toBe('2017-01-01');
     await db().query('DELETE FROM print_outcomes WHERE print_id = $1', { bind: [ids.z1] });
     await db().query('INSERT INTO schedule_stale (print_id) VALUES ($1) ON CONFLICT DO NOTHING', { bind: [ids.z1] });
     await processStale();
+    await settleOutcomes([ids.z1!]);
     // The fitted ΔE00 of the dmax spot: 0 at the baseline, then Sharma pair 1 (2.0425) twice.
     expect((await row(ids.z1!))!.de_values.map((v) => Number(v.toFixed(4)))).toEqual([0, 2.0425, 2.0425]);
   });
