@@ -1,6 +1,6 @@
 import { QueryTypes, type Transaction } from 'sequelize';
 import type { MeasurementConditions } from '@toneledger/common/domain/colour';
-import { analyseSpotHistory, fittedPoints, type SpotObservation } from '@toneledger/common/domain/spot-analysis';
+import { analyseSpotHistory, chronological, densityOf, fittedPoints, type SpotObservation } from '@toneledger/common/domain/spot-analysis';
 import { normaliseRecipe, type Recipe } from '@toneledger/common/domain/recipes';
 import { db } from '../db';
 import { getMeasurementSettings } from './measurement.service';
@@ -47,31 +47,39 @@ async function fadingOutcomes(ids: readonly string[], threshold: number, t?: Tra
     const list = spots.get(r.spot_id);
     if (list) list.push(r); else spots.set(r.spot_id, [r]);
   }
-  // Per print: the dmax spot first, then the highest baseline density; ties by spot id.
-  const best = new Map<string, { rank: [number, number, string]; out: FadingOutcome }>();
+  const observationsOf = (list: ReadingRow[]): SpotObservation[] => list.map((r) => ({
+    sessionId: r.session_id, measuredOn: r.measured_on, recordedAt: r.created_at,
+    conditions: { illuminant: r.illuminant, observer: r.observer as MeasurementConditions['observer'], geometry: r.geometry, condition: r.condition as MeasurementConditions['condition'] },
+    lab: { L: r.mean_l, a: r.mean_a, b: r.mean_b }, density: r.density, densityType: r.density_type, reflectance: r.reflectance,
+  }));
+  // Per print, the maximum-density spot is chosen before any analysis (only that one is analysed):
+  // purpose dmax first, then the highest baseline density (the chosen baseline session, else the
+  // first session by date), ties by spot id.
+  const chosen = new Map<string, { rank: [number, number, string]; observations: SpotObservation[]; row: ReadingRow }>();
   for (const list of spots.values()) {
     const first = list[0]!;
-    const observations: SpotObservation[] = list.map((r) => ({
-      sessionId: r.session_id, measuredOn: r.measured_on, recordedAt: r.created_at,
-      conditions: { illuminant: r.illuminant, observer: r.observer as MeasurementConditions['observer'], geometry: r.geometry, condition: r.condition as MeasurementConditions['condition'] },
-      lab: { L: r.mean_l, a: r.mean_a, b: r.mean_b }, density: r.density, densityType: r.density_type, reflectance: r.reflectance,
-    }));
-    const a = analyseSpotHistory(observations, { baselineSessionId: first.baseline_session_id, threshold });
+    const observations = observationsOf(list);
+    const ordered = [...observations].sort(chronological);
+    const base = ordered.find((o) => o.sessionId === first.baseline_session_id) ?? ordered[0]!;
+    const rank: [number, number, string] = [first.purpose === 'dmax' ? 1 : 0, densityOf(base) ?? -1, first.spot_id];
+    const seen = chosen.get(first.print_id);
+    const better = !seen || rank[0] > seen.rank[0] || (rank[0] === seen.rank[0] && (rank[1] > seen.rank[1] || (rank[1] === seen.rank[1] && rank[2] < seen.rank[2])));
+    if (better) chosen.set(first.print_id, { rank, observations, row: first });
+  }
+  const out = new Map<string, FadingOutcome>();
+  for (const [printId, c] of chosen) {
+    const a = analyseSpotHistory(c.observations, { baselineSessionId: c.row.baseline_session_id, threshold });
     if (!a.baseline) continue;
     const fitted = fittedPoints(a);
-    const out: FadingOutcome = {
-      spotId: first.spot_id, baselineOn: a.baseline.measuredOn,
+    out.set(printId, {
+      spotId: c.row.spot_id, baselineOn: a.baseline.measuredOn,
       dePerYear: a.rate?.ok ? a.rate.slopePerYear : null,
       densityLossPerYear: a.densityLossRate?.ok ? a.densityLossRate.slopePerYear : null,
       dates: fitted.map((p) => p.measuredOn), values: fitted.map((p) => p.dE00),
       noticeableOn: fitted.find((p) => p.dE00 >= threshold)?.measuredOn ?? null,
-    };
-    const rank: [number, number, string] = [first.purpose === 'dmax' ? 1 : 0, a.baseline.density ?? -1, first.spot_id];
-    const seen = best.get(first.print_id);
-    const better = !seen || rank[0] > seen.rank[0] || (rank[0] === seen.rank[0] && (rank[1] > seen.rank[1] || (rank[1] === seen.rank[1] && rank[2] < seen.rank[2])));
-    if (better) best.set(first.print_id, { rank, out });
+    });
   }
-  return new Map([...best].map(([k, v]) => [k, v.out]));
+  return out;
 }
 
 /** "1+9", "1:9" → 10 (one part stock in ten of working bath); none → 1. Anything else: unknown. */
