@@ -12,7 +12,9 @@ import type { CohortQuery } from '@toneledger/common/schemas/research';
  */
 
 type Need = 'steps' | 'paper' | 'enclosure' | 'outcomes';
-interface FactorSql { expr: string; needs: Need[] }
+/** The aggregates over a print's process steps a factor reads (only those are computed). */
+type StepColumn = 'n' | 'toned' | 'seq' | 'toning_min' | 'extent' | 'wash_min' | 'hypo' | 'alk_yes' | 'alk_unknown';
+interface FactorSql { expr: string; needs: Need[]; steps?: StepColumn[] }
 
 const flag = (yes: string, no: string) => `CASE WHEN ${yes} THEN 'yes' WHEN ${no} THEN 'no' ELSE 'unknown' END`;
 
@@ -25,15 +27,15 @@ export const FACTOR_SQL: Record<CohortFactorCode, FactorSql> = {
   paperTint: { expr: 'pa.base_tint', needs: ['paper'] },
   // A print toned with two classes has both; the Cox model and a single value take the first.
   tonerClass: { expr: 'p.toner_classes[1]', needs: [] },
-  toned: { expr: flag('st.toned', 'st.n > 0'), needs: ['steps'] },
-  tonerSequence: { expr: 'st.seq', needs: ['steps'] },
+  toned: { expr: flag('st.toned', 'st.n > 0'), needs: ['steps'], steps: ['n', 'toned'] },
+  tonerSequence: { expr: 'st.seq', needs: ['steps'], steps: ['seq'] },
   ferricyanideGL: { expr: 'o.ferricyanide_gl', needs: ['outcomes'] },
   acidGL: { expr: 'o.acid_gl', needs: ['outcomes'] },
-  toningMinutes: { expr: 'st.toning_min', needs: ['steps'] },
-  toningExtent: { expr: 'st.extent', needs: ['steps'] },
-  washingMinutes: { expr: 'st.wash_min', needs: ['steps'] },
-  hypoClearing: { expr: flag('st.hypo', 'st.n > 0'), needs: ['steps'] },
-  alkalineAfterBath: { expr: flag('st.alk_yes', 'st.n > 0 AND NOT st.alk_unknown'), needs: ['steps'] },
+  toningMinutes: { expr: 'st.toning_min', needs: ['steps'], steps: ['toning_min'] },
+  toningExtent: { expr: 'st.extent', needs: ['steps'], steps: ['extent'] },
+  washingMinutes: { expr: 'st.wash_min', needs: ['steps'], steps: ['wash_min'] },
+  hypoClearing: { expr: flag('st.hypo', 'st.n > 0'), needs: ['steps'], steps: ['n', 'hypo'] },
+  alkalineAfterBath: { expr: flag('st.alk_yes', 'st.n > 0 AND NOT st.alk_unknown'), needs: ['steps'], steps: ['n', 'alk_yes', 'alk_unknown'] },
   enclosureType: { expr: 'et.name', needs: ['enclosure'] },
   enclosureBuffered: { expr: flag('et.alkaline_buffered', 'et.alkaline_buffered = false'), needs: ['enclosure'] },
   location: { expr: 'p.location_id', needs: [] },
@@ -47,17 +49,24 @@ const JOINS: Record<Need, string> = {
   paper: 'LEFT JOIN papers pa ON pa.id = p.paper_id',
   enclosure: 'LEFT JOIN enclosure_types et ON et.id = p.enclosure_id',
   outcomes: 'LEFT JOIN print_outcomes o ON o.print_id = p.id',
-  steps: `LEFT JOIN LATERAL (
-    SELECT count(*) AS n, coalesce(bool_or(s.type = 'toning'), false) AS toned,
-           string_agg(s.toner_class, ' → ' ORDER BY s.position) FILTER (WHERE s.type = 'toning') AS seq,
-           (sum(s.time_seconds) FILTER (WHERE s.type = 'toning') / 60.0)::float8 AS toning_min,
-           (array_agg(s.extent ORDER BY s.position) FILTER (WHERE s.type = 'toning'))[1] AS extent,
-           (sum(s.time_seconds) FILTER (WHERE s.type IN ('washing','final_wash')) / 60.0)::float8 AS wash_min,
-           coalesce(bool_or(s.type = 'hypo_clearing'), false) AS hypo,
-           coalesce(bool_or(s.alkaline) FILTER (WHERE s.type = 'after_bath'), false) AS alk_yes,
-           coalesce(bool_or(s.alkaline IS NULL) FILTER (WHERE s.type = 'after_bath'), false) AS alk_unknown
-      FROM process_steps s WHERE s.print_id = p.id) st ON true`,
+  steps: '', // built from the columns the query's factors read (stepsJoin)
 };
+
+const STEP_SQL: Record<StepColumn, string> = {
+  n: 'count(*) AS n',
+  toned: "coalesce(bool_or(s.type = 'toning'), false) AS toned",
+  seq: "string_agg(s.toner_class, ' → ' ORDER BY s.position) FILTER (WHERE s.type = 'toning') AS seq",
+  toning_min: "(sum(s.time_seconds) FILTER (WHERE s.type = 'toning') / 60.0)::float8 AS toning_min",
+  extent: "(array_agg(s.extent ORDER BY s.position) FILTER (WHERE s.type = 'toning'))[1] AS extent",
+  wash_min: "(sum(s.time_seconds) FILTER (WHERE s.type IN ('washing','final_wash')) / 60.0)::float8 AS wash_min",
+  hypo: "coalesce(bool_or(s.type = 'hypo_clearing'), false) AS hypo",
+  alk_yes: "coalesce(bool_or(s.alkaline) FILTER (WHERE s.type = 'after_bath'), false) AS alk_yes",
+  alk_unknown: "coalesce(bool_or(s.alkaline IS NULL) FILTER (WHERE s.type = 'after_bath'), false) AS alk_unknown",
+};
+
+function stepsJoin(columns: Set<StepColumn>): string {
+  return `LEFT JOIN LATERAL (SELECT ${[...columns].map((c) => STEP_SQL[c]).join(', ')} FROM process_steps s WHERE s.print_id = p.id) st ON true`;
+}
 
 export const GRADE_COLUMN = { good: 'o.good_on', fair: 'o.fair_on', poor: 'o.poor_on', unacceptable: 'o.unacceptable_on' } as const;
 
@@ -99,7 +108,11 @@ export function buildCohortSql(q: CohortQuery, threshold: number, options: { ord
   const bind = (v: unknown, cast: string) => { values.push(v); return `$${values.length}::${cast}`; };
   const needs = new Set<Need>(['outcomes']);
   const used = [...q.filters.map((f) => f.factor), ...q.groupBy, ...q.coxFactors];
-  for (const code of used) for (const n of FACTOR_SQL[code].needs) needs.add(n);
+  const stepColumns = new Set<StepColumn>();
+  for (const code of used) {
+    for (const n of FACTOR_SQL[code].needs) needs.add(n);
+    for (const c of FACTOR_SQL[code].steps ?? []) stepColumns.add(c);
+  }
 
   const ctes: string[] = [];
   const where: string[] = [];
@@ -139,7 +152,7 @@ export function buildCohortSql(q: CohortQuery, threshold: number, options: { ord
   }
   const cox = q.coxFactors.length ? `ARRAY[${q.coxFactors.map((c) => `(${FACTOR_SQL[c].expr})::text`).join(', ')}]` : 'NULL::text[]';
 
-  const joins = (['paper', 'enclosure', 'outcomes', 'steps'] as Need[]).filter((n) => needs.has(n)).map((n) => JOINS[n]).join('\n');
+  const joins = (['paper', 'enclosure', 'outcomes', 'steps'] as Need[]).filter((n) => needs.has(n)).map((n) => (n === 'steps' ? stepsJoin(stepColumns) : JOINS[n])).join('\n');
   const inner = `SELECT p.id, p.accession_number, p.accession_sort, p.title,
                (${groupExpr(q.groupBy[0])})::text AS g0, (${groupExpr(q.groupBy[1])})::text AS g1, ${cox} AS x,
                o.de_per_year, o.density_loss_per_year,
