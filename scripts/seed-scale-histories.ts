@@ -17,6 +17,8 @@ import { Readable } from 'node:stream';
 import type pg from 'pg';
 import { from as copyFrom } from 'pg-copy-streams';
 import { averageReadings, type Lab } from '@toneledger/common/domain/colour';
+import { analyseSpotHistory } from '@toneledger/common/domain/spot-analysis';
+import { DEFAULT_NOTICEABLE_DELTA_E } from '@toneledger/common/domain/fading';
 import { prng } from '../backend/src/seed/demo-catalogue';
 
 export interface ProfileFacts {
@@ -144,9 +146,11 @@ export async function seedScaleHistories(
       const rate = g.rate * Math.exp(0.35 * gauss());
       const limit = g.limit === null ? null : g.limit * (0.75 + r.next() * 0.5);
       const made = Math.min(p.year, p.acq);
-      // Fading from the date made: iron blue slows towards its limit, the rest is steady.
+      // Fading from a few years before accession (as in the demo, the store's housing drives it): iron
+      // blue slows towards its limit, the rest is steady.
+      const from = p.acq - 3 * r.next();
       const fadeAt = (t: number) => {
-        const years = Math.max(0, t - made);
+        const years = Math.max(0, t - from);
         return Math.min(0.9, limit === null ? years * rate : limit * (1 - Math.exp((-rate * years) / limit)));
       };
       const lab = (which: 'dmax' | 'mid' | 'paper', t: number): Lab3 => {
@@ -248,4 +252,41 @@ export async function seedScaleHistories(
   }
   o.log(`  generating ${(timing.generate / 1000).toFixed(1)} s, COPY of measurements ${(timing.measurements / 1000).toFixed(1)} s, reports and observations ${(timing.reports / 1000).toFixed(1)} s`);
   return counts;
+}
+
+/**
+ * The maximum-density spot of a sample of prints run through the app's analysis (`analyseSpotHistory`),
+ * per toner group: how many have a rate, the median ΔE00 a year and the median half-width of its
+ * 95 % interval, and how many reached the noticeable change. A check by eye that the groups differ.
+ */
+export async function summariseScaleRates(c: pg.Client, sample = 3000): Promise<string[]> {
+  const { rows } = await c.query<{ grp: string; sessions: { id: string; on: string; L: number; a: number; b: number; d: number | null; cond: string | null }[] }>(
+    `SELECT CASE WHEN 'iron_blue' = ANY(p.toner_classes) OR p.process = 'cyanotype' THEN
+                   CASE WHEN EXISTS (SELECT 1 FROM process_steps s WHERE s.print_id = p.id AND s.type = 'after_bath' AND s.alkaline) THEN 'iron blue, alkaline after-bath' ELSE 'iron blue' END
+                 WHEN p.toner_classes && '{sulfide,polysulfide}' THEN 'sulfide' WHEN 'selenium' = ANY(p.toner_classes) THEN 'selenium'
+                 WHEN p.toner_classes = '{}' THEN 'untoned' ELSE 'other' END AS grp,
+            (SELECT json_agg(json_build_object('id', ms.id, 'on', ms.measured_on, 'L', r.mean_l, 'a', r.mean_a, 'b', r.mean_b, 'd', r.density, 'cond', ms.condition) ORDER BY ms.measured_on)
+               FROM measurement_spots sp JOIN spot_readings r ON r.spot_id = sp.id JOIN measurement_sessions ms ON ms.id = r.session_id
+              WHERE sp.print_id = p.id AND sp.purpose = 'dmax') AS sessions
+       FROM (SELECT * FROM prints ORDER BY id LIMIT $1) p`,
+    [sample],
+  );
+  const byGroup = new Map<string, { rate: number; half: number; reached: boolean }[]>();
+  for (const row of rows) {
+    if (!row.sessions) continue;
+    const change = analyseSpotHistory(
+      row.sessions.map((x) => ({
+        sessionId: x.id, measuredOn: x.on, recordedAt: x.on, conditions: { illuminant: 'D50', observer: '2', geometry: '45/0', condition: x.cond as 'M0' | null },
+        lab: { L: Number(x.L), a: Number(x.a), b: Number(x.b) }, density: x.d === null ? null : Number(x.d), densityType: x.d === null ? null : 'visual', reflectance: null,
+      })),
+      { baselineSessionId: null, threshold: DEFAULT_NOTICEABLE_DELTA_E },
+    );
+    if (!change.rate?.ok) continue;
+    const list = byGroup.get(row.grp) ?? [];
+    list.push({ rate: change.rate.slopePerYear, half: (change.rate.ci95[1] - change.rate.ci95[0]) / 2, reached: change.points.some((x) => x.comparable && x.dE00 >= DEFAULT_NOTICEABLE_DELTA_E) });
+    byGroup.set(row.grp, list);
+  }
+  const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+  return [...byGroup.entries()].sort().map(([g, xs]) =>
+    `${g.padEnd(32)} n ${String(xs.length).padStart(5)}  median ${median(xs.map((x) => x.rate)).toFixed(3)} ΔE00/yr  ±${median(xs.map((x) => x.half)).toFixed(3)}  reached ${xs.filter((x) => x.reached).length}`);
 }

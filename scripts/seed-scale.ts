@@ -23,7 +23,7 @@ import { migrateUp } from '../backend/src/migrate';
 import { accessionSortKey, deriveDate, tonerClassesOf, warningsOf, type StepFacts } from '../backend/src/services/print-derive';
 import { prng } from '../backend/src/seed/demo-catalogue';
 import { categorySql } from '../backend/src/services/light-category-sql';
-import { seedScaleHistories } from './seed-scale-histories';
+import { seedScaleHistories, summariseScaleRates } from './seed-scale-histories';
 import { DEFAULT_LIGHT_SETTINGS, categoryByRules } from '@toneledger/common/domain/light-rules';
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
@@ -660,6 +660,10 @@ try {
     }
     if (bad.length) throw new Error(`Derived columns disagree with the app in ${bad.length} cases, e.g.\n  ${bad.slice(0, 5).join('\n  ')}`);
     log(`  ${sample.rowCount} sampled prints match accessionSortKey, deriveDate, tonerClassesOf, warningsOf and categoryByRules`);
+  });
+
+  await timed('fading rates of 3,000 prints (the app\'s analysis)', () => 3000, async () => {
+    for (const l of await summariseScaleRates(c)) log(`  ${l}`);
   });
 
   const summary = (await c.query(`SELECT (SELECT count(*) FROM prints) AS prints, (SELECT count(*) FROM process_steps) AS steps,
