@@ -18,7 +18,7 @@ describe('the demo seed part for inspection dates', () => {
     const done = await seedDemoSchedules((m) => lines.push(m));
     const prints = await n('SELECT count(*)::int AS n FROM prints');
     expect(done).toBe(prints);
-    expect(lines).toEqual([`Next-inspection dates computed for ${prints} demo prints.`]);
+    expect(lines).toEqual([`Next-inspection dates and research outcomes computed for ${prints} demo prints.`]);
     expect(await n('SELECT count(*)::int AS n FROM print_schedules')).toBe(prints);
     expect(await n('SELECT count(*)::int AS n FROM schedule_stale')).toBe(0);
     const before = await db().query('SELECT print_id, due_on::text, version FROM print_schedules ORDER BY print_id', { type: QueryTypes.SELECT });

@@ -13,8 +13,9 @@ import { recomputeOutcomes } from './print-outcomes';
  *
  * - **Marks**: a change of an input marks its prints in `schedule_stale` inside its own transaction
  *   and wakes the schedule work after the commit (`schedule-stale.ts`). The work takes the marks
- *   BATCH at a time (`FOR UPDATE SKIP LOCKED`, so two servers share them), recomputes those prints
- *   and deletes their marks in the same transaction, until none is left. With a queue, waking sends
+ *   BATCH at a time (read without a lock), recomputes those prints and deletes in the same transaction
+ *   each mark whose number is still the one read (a print marked again meanwhile keeps its mark), until
+ *   none is left. With a queue, waking sends
  *   the pg-boss job `schedule-update`, one per 2 s at most (singletonKey, next slot when throttled);
  *   without one (testApp) the work runs in this process and `settleSchedules()` waits for it.
  * - **Full recompute** (`POST /api/inspections/recompute`): the pg-boss job `schedule-recompute` walks
@@ -25,17 +26,35 @@ import { recomputeOutcomes } from './print-outcomes';
 export const SCHEDULE_BATCH = 5_000;
 const KEY = 'schedule-recompute';
 
-/** One batch of marks: recomputed and cleared in one transaction. Returns how many marks it took. */
+/**
+ * Deletes the marks read before a batch was computed, each only while its number is still the one
+ * read: a print marked again meanwhile (its change committed after the batch read its inputs) keeps
+ * its renewed mark and is computed again.
+ */
+export async function clearMarks(marks: { print_id: string; seq: string }[], t: Transaction): Promise<void> {
+  if (!marks.length) return;
+  await db().query(
+    'DELETE FROM schedule_stale s USING unnest($1::uuid[], $2::bigint[]) AS m(print_id, seq) WHERE s.print_id = m.print_id AND s.seq = m.seq',
+    { bind: [marks.map((m) => m.print_id), marks.map((m) => m.seq)], transaction: t },
+  );
+}
+
+/**
+ * One batch of marks: recomputed and cleared in one transaction. Returns how many marks it took (0:
+ * none was left). The marks are read without a lock, so a change marking one of these prints never
+ * waits for the batch; two servers may now and then compute the same print twice, which is harmless.
+ */
 export async function processStaleBatch(size = SCHEDULE_BATCH): Promise<number> {
   return db().transaction(async (t) => {
-    const ids = (await db().query<{ print_id: string }>(
-      'SELECT print_id FROM schedule_stale ORDER BY since LIMIT $1 FOR UPDATE SKIP LOCKED',
+    const marks = await db().query<{ print_id: string; seq: string }>(
+      'SELECT print_id, seq FROM schedule_stale ORDER BY since, print_id LIMIT $1',
       { bind: [size], transaction: t, type: QueryTypes.SELECT },
-    )).map((r) => r.print_id);
-    if (!ids.length) return 0;
+    );
+    if (!marks.length) return 0;
+    const ids = marks.map((m) => m.print_id);
     await recomputeSchedules(ids, t);
     await recomputeOutcomes(ids, t);
-    await db().query('DELETE FROM schedule_stale WHERE print_id = ANY ($1::uuid[])', { bind: [ids], transaction: t });
+    await clearMarks(marks, t);
     return ids.length;
   });
 }
@@ -152,10 +171,13 @@ export async function scheduleRecomputeBatch(size = SCHEDULE_BATCH): Promise<boo
       'SELECT id FROM prints WHERE $1::uuid IS NULL OR id > $1::uuid ORDER BY id LIMIT $2',
       { bind: [p.cursor, size], transaction: t, type: QueryTypes.SELECT },
     )).map((r) => r.id);
+    // The marks these prints hold now: done by this batch (a print marked again while it runs keeps its renewed mark).
+    const marks = ids.length
+      ? await db().query<{ print_id: string; seq: string }>('SELECT print_id, seq FROM schedule_stale WHERE print_id = ANY ($1::uuid[])', { bind: [ids], transaction: t, type: QueryTypes.SELECT })
+      : [];
     await recomputeSchedules(ids, t);
     await recomputeOutcomes(ids, t);
-    // These prints are current now: any mark of theirs made before this batch is done.
-    if (ids.length) await db().query('DELETE FROM schedule_stale WHERE print_id = ANY ($1::uuid[])', { bind: [ids], transaction: t });
+    await clearMarks(marks, t);
     const done = p.done + ids.length;
     const finished = ids.length < size;
     const next: RecomputeRow = finished
