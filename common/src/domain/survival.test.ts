@@ -207,3 +207,61 @@ describe('edge cases', () => {
     expect(() => logRank([SIX_MP])).toThrow(RangeError);
   });
 });
+
+describe('observations given as counts', () => {
+  // The same 6-MP and placebo lists (REFERENCES.md §2) collapsed to (time, event, count) rows: each
+  // figure must equal the one of the expanded list, which the tests above check against the references.
+  const collapse = (obs: SurvivalObs[]): SurvivalObs[] => {
+    const m = new Map<string, SurvivalObs>();
+    for (const o of obs) {
+      const key = `${o.time}|${o.event}`;
+      const row = m.get(key);
+      if (row) row.count = (row.count ?? 1) + 1; else m.set(key, { time: o.time, event: o.event, count: 1 });
+    }
+    return [...m.values()].reverse(); // order must not matter
+  };
+  const sixMp = collapse(SIX_MP);
+  const placebo = collapse(PLACEBO);
+
+  it('collapses the lists to fewer rows with the same total', () => {
+    // 6-MP: 6 ×3 events and 6+ once, 32+ twice → 21 prints in 18 rows; placebo: 12 distinct times.
+    expect(sixMp).toHaveLength(18);
+    expect(placebo).toHaveLength(12);
+    expect(sixMp.find((o) => o.time === 6 && o.event)!.count).toBe(3);
+    expect(placebo.find((o) => o.time === 8)!.count).toBe(4);
+  });
+
+  it('kaplanMeier with counts gives exactly the expanded figures (both interval methods)', () => {
+    for (const ci of ['log-log', 'plain'] as const) {
+      expect(kaplanMeier(sixMp, { ci })).toEqual(kaplanMeier(SIX_MP, { ci }));
+      expect(kaplanMeier(placebo, { ci })).toEqual(kaplanMeier(PLACEBO, { ci }));
+    }
+    // And so the published figures: S(23) = 0.4482, SE 0.1346, median 23 [13, –] (REFERENCES.md §2).
+    const km = kaplanMeier(sixMp);
+    expect([km.n, km.events, km.censored]).toEqual([21, 9, 12]);
+    const t23 = km.steps.find((s) => s.t === 23)!;
+    expect(t23.s).toBeCloseTo(0.4482, 4);
+    expect(t23.se!).toBeCloseTo(0.1346, 4);
+    expect(km.median).toEqual({ value: 23, lower: 13, upper: null });
+  });
+
+  it('atRiskAt and logRank with counts give exactly the expanded figures', () => {
+    const ticks = [0, 6, 7, 13, 35, 36];
+    expect(atRiskAt(sixMp, ticks)).toEqual(atRiskAt(SIX_MP, ticks));
+    expect(atRiskAt(sixMp, [13])[0].n).toBe(12);
+    const counted = logRank([sixMp, placebo]);
+    const expanded = logRank([SIX_MP, PLACEBO]);
+    expect(counted.observed).toEqual([9, 21]);
+    expect(counted.expected).toEqual(expanded.expected);
+    expect(counted.chi2).toBe(expanded.chi2);
+    expect(counted.chi2).toBeCloseTo(16.79, 2); // REFERENCES.md §2
+    // Mixed: one group counted, the other expanded.
+    expect(logRank([sixMp, PLACEBO]).chi2).toBe(expanded.chi2);
+  });
+
+  it('refuses a count that is not a whole number ≥ 1', () => {
+    expect(() => kaplanMeier([{ time: 1, event: true, count: 0 }])).toThrow(RangeError);
+    expect(() => kaplanMeier([{ time: 1, event: true, count: 1.5 }])).toThrow(RangeError);
+    expect(() => logRank([[{ time: 1, event: true, count: -2 }], PLACEBO])).toThrow(RangeError);
+  });
+});

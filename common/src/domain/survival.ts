@@ -16,7 +16,11 @@ const jStat = jStatModule as {
   chisquare: { cdf(x: number, df: number): number };
 };
 
-export interface SurvivalObs { time: number; event: boolean }
+/**
+ * One observation, or `count` identical ones (a whole number ≥ 1; 1 when absent). Counts give exactly
+ * the figures of the expanded list, so a caller may send (time, event, count) rows instead of one per print.
+ */
+export interface SurvivalObs { time: number; event: boolean; count?: number }
 export interface KmStep { t: number; atRisk: number; events: number; censored: number; s: number; se: number | null; lower: number | null; upper: number | null }
 export type CiMethod = 'log-log' | 'plain';
 
@@ -36,7 +40,32 @@ export function chiSquareUpper(x: number, df: number): number {
 function checkObs(obs: SurvivalObs[]): void {
   for (const [i, o] of obs.entries()) {
     if (!Number.isFinite(o.time) || o.time < 0) throw new RangeError(`observation ${i}: time must be a finite number ≥ 0 (got ${o.time})`);
+    if (o.count !== undefined && !(Number.isInteger(o.count) && o.count >= 1)) throw new RangeError(`observation ${i}: count must be a whole number ≥ 1 (got ${o.count})`);
   }
+}
+
+/** How many observations a list stands for (the sum of the counts). */
+function countOf(obs: SurvivalObs[]): number {
+  let n = 0;
+  for (const o of obs) n += o.count ?? 1;
+  return n;
+}
+
+/** Times ascending with the running count from the end: `from[i]` = observations with time ≥ times[i]. */
+function sortedWithTail(obs: SurvivalObs[]): { times: number[]; from: number[] } {
+  const sorted = [...obs].sort((a, b) => a.time - b.time);
+  const times = sorted.map((o) => o.time);
+  const from = new Array<number>(sorted.length + 1).fill(0);
+  for (let i = sorted.length - 1; i >= 0; i--) from[i] = from[i + 1]! + (sorted[i]!.count ?? 1);
+  return { times, from };
+}
+
+/** Observations with time ≥ t, from `sortedWithTail`. */
+function countFrom(s: { times: number[]; from: number[] }, t: number): number {
+  let lo = 0;
+  let hi = s.times.length;
+  while (lo < hi) { const mid = (lo + hi) >> 1; if (s.times[mid]! < t) lo = mid + 1; else hi = mid; }
+  return s.from[lo]!;
 }
 
 interface TimeRow { t: number; events: number; censored: number }
@@ -46,7 +75,7 @@ function tabulate(obs: SurvivalObs[]): TimeRow[] {
   const byTime = new Map<number, TimeRow>();
   for (const o of obs) {
     const row = byTime.get(o.time) ?? { t: o.time, events: 0, censored: 0 };
-    if (o.event) row.events++; else row.censored++;
+    if (o.event) row.events += o.count ?? 1; else row.censored += o.count ?? 1;
     byTime.set(o.time, row);
   }
   return [...byTime.values()].sort((a, b) => a.t - b.t);
@@ -89,7 +118,8 @@ export function kaplanMeier(obs: SurvivalObs[], opts: { ci?: CiMethod; level?: n
   const ci = opts.ci ?? 'log-log';
   const z = normalQuantileForLevel(opts.level ?? 0.95);
   const rows = tabulate(obs);
-  let atRisk = obs.length;
+  const total = countOf(obs);
+  let atRisk = total;
   let s = 1;
   let v = 0;
   const steps: KmStep[] = [];
@@ -107,19 +137,14 @@ export function kaplanMeier(obs: SurvivalObs[], opts: { ci?: CiMethod; level?: n
   const first = (pick: (st: KmStep) => number) => steps.find((st) => st.events > 0 && pick(st) <= 0.5)?.t ?? null;
   const value = first((st) => st.s);
   const median = value === null ? null : { value, lower: first((st) => st.lower ?? st.s), upper: first((st) => st.upper ?? st.s) };
-  return { n: obs.length, events, censored: obs.length - events, steps, median };
+  return { n: total, events, censored: total - events, steps, median };
 }
 
 /** Number at risk just before each time: the observations with time ≥ t. */
 export function atRiskAt(obs: SurvivalObs[], times: number[]): { t: number; n: number }[] {
   checkObs(obs);
-  const sorted = obs.map((o) => o.time).sort((a, b) => a - b);
-  return times.map((t) => {
-    let lo = 0;
-    let hi = sorted.length;
-    while (lo < hi) { const mid = (lo + hi) >> 1; if (sorted[mid] < t) lo = mid + 1; else hi = mid; }
-    return { t, n: sorted.length - lo };
-  });
+  const s = sortedWithTail(obs);
+  return times.map((t) => ({ t, n: countFrom(s, t) }));
 }
 
 /** Inverse of a symmetric positive-definite matrix by Cholesky; null when it is not (numerically) positive definite. */
@@ -179,17 +204,11 @@ export function logRank(groups: SurvivalObs[][]): LogRankResult {
   groups.forEach(checkObs);
   const k = groups.length;
   const eventTimes = [...new Set(groups.flatMap((g) => g.filter((o) => o.event).map((o) => o.time)))].sort((a, b) => a - b);
-  const sortedTimes = groups.map((g) => g.map((o) => o.time).sort((a, b) => a - b));
-  const atRisk = (j: number, t: number) => {
-    const arr = sortedTimes[j];
-    let lo = 0;
-    let hi = arr.length;
-    while (lo < hi) { const mid = (lo + hi) >> 1; if (arr[mid] < t) lo = mid + 1; else hi = mid; }
-    return arr.length - lo;
-  };
+  const sortedTimes = groups.map(sortedWithTail);
+  const atRisk = (j: number, t: number) => countFrom(sortedTimes[j]!, t);
   const eventsAt = groups.map((g) => {
     const m = new Map<number, number>();
-    for (const o of g) if (o.event) m.set(o.time, (m.get(o.time) ?? 0) + 1);
+    for (const o of g) if (o.event) m.set(o.time, (m.get(o.time) ?? 0) + (o.count ?? 1));
     return m;
   });
   const observed = new Array<number>(k).fill(0);
