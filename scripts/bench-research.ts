@@ -48,7 +48,7 @@ try {
   const { migrateUp } = await import('../backend/src/migrate');
   const { recomputeOutcomes } = await import('../backend/src/services/print-outcomes');
   const { runCohort } = await import('../backend/src/services/cohort.service');
-  const { buildCohortSql } = await import('../backend/src/services/cohort-sql');
+  const { buildAggregateSql } = await import('../backend/src/services/cohort-aggregate');
   const { pgRows } = await import('../backend/src/services/print-list.service');
   const { cohortQuerySchema } = await import('../common/src/schemas/research');
   await migrateUp(db());
@@ -72,7 +72,7 @@ try {
   for (const sc of SCENARIOS) {
     if (ONLY && !sc.name.includes(ONLY) && !'research'.includes(ONLY)) continue;
     const q = cohortQuerySchema.parse(sc.query);
-    const sql = buildCohortSql(q, q.event.thresholdDeltaE ?? 1.6, { aggregate: true });
+    const sql = buildAggregateSql(q, q.event.thresholdDeltaE ?? 1.6, { places: new Map(), pointsCap: 500 });
     if (EXPLAIN) {
       const plan = await pgRows<{ 'QUERY PLAN': string }>(`EXPLAIN (ANALYZE, BUFFERS) ${sql.text}`, sql.values);
       log(`${sc.name}, plan:\n${plan.map((r) => r['QUERY PLAN']).join('\n')}`);

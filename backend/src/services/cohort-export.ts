@@ -97,7 +97,7 @@ CSV files are UTF-8 with a header row. A text cell that a spreadsheet would run 
 
 /** Writes the package to `out` (the zip is streamed). Returns the number of cohort rows. */
 export async function writeCohortPackage(q: CohortQuery, actor: { id: string; name: string | null }, requestId: string | null, out: Writable): Promise<number> {
-  const figures = await runCohort(q);
+  const figures = await runCohort(q, { pointsCap: null });
   const everyFactor: CohortQuery = { ...q, coxFactors: [...COHORT_FACTOR_CODES] };
   const { rows } = await loadCohort(everyFactor, { ordered: true });
   const created = new Date().toISOString();

@@ -48,20 +48,50 @@ export function makeGrouping(q: CohortQuery, rows: CohortRow[], places: Map<stri
       if (kind === 'number') {
         const x = Number(raw);
         const cuts = q.bands?.[code];
-        if (cuts) {
-          const i = cuts.findIndex((c) => x < c);
-          if (i === 0) return `< ${fmt(cuts[0]!)}`;
-          if (i === -1) return `≥ ${fmt(cuts.at(-1)!)}`;
-          return `${fmt(cuts[i - 1]!)}–${fmt(cuts[i]!)}`;
-        }
+        if (cuts) { const i = cuts.findIndex((c) => x < c); return bandLabel(cuts, i === -1 ? cuts.length : i); }
         const m = medians.get(code);
         if (m === null || m === undefined) return null;
-        return x < m ? `below the median (${fmt(m)})` : `the median (${fmt(m)}) or above`;
+        return medianLabel(m, x < m);
       }
       if (kind === 'year') return `${Math.floor(Number(raw) / 10) * 10}s`;
       if (kind === 'place') return places.get(String(raw)) ?? null;
       return String(raw);
     },
+  };
+}
+
+/** The label of band `i` of the cut points: 0 below the first, `cuts.length` at or above the last. */
+function bandLabel(cuts: number[], i: number): string {
+  if (i === 0) return `< ${fmt(cuts[0]!)}`;
+  if (i >= cuts.length) return `≥ ${fmt(cuts.at(-1)!)}`;
+  return `${fmt(cuts[i - 1]!)}–${fmt(cuts[i]!)}`;
+}
+const medianLabel = (m: number, below: boolean) => (below ? `below the median (${fmt(m)})` : `the median (${fmt(m)}) or above`);
+
+/**
+ * The group value of a group code from the aggregated statement (`cohort-aggregate.ts`): the same
+ * labels `makeGrouping` gives the raw values. Codes: a band's index, 'below'/'above' the median, a
+ * decade, a place's name, the value itself otherwise.
+ */
+export function valueOfCode(q: CohortQuery, code: CohortFactorCode, raw: string | null, median: number | null): string | null {
+  if (raw === null) return null;
+  const kind = COHORT_FACTORS[code].kind;
+  if (kind === 'number') {
+    const cuts = q.bands?.[code];
+    if (cuts) return bandLabel(cuts, Number(raw));
+    return median === null ? null : medianLabel(median, raw === 'below');
+  }
+  if (kind === 'year') return `${raw}s`;
+  return raw;
+}
+
+/** A group's key, values and label from its group values (as `groupRows` makes them). */
+export function groupIdentity(q: CohortQuery, parts: (string | null)[]): { key: string; values: Record<string, string | null>; label: string } {
+  if (!q.groupBy.length) return { key: 'all', values: {}, label: 'All prints' };
+  return {
+    key: q.groupBy.map((c, i) => `${c}=${parts[i] ?? 'none'}`).join('|'),
+    values: Object.fromEntries(q.groupBy.map((c, i) => [c, parts[i] ?? null])),
+    label: q.groupBy.map((c, i) => labelOf(c, parts[i] ?? 'none')).join(' · '),
   };
 }
 
@@ -83,10 +113,7 @@ export function groupRows(q: CohortQuery, rows: CohortRow[], grouping: Grouping)
     const parts = q.groupBy.map((code, i) => grouping.valueOf(code, i === 0 ? r.g0 : r.g1));
     const key = q.groupBy.map((c, i) => `${c}=${parts[i] ?? 'none'}`).join('|');
     let seen = labels.get(key);
-    if (!seen) {
-      seen = { values: Object.fromEntries(q.groupBy.map((c, i) => [c, parts[i] ?? null])), label: q.groupBy.map((c, i) => labelOf(c, parts[i] ?? 'none')).join(' · ') };
-      labels.set(key, seen);
-    }
+    if (!seen) { seen = groupIdentity(q, parts); labels.set(key, seen); }
     r.key = key; r.values = seen.values; r.label = seen.label;
   }
   return out;
@@ -115,9 +142,9 @@ const ASSUMPTIONS = [
   'The test has most power when the hazards are proportional (the curves do not cross); crossing curves can hide a difference.',
 ];
 
-export function survivalFigures(q: CohortQuery, groups: { key: string; rows: GroupedRow[] }[]): CohortResult['survival'] {
-  const obsOf = (rows: GroupedRow[]): SurvivalObs[] => rows.flatMap((r) => (r.time !== null && r.event !== null ? [{ time: r.time, event: r.event }] : []));
-  const all = groups.map((g) => ({ key: g.key, obs: obsOf(g.rows) })).filter((g) => g.obs.length > 0);
+/** Kaplan–Meier per group and the log-rank test; each group's observations may carry counts ((time, event, count) rows). */
+export function survivalFigures(q: CohortQuery, groups: { key: string; obs: SurvivalObs[] }[]): CohortResult['survival'] {
+  const all = groups.filter((g) => g.obs.length > 0);
   let maxT = 0;
   for (const g of all) for (const o of g.obs) if (o.time > maxT) maxT = o.time;
   const ticks = chartTicks(maxT);
@@ -153,26 +180,8 @@ export function eventLabel(q: CohortQuery, threshold?: number): string {
   return `first signed report graded ${q.event.grade} or worse`;
 }
 
-export function fadingFigures(groups: { key: string; rows: GroupedRow[] }[]): CohortResult['fading'] {
-  const dist = (rows: GroupedRow[], pick: (r: GroupedRow) => number | null) => {
-    const points = rows.flatMap((r) => { const v = pick(r); return v === null ? [] : [{ printId: r.id, accessionNumber: r.accession_number, value: v }]; });
-    return { ...describe(points.map((p) => p.value)), points };
-  };
-  return groups.map((g) => ({ key: g.key, deltaEPerYear: dist(g.rows, (r) => r.de_per_year), densityLossPerYear: dist(g.rows, (r) => r.density_loss_per_year) }));
-}
-
-export function incidenceFigures(groups: { key: string; rows: GroupedRow[] }[], termLabels: Map<string, string>): CohortResult['incidence'] {
-  // One pass per group: prints with a signed report, and per term those showing it.
-  const tallies = groups.map((g) => {
-    const counts = new Map<string, number>();
-    let seen = 0;
-    for (const r of g.rows) {
-      if (!r.reports) continue;
-      seen += r.reports;
-      for (const term of r.terms ?? []) counts.set(term, (counts.get(term) ?? 0) + 1);
-    }
-    return { key: g.key, seen, counts };
-  });
+/** Incidence of each term per group with its Wilson interval: `seen` prints with a signed report, `counts` of them per term. */
+export function incidenceFigures(tallies: { key: string; seen: number; counts: Map<string, number> }[], termLabels: Map<string, string>): CohortResult['incidence'] {
   const terms = [...new Set(tallies.flatMap((x) => [...x.counts.keys()]))].sort();
   return terms.map((term) => ({
     term, label: termLabels.get(term) ?? term,
@@ -184,12 +193,12 @@ export function incidenceFigures(groups: { key: string; rows: GroupedRow[] }[], 
   }));
 }
 
+/** One print that counts for survival, with the raw values of the Cox factors in the query's order. */
+export interface CoxObs { time: number; event: boolean; x: (string | number | null)[] | null }
+
 /** The Cox model on the query's factors: numbers as they are; choice, text and flag factors as dummies against their largest level. */
-export function coxFigures(q: CohortQuery, rows: CohortRow[]): CohortResult['cox'] {
+export function coxFigures(q: CohortQuery, usable: CoxObs[]): CohortResult['cox'] {
   if (!q.coxFactors.length) return null;
-  // One row per print (grouping by toner class may repeat a print).
-  const seen = new Set<string>();
-  const usable = rows.filter((r) => r.time !== null && r.event !== null && !seen.has(r.id) && seen.add(r.id));
   const warnings: string[] = [];
   type Col = { label: string; factor: CohortFactorCode; level: string | null; reference: string | null; value: (raw: string | null) => number | null };
   const cols: Col[] = [];
@@ -216,7 +225,7 @@ export function coxFigures(q: CohortQuery, rows: CohortRow[]): CohortResult['cox
   for (const r of usable) {
     const x = cols.map((c, k) => c.value((r.x?.[colIndex[k]!] ?? null) as string | null));
     if (x.some((v) => v === null || !Number.isFinite(v))) continue;
-    modelRows.push({ time: r.time!, event: r.event!, x: x as number[] });
+    modelRows.push({ time: r.time, event: r.event, x: x as number[] });
   }
   const events = modelRows.filter((r) => r.event).length;
   if (modelRows.length < usable.length) warnings.push(`${usable.length - modelRows.length} prints without a value of a numeric factor are left out of the model.`);

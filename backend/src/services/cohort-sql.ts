@@ -99,11 +99,14 @@ export interface CohortRow {
 
 export interface CohortSql { text: string; values: unknown[] }
 
+/** The cohort as a CTE `c` (one row per print, or per toner class), with its bind values; `head` opens the WITH. */
+export interface CohortBase { head: string; c: string; values: unknown[]; bind: (v: unknown, cast: string) => string }
+
 /**
- * The statement for a query. `threshold` is the ΔE00 for the fading event (the query's or the
- * settings'). `extra` adds SQL conditions of the caller's own (with their binds), none from the request.
+ * The cohort CTE for a query. `threshold` is the ΔE00 for the fading event (the query's or the
+ * settings'). Further binds may be added through `bind` by the caller.
  */
-export function buildCohortSql(q: CohortQuery, threshold: number, options: { ordered?: boolean; aggregate?: boolean } = {}): CohortSql {
+export function cohortBase(q: CohortQuery, threshold: number): CohortBase {
   const values: unknown[] = [];
   const bind = (v: unknown, cast: string) => { values.push(v); return `$${values.length}::${cast}`; };
   const needs = new Set<Need>(['outcomes']);
@@ -169,23 +172,13 @@ export function buildCohortSql(q: CohortQuery, threshold: number, options: { ord
        CASE WHEN origin_on IS NOT NULL AND end_on > origin_on THEN event_on IS NOT NULL END AS event,
        terms, has_report, computed_at`;
   const head = ctes.length ? `WITH RECURSIVE ${ctes.join(', ')},\n` : 'WITH ';
-  let text: string;
-  if (!options.aggregate) {
-    // Every print (the prints behind a figure, the export), in accession order.
-    text = `${head}c AS (SELECT ${columns} FROM (${inner}) i)
+  return { head, c: `SELECT ${columns} FROM (${inner}) i`, values, bind };
+}
+
+/** Every print of the cohort with its figures (the prints behind a figure, the export), in accession order when `ordered`. */
+export function buildCohortSql(q: CohortQuery, threshold: number, options: { ordered?: boolean } = {}): CohortSql {
+  const { head, c, values } = cohortBase(q, threshold);
+  const text = `${head}c AS (${c})
 SELECT c.*, 1 AS weight, has_report::int AS reports, 0 AS cohort_total FROM c${options.ordered ? ' ORDER BY accession_sort, id' : ''}`;
-  } else {
-    // The figures: prints that carry a figure (a rate, a survival time, a term) one by one; the rest
-    // only counted per raw group value (sizes, reports seen, the median split).
-    text = `${head}c AS MATERIALIZED (SELECT ${columns} FROM (${inner}) i)
-SELECT id, accession_number, NULL AS accession_sort, NULL AS title, g0, g1, x, de_per_year, density_loss_per_year, time, event, terms, has_report, computed_at,
-       1 AS weight, has_report::int AS reports, (SELECT count(DISTINCT id) FROM c)::int AS cohort_total
-  FROM c WHERE de_per_year IS NOT NULL OR density_loss_per_year IS NOT NULL OR time IS NOT NULL OR terms IS NOT NULL
-UNION ALL
-SELECT NULL, NULL, NULL, NULL, g0, g1, NULL, NULL, NULL, NULL, NULL, NULL, false, min(computed_at),
-       count(*)::int, (count(*) FILTER (WHERE has_report))::int, (SELECT count(DISTINCT id) FROM c)::int
-  FROM c WHERE de_per_year IS NULL AND density_loss_per_year IS NULL AND time IS NULL AND terms IS NULL
- GROUP BY g0, g1`;
-  }
   return { text, values };
 }

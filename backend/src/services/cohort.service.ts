@@ -7,7 +7,9 @@ import type { z } from 'zod';
 import { db } from '../db';
 import { validationFailed } from '../errors';
 import { buildCohortSql, type CohortRow } from './cohort-sql';
-import { coxFigures, fadingFigures, groupRows, incidenceFigures, makeGrouping, survivalFigures, type GroupedRow } from './cohort-figures';
+import { coxFigures, groupIdentity, groupRows, incidenceFigures, makeGrouping, survivalFigures, valueOfCode, type CoxObs, type GroupedRow } from './cohort-figures';
+import { buildAggregateSql, type AggregateAnswer } from './cohort-aggregate';
+import type { SurvivalObs } from '@toneledger/common/domain/survival';
 import { getMeasurementSettings } from './measurement.service';
 import { pgRows } from './print-list.service';
 
@@ -45,7 +47,7 @@ async function placeGroups(q: CohortQuery): Promise<Map<string, string>> {
 interface Cohort { rows: GroupedRow[]; groups: { key: string; label: string; values: Record<string, string | null>; rows: GroupedRow[] }[]; threshold: number }
 
 /** The cohort's rows, grouped. */
-export async function loadCohort(q: CohortQuery, options: { ordered?: boolean; aggregate?: boolean } = {}): Promise<Cohort> {
+export async function loadCohort(q: CohortQuery, options: { ordered?: boolean } = {}): Promise<Cohort> {
   checkQuery(q);
   const threshold = q.event.thresholdDeltaE ?? (await getMeasurementSettings()).noticeableDeltaE;
   const sql = buildCohortSql(q, threshold, options);
@@ -61,26 +63,62 @@ export async function loadCohort(q: CohortQuery, options: { ordered?: boolean; a
   return { rows, groups, threshold };
 }
 
-export async function runCohort(q: CohortQuery): Promise<CohortResult> {
-  const { rows, groups, threshold } = await loadCohort(q, { aggregate: true });
-  const terms = await db().query<{ code: string; label: string }>('SELECT code, label FROM condition_terms', { type: QueryTypes.SELECT });
-  let asOf: number | null = null;
-  for (const r of rows) if (r.computed_at !== null && (asOf === null || r.computed_at < asOf)) asOf = r.computed_at;
+/** Strip-plot points per group and rate in an answer (evenly spaced by rank; `n` says how many there are). */
+export const POINTS_CAP = 500;
+
+/**
+ * The figures of a query, grouped in SQL (`cohort-aggregate.ts`). `pointsCap`: strip-plot points per
+ * group and rate (null: every print, for the export).
+ */
+export async function runCohort(q: CohortQuery, options: { pointsCap?: number | null } = {}): Promise<CohortResult> {
+  checkQuery(q);
+  const threshold = q.event.thresholdDeltaE ?? (await getMeasurementSettings()).noticeableDeltaE;
+  const places = await placeGroups(q);
+  const sql = buildAggregateSql(q, threshold, { places, pointsCap: options.pointsCap === undefined ? POINTS_CAP : options.pointsCap });
+  const [[a], terms] = await Promise.all([
+    pgRows<AggregateAnswer>(sql.text, sql.values),
+    db().query<{ code: string; label: string }>('SELECT code, label FROM condition_terms', { type: QueryTypes.SELECT }),
+  ]);
+  const codeKey = (k0: string | null, k1: string | null) => `${k0 ?? ''}\u0000${k1 ?? ''}`;
+  const identity = new Map<string, ReturnType<typeof groupIdentity>>();
+  const keyOf = (k0: string | null, k1: string | null) => {
+    const ck = codeKey(k0, k1);
+    let id = identity.get(ck);
+    if (!id) {
+      const parts = q.groupBy.map((code, i) => valueOfCode(q, code, i === 0 ? k0 : k1, a!.medians?.[i] ?? null));
+      id = groupIdentity(q, parts);
+      identity.set(ck, id);
+    }
+    return id.key;
+  };
+  type Dist = CohortResult['fading'][number]['deltaEPerYear'];
+  const dist = ([n, min, max, qs]: [number, number | null, number | null, (number | null)[] | null]): Dist =>
+    ({ n, min, max, q1: qs?.[0] ?? null, median: qs?.[1] ?? null, q3: qs?.[2] ?? null, points: [] });
+  const groups = (a!.groups ?? []).map(([k0, k1, size, withRate, withSurvival, reports, de, dl]) => {
+    keyOf(k0, k1);
+    const id = identity.get(codeKey(k0, k1))!;
+    return { ...id, size, withRate, withSurvival, reports, de: dist(de), dl: dist(dl), obs: [] as SurvivalObs[], terms: new Map<string, number>() };
+  }).sort((x, y) => y.size - x.size || x.label.localeCompare(y.label));
+  const byKey = new Map(groups.map((g) => [g.key, g]));
+  for (const [k0, k1, metric, printId, accessionNumber, value] of a!.points ?? []) {
+    const g = byKey.get(keyOf(k0, k1))!;
+    (metric === 'de' ? g.de : g.dl).points.push({ printId, accessionNumber, value });
+  }
+  for (const [k0, k1, time, event, count] of a!.survival ?? []) byKey.get(keyOf(k0, k1))!.obs.push({ time, event, count });
+  for (const [k0, k1, term, n] of a!.terms ?? []) byKey.get(keyOf(k0, k1))!.terms.set(term, n);
+  const coxRows: CoxObs[] = [];
+  for (const [x, time, event, n] of a!.cox ?? []) for (let i = 0; i < n; i += 1) coxRows.push({ time, event, x });
   const survival = survivalFigures(q, groups);
   survival.eventLabel = survival.eventLabel.replace('the noticeable threshold', String(threshold));
   return {
     query: q,
-    total: rows[0]?.cohort_total ?? 0,
-    groups: groups.map((g) => ({
-      key: g.key, label: g.label, values: g.values, size: g.rows.reduce((n, r) => n + r.weight, 0),
-      withRate: g.rows.filter((r) => r.de_per_year !== null).length,
-      withSurvival: g.rows.filter((r) => r.time !== null).length,
-    })),
-    fading: fadingFigures(groups),
+    total: a!.total,
+    groups: groups.map((g) => ({ key: g.key, label: g.label, values: g.values, size: g.size, withRate: g.withRate, withSurvival: g.withSurvival })),
+    fading: groups.map((g) => ({ key: g.key, deltaEPerYear: g.de, densityLossPerYear: g.dl })),
     survival,
-    cox: coxFigures(q, rows),
-    incidence: incidenceFigures(groups, new Map(terms.map((t) => [t.code, t.label]))),
-    outcomesAsOf: asOf !== null ? new Date(asOf * 1000).toISOString() : null,
+    cox: coxFigures(q, coxRows),
+    incidence: incidenceFigures(groups.map((g) => ({ key: g.key, seen: g.reports, counts: g.terms })), new Map(terms.map((t) => [t.code, t.label]))),
+    outcomesAsOf: a!.as_of !== null ? new Date(a!.as_of * 1000).toISOString() : null,
   };
 }
 

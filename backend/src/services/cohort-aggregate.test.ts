@@ -1,0 +1,64 @@
+import { afterAll, describe, expect, it } from 'vitest';
+import { describe as summarise } from '@toneledger/common/domain/distribution';
+import { testApp } from '../../test/app';
+import { pickEvenly } from './cohort-aggregate';
+import { pgRows } from './print-list.service';
+
+// The aggregated cohort statement computes quartiles with PostgreSQL's percentile_cont and picks the
+// strip-plot points by rank in SQL; both are checked here against the JS rules they replace.
+const t = testApp();
+afterAll(() => t.close());
+
+/** A fixed, irregular list (a linear congruential sequence, so the test needs no random seed). */
+const values = (n: number): number[] => {
+  const out: number[] = [];
+  let x = 12345;
+  for (let i = 0; i < n; i += 1) { x = (x * 1103515245 + 12345) % 2147483648; out.push(Math.round((x / 2147483648) * 1e6) / 1e4); }
+  return out;
+};
+
+describe('percentile_cont', () => {
+  it('gives the quartiles of describe (R type 7, Hyndman & Fan 1996), including ties and small n', async () => {
+    // Hyndman & Fan's type 7 is linear interpolation at h = (n − 1)·p, which is PostgreSQL's documented
+    // percentile_cont ("interpolating between adjacent input items if needed").
+    const lists = [[7], [1, 2], [3, 1, 2, 4], [1, 1, 1, 5, 9, 9], values(11), values(1001)];
+    // A value worked by hand: 1, 2, 3, 4 → h = 3·0.25 = 0.75 → 1 + 0.75·(2 − 1) = 1.75; median 2.5; q3 3.25.
+    expect(summarise([3, 1, 2, 4])).toMatchObject({ q1: 1.75, median: 2.5, q3: 3.25 });
+    for (const list of lists) {
+      const [row] = await pgRows<{ q: number[]; lo: number; hi: number }>(
+        'SELECT percentile_cont(ARRAY[0.25, 0.5, 0.75]) WITHIN GROUP (ORDER BY v) AS q, min(v) AS lo, max(v) AS hi FROM unnest($1::float8[]) AS v', [list]);
+      const d = summarise(list);
+      expect(row!.q[0]).toBeCloseTo(d.q1!, 12);
+      expect(row!.q[1]).toBeCloseTo(d.median!, 12);
+      expect(row!.q[2]).toBeCloseTo(d.q3!, 12);
+      expect([row!.lo, row!.hi]).toEqual([d.min, d.max]);
+    }
+  });
+});
+
+describe('the strip-plot points', () => {
+  const picked = async (n: number, cap: number) => (await pgRows<{ rn: string }>(
+    `SELECT rn FROM generate_series(1, $1::int) AS rn WHERE ${pickEvenly('rn', '$1::int', '$2::int')} ORDER BY rn`, [n, cap])).map((r) => Number(r.rn));
+
+  it('keeps every print up to the cap', async () => {
+    expect(await picked(7, 10)).toEqual([1, 2, 3, 4, 5, 6, 7]);
+    expect(await picked(10, 10)).toHaveLength(10);
+  });
+
+  it('keeps exactly `cap` ranks, evenly spaced, from the lowest to the highest', async () => {
+    // 11 of 5: ranks 1 + round(k·10/4) for k = 0..4 = 1, 4 (2.5 rounds up), 6, 9 (7.5 up), 11 [by hand].
+    expect(await picked(11, 5)).toEqual([1, 4, 6, 9, 11]);
+    for (const [n, cap] of [[1001, 500], [200000, 500], [501, 500]] as const) {
+      const ranks = await picked(n, cap);
+      expect(ranks).toHaveLength(cap);
+      expect(ranks[0]).toBe(1);
+      expect(ranks.at(-1)).toBe(n);
+      // Each gap is the even step (n − 1)/(cap − 1) rounded one way or the other.
+      const step = (n - 1) / (cap - 1);
+      for (let i = 1; i < ranks.length; i += 1) {
+        expect(ranks[i]! - ranks[i - 1]!).toBeGreaterThanOrEqual(Math.floor(step));
+        expect(ranks[i]! - ranks[i - 1]!).toBeLessThanOrEqual(Math.ceil(step));
+      }
+    }
+  });
+});

@@ -1,0 +1,101 @@
+import { COHORT_FACTORS, type CohortFactorCode } from '@toneledger/common/fields/cohort';
+import type { CohortQuery } from '@toneledger/common/schemas/research';
+import { cohortBase, type CohortSql } from './cohort-sql';
+
+/**
+ * The figures' statement: the cohort grouped in SQL, so a few thousand rows leave the database instead
+ * of one per print. It answers one row of JSON:
+ *
+ * - `groups`: per group (its codes k0, k1) the size, prints with a rate, with survival, with a signed
+ *   report, and each fading rate's n, min, max and quartiles by `percentile_cont` (linear interpolation
+ *   at (n − 1)·p, R's type 7, the rule of `describe`; checked in `cohort-aggregate.test.ts`);
+ * - `points`: per group and rate at most `pointsCap` prints, evenly spaced by rank (`PICK_EVENLY`),
+ *   so a strip plot of 200,000 prints keeps its shape; every print when the cap is null (the export);
+ * - `survival`: (group, time, event, count) rows for the Kaplan–Meier curves and the log-rank test;
+ * - `terms`: per group and term the prints with a signed report showing it;
+ * - `cox`: (Cox values, time, event, count) per covariate pattern, one per print;
+ * - `total`, `asOf` (the oldest `computed_at`) and the medians of number factors split at the median.
+ *
+ * A group's code comes from the raw value the same way `makeGrouping` labels it: bands by
+ * `width_bucket` over the cut points, the median split against `percentile_cont(0.5)` of the cohort's
+ * rows, the date made by decade, a place by the name of the child of the filtered place it lies under.
+ */
+
+/** Keeps a row of rank `rn` (1-based) of `n` when it is one of `cap` ranks evenly spaced from the first to the last. */
+export const pickEvenly = (rn: string, n: string, cap: string) =>
+  `(${n} <= ${cap} OR (${rn} - 1) = round(round((${rn} - 1) * (${cap} - 1)::numeric / (${n} - 1)) * (${n} - 1) / (${cap} - 1)::numeric))`;
+
+export interface AggregateOptions {
+  /** Location id → the name of the place under the filter it lies in (`placeGroups`). */
+  places: Map<string, string>;
+  /** Points per group and rate; null for every print. */
+  pointsCap: number | null;
+}
+
+export function buildAggregateSql(q: CohortQuery, threshold: number, options: AggregateOptions): CohortSql {
+  const { head, c, values, bind } = cohortBase(q, threshold);
+  const code = (i: 0 | 1, factor: CohortFactorCode | undefined): string => {
+    const g = `c.g${i}`;
+    if (!factor) return 'NULL::text';
+    const kind = COHORT_FACTORS[factor].kind;
+    if (kind === 'number') {
+      const cuts = q.bands?.[factor];
+      if (cuts) return `width_bucket(${g}::float8, ${bind(cuts, 'float8[]')})::text`;
+      return `CASE WHEN ${g} IS NULL OR m.g${i} IS NULL THEN NULL WHEN ${g}::float8 < m.g${i} THEN 'below' ELSE 'above' END`;
+    }
+    if (kind === 'year') return `(floor(${g}::float8 / 10) * 10)::int::text`;
+    if (kind === 'place') {
+      const ids = [...options.places.keys()];
+      return `(${bind(ids.map((id) => options.places.get(id)), 'text[]')})[array_position(${bind(ids, 'uuid[]')}, ${g}::uuid)]`;
+    }
+    if (kind === 'flag') return `coalesce(${g}, 'unknown')`;
+    return g;
+  };
+  const k0 = code(0, q.groupBy[0]);
+  const k1 = code(1, q.groupBy[1]);
+  const med = `m AS (SELECT ${q.groupBy.map((f, i) => (COHORT_FACTORS[f].kind === 'number' && !q.bands?.[f] ? `(SELECT percentile_cont(0.5) WITHIN GROUP (ORDER BY g${i}::float8) FROM c)` : 'NULL::float8') + ` AS g${i}`).concat(q.groupBy.length < 1 ? ['NULL::float8 AS g0'] : [], q.groupBy.length < 2 ? ['NULL::float8 AS g1'] : []).join(', ')})`;
+  const cap = options.pointsCap === null ? 'NULL' : bind(options.pointsCap, 'int');
+  const pts = (col: string, metric: string) => `SELECT k0, k1, '${metric}' AS metric, id, accession_number, ${col} AS v,
+           row_number() OVER (PARTITION BY k0, k1 ORDER BY ${col}, id) AS rn, count(*) OVER (PARTITION BY k0, k1) AS n
+      FROM k WHERE ${col} IS NOT NULL`;
+  const keep = options.pointsCap === null ? 'true' : pickEvenly('rn', 'n', cap);
+  const cox = q.coxFactors.length
+    ? `(SELECT json_agg(json_build_array(x, time, event, n)) FROM (SELECT x, time, event, count(DISTINCT id)::int AS n FROM c WHERE time IS NOT NULL GROUP BY x, time, event) x)`
+    : 'NULL::json';
+  const text = `${head}c AS MATERIALIZED (${c}),
+${med},
+k AS MATERIALIZED (SELECT c.*, ${k0} AS k0, ${k1} AS k1 FROM c CROSS JOIN m)
+SELECT (SELECT count(DISTINCT id) FROM c)::int AS total,
+       (SELECT min(computed_at) FROM c) AS as_of,
+       (SELECT json_build_array(g0, g1) FROM m) AS medians,
+       (SELECT json_agg(json_build_array(k0, k1, size, with_rate, with_survival, reports, de, dl)) FROM (
+          SELECT k0, k1, count(*)::int AS size, count(de_per_year)::int AS with_rate, count(time)::int AS with_survival,
+                 (count(*) FILTER (WHERE has_report))::int AS reports,
+                 json_build_array(count(de_per_year), min(de_per_year), max(de_per_year), percentile_cont(ARRAY[0.25, 0.5, 0.75]) WITHIN GROUP (ORDER BY de_per_year)) AS de,
+                 json_build_array(count(density_loss_per_year), min(density_loss_per_year), max(density_loss_per_year), percentile_cont(ARRAY[0.25, 0.5, 0.75]) WITHIN GROUP (ORDER BY density_loss_per_year)) AS dl
+            FROM k GROUP BY k0, k1) g) AS groups,
+       (SELECT json_agg(json_build_array(k0, k1, metric, id, accession_number, v) ORDER BY metric, k0, k1, rn) FROM (
+          ${pts('de_per_year', 'de')}
+          UNION ALL
+          ${pts('density_loss_per_year', 'dl')}) p WHERE ${keep}) AS points,
+       (SELECT json_agg(json_build_array(k0, k1, time, event, n)) FROM (
+          SELECT k0, k1, time, event, count(*)::int AS n FROM k WHERE time IS NOT NULL GROUP BY k0, k1, time, event) s) AS survival,
+       (SELECT json_agg(json_build_array(k0, k1, term, n)) FROM (
+          SELECT k0, k1, term, count(*)::int AS n FROM k CROSS JOIN LATERAL unnest(terms) AS term WHERE has_report GROUP BY k0, k1, term) t) AS terms,
+       ${cox} AS cox`;
+  return { text, values };
+}
+
+type Num = number | null;
+/** One group's row of the answer: codes, size, with rate, with survival, with a report, and [n, min, max, [q1, median, q3]] per rate. */
+export type AggregateGroup = [string | null, string | null, number, number, number, number, [number, Num, Num, Num[] | null], [number, Num, Num, Num[] | null]];
+export interface AggregateAnswer {
+  total: number;
+  as_of: number | null;
+  medians: [Num, Num] | null;
+  groups: AggregateGroup[] | null;
+  points: [string | null, string | null, 'de' | 'dl', string, string, number][] | null;
+  survival: [string | null, string | null, number, boolean, number][] | null;
+  terms: [string | null, string | null, string, number][] | null;
+  cox: [(string | null)[] | null, number, boolean, number][] | null;
+}
