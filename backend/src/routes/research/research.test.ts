@@ -39,6 +39,7 @@ beforeAll(async () => {
       ids[key] = p.id;
       await addStep(p.id, 1, 'development');
       await addStep(p.id, 2, 'after_bath', { alkaline });
+      await addStep(p.id, 3, 'washing', { timeSeconds: n * 5 * 60 }); // 5, 10, … 45 minutes
       await signedReport(p.id, START, 'good');
       await signedReport(p.id, on, event ? 'fair' : 'good', event ? ['silver_mirroring'] : []);
     }
@@ -135,6 +136,25 @@ describe('cohort query', () => {
     const higher = await run(inPlace({ event: { kind: 'fading', thresholdDeltaE: 3 } }));
     expect(higher.survival.groups[0].steps).toEqual([expect.objectContaining({ t: expect.closeTo(years(START, '2014-06-01'), 10), events: 0, censored: 1 })]);
     expect(higher.outcomesAsOf).not.toBeNull();
+  });
+
+  it('a number factor by the median split and by bands: the groups the prints behind them have', async () => {
+    // Washing 5, 10, … 45 minutes for the nine prints, none for z1. Median (R type 7 of 9 values: the
+    // 5th) 25 → 4 below, 5 at or above; bands at 12 and 30 → 5, 10 | 15, 20, 25 | 30 … 45 [by hand].
+    const split = await run(inPlace({ groupBy: ['washingMinutes'] }));
+    expect(split.groups.map((g: { label: string; size: number }) => [g.label, g.size])).toEqual([
+      ['Washing time: the median (25) or above', 5], ['Washing time: below the median (25)', 4], ['Washing time: none', 1],
+    ]);
+    const banded = await run(inPlace({ groupBy: ['washingMinutes'], bands: { washingMinutes: [12, 30] } }));
+    const sizes = Object.fromEntries(banded.groups.map((g: { key: string; size: number }) => [g.key, g.size]));
+    expect(sizes).toEqual({ 'washingMinutes=< 12': 2, 'washingMinutes=12–30': 3, 'washingMinutes=≥ 30': 4, 'washingMinutes=none': 1 });
+    // The keys are the ones the prints behind a figure are asked by (grouped there from each print's value).
+    for (const [query, r] of [[inPlace({ groupBy: ['washingMinutes'] }), split], [inPlace({ groupBy: ['washingMinutes'], bands: { washingMinutes: [12, 30] } }), banded]] as const) {
+      for (const g of r.groups as { key: string; size: number }[]) {
+        const res = await api('researcher').post('/api/research/cohort/prints', { query, groupKey: g.key });
+        expect(res.body.pagination.total, g.key).toBe(g.size);
+      }
+    }
   });
 
   it('the prints behind a figure: the events of a group, and those at risk at a time', async () => {
