@@ -60,6 +60,7 @@ function Plot({ metric, result, labelOf, onShow, width }: { metric: (typeof METR
       ) : (
         <p className="text-sm text-ink-600">No print in these groups has a fading rate yet.</p>
       )}
+      {rows.some((r) => r.d.points.length < r.d.n) ? <p className="text-xs text-ink-600">Points: {rows.map((r) => `${labelOf(r.key)} ${r.d.points.length} of ${r.d.n.toLocaleString('en-GB')} shown`).join('; ')} (evenly spaced by rank; the figures count every print).</p> : null}
       <table className="w-full text-sm" aria-label={`${metric.title}: figures per group`}>
         <thead>
           <tr className="text-left text-xs text-ink-700 uppercase">

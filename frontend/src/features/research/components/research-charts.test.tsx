@@ -30,4 +30,15 @@ describe('research charts', () => {
     expect(container.querySelectorAll('.recharts-reference-line').length).toBe(4);
     expect(container.querySelectorAll('.recharts-scatter-symbol').length).toBe(2 * (5 + 4));
   });
+
+  it('says how many points are shown when the answer carries fewer points than prints', () => {
+    // Every point is shown in the fixture: no note.
+    const full = renderPage(<FadingPlots result={result} labelOf={labelOf} onShow={vi.fn()} width={640} />, { me: makeMe('researcher') });
+    expect(full.queryAllByText(/shown/)).toHaveLength(0);
+    full.unmount();
+    // The server caps the points per group (evenly spaced by rank); n still counts every print.
+    const capped = { ...result, fading: result.fading.map((f, i) => (i === 0 ? { ...f, deltaEPerYear: { ...f.deltaEPerYear, n: 1200, points: f.deltaEPerYear.points.slice(0, 3) } } : f)) };
+    const view = renderPage(<FadingPlots result={capped} labelOf={labelOf} onShow={vi.fn()} width={640} />, { me: makeMe('researcher') });
+    expect(view.getByText(new RegExp(`${labelOf(result.fading[0]!.key)} 3 of 1,200 shown`))).toBeTruthy();
+  });
 });
