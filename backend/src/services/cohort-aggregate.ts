@@ -33,7 +33,7 @@ export interface AggregateOptions {
 }
 
 export function buildAggregateSql(q: CohortQuery, threshold: number, options: AggregateOptions): CohortSql {
-  const { head, c, values, bind } = cohortBase(q, threshold);
+  const { head, c, values, bind } = cohortBase(q, threshold, { narrow: true });
   const code = (i: 0 | 1, factor: CohortFactorCode | undefined): string => {
     const g = `c.g${i}`;
     if (!factor) return 'NULL::text';
@@ -55,7 +55,8 @@ export function buildAggregateSql(q: CohortQuery, threshold: number, options: Ag
   const k1 = code(1, q.groupBy[1]);
   const med = `m AS (SELECT ${q.groupBy.map((f, i) => (COHORT_FACTORS[f].kind === 'number' && !q.bands?.[f] ? `(SELECT percentile_cont(0.5) WITHIN GROUP (ORDER BY g${i}::float8) FROM c)` : 'NULL::float8') + ` AS g${i}`).concat(q.groupBy.length < 1 ? ['NULL::float8 AS g0'] : [], q.groupBy.length < 2 ? ['NULL::float8 AS g1'] : []).join(', ')})`;
   const cap = options.pointsCap === null ? 'NULL' : bind(options.pointsCap, 'int');
-  const pts = (col: string, metric: string) => `SELECT k0, k1, '${metric}' AS metric, id, accession_number, ${col} AS v,
+  // Ranked on the narrow columns; the accession numbers are read for the kept points only.
+  const pts = (col: string, metric: string) => `SELECT k0, k1, '${metric}' AS metric, id, ${col} AS v,
            row_number() OVER (PARTITION BY k0, k1 ORDER BY ${col}, id) AS rn, count(*) OVER (PARTITION BY k0, k1) AS n
       FROM k WHERE ${col} IS NOT NULL`;
   const keep = options.pointsCap === null ? 'true' : pickEvenly('rn', 'n', cap);
@@ -74,7 +75,7 @@ SELECT (SELECT count(DISTINCT id) FROM c)::int AS total,
                  json_build_array(count(de_per_year), min(de_per_year), max(de_per_year), percentile_cont(ARRAY[0.25, 0.5, 0.75]) WITHIN GROUP (ORDER BY de_per_year)) AS de,
                  json_build_array(count(density_loss_per_year), min(density_loss_per_year), max(density_loss_per_year), percentile_cont(ARRAY[0.25, 0.5, 0.75]) WITHIN GROUP (ORDER BY density_loss_per_year)) AS dl
             FROM k GROUP BY k0, k1) g) AS groups,
-       (SELECT json_agg(json_build_array(k0, k1, metric, id, accession_number, v) ORDER BY metric, k0, k1, rn) FROM (
+       (SELECT json_agg(json_build_array(k0, k1, metric, id, (SELECT pr.accession_number FROM prints pr WHERE pr.id = p.id), v) ORDER BY metric, k0, k1, rn) FROM (
           ${pts('de_per_year', 'de')}
           UNION ALL
           ${pts('density_loss_per_year', 'dl')}) p WHERE ${keep}) AS points,

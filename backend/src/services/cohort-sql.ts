@@ -64,8 +64,15 @@ const STEP_SQL: Record<StepColumn, string> = {
   alk_unknown: "coalesce(bool_or(s.alkaline IS NULL) FILTER (WHERE s.type = 'after_bath'), false) AS alk_unknown",
 };
 
-function stepsJoin(columns: Set<StepColumn>): string {
-  return `LEFT JOIN LATERAL (SELECT ${[...columns].map((c) => STEP_SQL[c]).join(', ')} FROM process_steps s WHERE s.print_id = p.id) st ON true`;
+/**
+ * The step aggregates: per print through the index when the query filters (a small cohort), else all
+ * prints' steps aggregated at once and hash-joined (200,000 index probes cost several seconds). A print
+ * without steps has n = 0 one way and no row (nulls) the other: every factor reads both as "unknown"/null.
+ */
+function stepsJoin(columns: Set<StepColumn>, whole: boolean): string {
+  const cols = [...columns].map((c) => STEP_SQL[c]).join(', ');
+  if (whole) return `LEFT JOIN (SELECT s.print_id, ${cols} FROM process_steps s GROUP BY s.print_id) st ON st.print_id = p.id`;
+  return `LEFT JOIN LATERAL (SELECT ${cols} FROM process_steps s WHERE s.print_id = p.id) st ON true`;
 }
 
 export const GRADE_COLUMN = { good: 'o.good_on', fair: 'o.fair_on', poor: 'o.poor_on', unacceptable: 'o.unacceptable_on' } as const;
@@ -104,9 +111,9 @@ export interface CohortBase { head: string; c: string; values: unknown[]; bind: 
 
 /**
  * The cohort CTE for a query. `threshold` is the ΔE00 for the fading event (the query's or the
- * settings'). Further binds may be added through `bind` by the caller.
+ * settings'). Further binds may be added through `bind` by the caller. `narrow` leaves out the accession number and title.
  */
-export function cohortBase(q: CohortQuery, threshold: number): CohortBase {
+export function cohortBase(q: CohortQuery, threshold: number, options: { narrow?: boolean } = {}): CohortBase {
   const values: unknown[] = [];
   const bind = (v: unknown, cast: string) => { values.push(v); return `$${values.length}::${cast}`; };
   const needs = new Set<Need>(['outcomes']);
@@ -155,8 +162,9 @@ export function cohortBase(q: CohortQuery, threshold: number): CohortBase {
   }
   const cox = q.coxFactors.length ? `ARRAY[${q.coxFactors.map((c) => `(${FACTOR_SQL[c].expr})::text`).join(', ')}]` : 'NULL::text[]';
 
-  const joins = (['paper', 'enclosure', 'outcomes', 'steps'] as Need[]).filter((n) => needs.has(n)).map((n) => (n === 'steps' ? stepsJoin(stepColumns) : JOINS[n])).join('\n');
-  const inner = `SELECT p.id, p.accession_number, p.accession_sort, p.title,
+  const joins = (['paper', 'enclosure', 'outcomes', 'steps'] as Need[]).filter((n) => needs.has(n)).map((n) => (n === 'steps' ? stepsJoin(stepColumns, !q.filters.length) : JOINS[n])).join('\n');
+  // Narrow: without the print's accession number and title (the figures read them for a few prints only).
+  const inner = `SELECT p.id, ${options.narrow ? '' : 'p.accession_number, p.accession_sort, p.title,'}
                (${groupExpr(q.groupBy[0])})::text AS g0, (${groupExpr(q.groupBy[1])})::text AS g1, ${cox} AS x,
                o.de_per_year, o.density_loss_per_year,
                ${origin} AS origin_on, coalesce(ev.on_, ${censorOn}) AS end_on, ev.on_ AS event_on,
@@ -165,9 +173,9 @@ export function cohortBase(q: CohortQuery, threshold: number): CohortBase {
           FROM prints p
           ${joins}
           ${tonerGroup ? "CROSS JOIN LATERAL unnest(CASE WHEN cardinality(p.toner_classes) = 0 THEN ARRAY[NULL::text] ELSE p.toner_classes END) AS tc(v)" : ''}
-          LEFT JOIN LATERAL (SELECT ${eventOn} AS on_) ev ON true
+          LEFT JOIN LATERAL (SELECT ${eventOn} AS on_ OFFSET 0) ev ON true
          ${where.length ? `WHERE ${where.join('\n           AND ')}` : ''}`;
-  const columns = `id, accession_number, accession_sort, title, g0, g1, x, de_per_year, density_loss_per_year,
+  const columns = `id, ${options.narrow ? '' : 'accession_number, accession_sort, title,'} g0, g1, x, de_per_year, density_loss_per_year,
        CASE WHEN origin_on IS NOT NULL AND end_on > origin_on THEN ((end_on - origin_on) / 365.25)::float8 END AS time,
        CASE WHEN origin_on IS NOT NULL AND end_on > origin_on THEN event_on IS NOT NULL END AS event,
        terms, has_report, computed_at`;

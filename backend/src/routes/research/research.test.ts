@@ -157,6 +157,20 @@ describe('cohort query', () => {
     }
   });
 
+  it('without a filter (process steps aggregated for every print at once) the prints fall in the same groups as under one', async () => {
+    const keyOf = new Map<string, string>();
+    for (let page = 1; ; page += 1) {
+      const res = await api('researcher').post('/api/research/cohort/prints', { query: { groupBy: ['alkalineAfterBath'] }, page, pageSize: 200 });
+      expect(res.status, JSON.stringify(res.body)).toBe(200);
+      for (const p of res.body.data as { printId: string; group: string }[]) keyOf.set(p.printId, p.group);
+      if (page * 200 >= res.body.pagination.total) break;
+    }
+    for (const k of ['y1', 'y2', 'y3', 'y4']) expect(keyOf.get(ids[k]!), k).toBe('alkalineAfterBath=yes');
+    for (const k of ['n1', 'n2', 'n3', 'n4', 'n5']) expect(keyOf.get(ids[k]!), k).toBe('alkalineAfterBath=no');
+    // z1 has no process steps at all: unknown, as under the place filter.
+    expect(keyOf.get(ids.z1!)).toBe('alkalineAfterBath=unknown');
+  });
+
   it('the prints behind a figure: the events of a group, and those at risk at a time', async () => {
     const query = inPlace({ groupBy: ['alkalineAfterBath'], event: observationEvent });
     const res = await api('researcher').post('/api/research/cohort/prints', { query, groupKey: 'alkalineAfterBath=yes', which: 'events' });
