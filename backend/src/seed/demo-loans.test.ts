@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
-import pg from 'pg';
+import { onServer } from '../../test/scratch-database';
 
 /**
  * The demo's exhibitions and loans, seeded into a database of this test's own (created and
@@ -12,15 +12,6 @@ import pg from 'pg';
 const shared = process.env.DATABASE_URL!;
 const name = `toneledger_seed_loans_${process.pid}`;
 
-async function onServer(sql: string) {
-  const client = new pg.Client({ connectionString: shared });
-  await client.connect();
-  try {
-    await client.query(sql);
-  } finally {
-    await client.end();
-  }
-}
 
 type Modules = {
   db: typeof import('../db');

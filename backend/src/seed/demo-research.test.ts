@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { Readable } from 'node:stream';
-import pg from 'pg';
 import type { ObjectStore } from '@toneledger/storage/object-store';
+import { onServer } from '../../test/scratch-database';
 
 /**
  * What the demo gives a longevity study: the catalogue and its measurement histories, seeded into a
@@ -16,15 +16,6 @@ import type { ObjectStore } from '@toneledger/storage/object-store';
 const shared = process.env.DATABASE_URL!;
 const name = `toneledger_seed_research_${process.pid}`;
 
-async function onServer(sql: string) {
-  const client = new pg.Client({ connectionString: shared });
-  await client.connect();
-  try {
-    await client.query(sql);
-  } finally {
-    await client.end();
-  }
-}
 
 type Modules = {
   db: typeof import('../db');

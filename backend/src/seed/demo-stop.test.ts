@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
-import pg from 'pg';
+import { onServer } from '../../test/scratch-database';
 
 /**
  * Ctrl-C during the first start's demo seed: the seed stops at its next record, nothing of it
@@ -13,15 +13,6 @@ import pg from 'pg';
 const shared = process.env.DATABASE_URL!;
 const names = { reference: `toneledger_seed_ref_${process.pid}`, stopped: `toneledger_seed_stop_${process.pid}` };
 
-async function onServer(sql: string) {
-  const client = new pg.Client({ connectionString: shared });
-  await client.connect();
-  try {
-    await client.query(sql);
-  } finally {
-    await client.end();
-  }
-}
 
 function urlOf(name: string) {
   const url = new URL(shared);

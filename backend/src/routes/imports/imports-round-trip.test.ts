@@ -1,9 +1,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import pg from 'pg';
 import supertest from 'supertest';
 import { parse } from 'csv-parse/sync';
 import type { Print } from '@toneledger/common/schemas/catalogue';
 import { testApp, sessionFor, type TestApp } from '../../../test/app';
+import { onServer } from '../../../test/scratch-database';
 
 /**
  * The acceptance test of the CSV design: the export of the demo catalogue (300 prints with their
@@ -18,15 +18,6 @@ let t: TestApp;
 let admin: string;
 let wipe: () => Promise<void>;
 
-async function onServer(sql: string) {
-  const client = new pg.Client({ connectionString: shared });
-  await client.connect();
-  try {
-    await client.query(sql);
-  } finally {
-    await client.end();
-  }
-}
 
 beforeAll(async () => {
   await onServer(`DROP DATABASE IF EXISTS ${name}`);
