@@ -8,25 +8,17 @@
  * Targets: a grouped fading-rate query and a two-group survival curve with its log-rank test under
  * 1 s each, a five-factor Cox model under 3 s.
  */
-import path from 'node:path';
 import os from 'node:os';
-import { fileURLToPath } from 'node:url';
-import pg from 'pg';
-import { startPostgres, type LocalPostgres } from './postgres';
+import { DEV_PG_PORT, openDevCluster } from './dev-cluster';
 import { startLocalServices } from './services';
 import type { CohortQueryIn } from '../common/src/schemas/research';
 
-const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const log = (m: string) => console.log(`[bench:research] ${m}`);
-const pgPort = Number(process.env.TONELEDGER_PG_PORT ?? 54329);
+const pgPort = DEV_PG_PORT;
 /** `--explain`: prints the plan of each scenario's statement (EXPLAIN ANALYZE) instead of timing it. */
 const EXPLAIN = process.argv.includes('--explain');
 const ONLY = process.argv.includes('--only') ? process.argv[process.argv.indexOf('--only') + 1] ?? '' : '';
 
-async function reachable(): Promise<boolean> {
-  const c = new pg.Client({ host: '127.0.0.1', port: pgPort, user: 'app', database: 'postgres', connectionTimeoutMillis: 1500 });
-  try { await c.connect(); await c.end(); return true; } catch { return false; }
-}
 
 const SCENARIOS: { name: string; query: CohortQueryIn; targetMs: number }[] = [
   { name: 'research, fading rates by toner class', query: { groupBy: ['tonerClass'], event: { kind: 'fading' } }, targetMs: 1000 },
@@ -36,13 +28,11 @@ const SCENARIOS: { name: string; query: CohortQueryIn; targetMs: number }[] = [
 
 const median = (xs: number[]) => { const s = [...xs].sort((a, b) => a - b); return s[Math.floor(s.length / 2)]!; };
 
-let cluster: LocalPostgres | null = null;
+let cluster: { stop(): Promise<void> } | null = null;
 const services = await startLocalServices('test', () => {});
 let code = 0;
 try {
-  if (!(await reachable())) {
-    cluster = await startPostgres({ baseDir: path.resolve(ROOT, process.env.TONELEDGER_DATA_DIR ?? '.data', 'pg'), port: pgPort, database: 'postgres', log, fallbackKey: 'dev' });
-  }
+  cluster = await openDevCluster(log);
   Object.assign(process.env, services.env, { DATABASE_URL: `postgres://app@127.0.0.1:${pgPort}/toneledger_scale`, LOG_LEVEL: 'warn' });
   const { db } = await import('../backend/src/db');
   const { migrateUp } = await import('../backend/src/migrate');

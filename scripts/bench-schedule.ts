@@ -5,34 +5,17 @@
  * in a few set-based statements, the model, one upsert). Prints the total, the rate, and one batch
  * split into loading, the model and the write. Run alone with `npm run bench -- --only schedule`.
  */
-import path from 'node:path';
-import { fileURLToPath } from 'node:url';
-import pg from 'pg';
-import { startPostgres, type LocalPostgres } from './postgres';
+import { DEV_PG_PORT, openDevCluster } from './dev-cluster';
 import { startLocalServices } from './services';
 
-const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const log = (m: string) => console.log(`[bench:schedule] ${m}`);
-const pgPort = Number(process.env.TONELEDGER_PG_PORT ?? 54329);
+const pgPort = DEV_PG_PORT;
 
-async function reachable(): Promise<boolean> {
-  const c = new pg.Client({ host: '127.0.0.1', port: pgPort, user: 'app', database: 'postgres', connectionTimeoutMillis: 1500 });
-  try {
-    await c.connect();
-    await c.end();
-    return true;
-  } catch {
-    return false;
-  }
-}
-
-let cluster: LocalPostgres | null = null;
+let cluster: { stop(): Promise<void> } | null = null;
 const services = await startLocalServices('test', () => {});
 let code = 0;
 try {
-  if (!(await reachable())) {
-    cluster = await startPostgres({ baseDir: path.resolve(ROOT, process.env.TONELEDGER_DATA_DIR ?? '.data', 'pg'), port: pgPort, database: 'postgres', log, fallbackKey: 'dev' });
-  }
+  cluster = await openDevCluster(log);
   Object.assign(process.env, services.env, { DATABASE_URL: `postgres://app@127.0.0.1:${pgPort}/toneledger_scale`, LOG_LEVEL: 'warn' });
   const { db } = await import('../backend/src/db');
   const { migrateUp } = await import('../backend/src/migrate');
