@@ -12,6 +12,7 @@ import { presentReport, presentTerm, type LoadedReport } from '../presenters/con
 import { recordAudit } from './audit.service';
 import { checkOffRounds } from './round.service';
 import { markScheduleStale } from './schedule-stale';
+import { assertPrintEditable } from './print-lock';
 import { changedFields, rethrowUnique, staleEdit } from './versioning';
 
 /** Who is acting: every condition write is attributed to a signed-in person. */
@@ -207,6 +208,7 @@ function observationRow(reportId: string, position: number, o: ObservationInput)
 export async function createReport(printId: string, input: ReportInput, actor: Actor, requestId: string | null) {
   return db().transaction(async (t) => {
     if ((await Print.count({ where: { id: printId }, transaction: t })) === 0) throw notFound('The print');
+    await assertPrintEditable(printId, t);
     const issues = [
       ...dateIssues(input.examinedOn, input.nextCheckOn ?? null), ...(await observationIssues(printId, input.observations, t)),
       ...(await loanIssues(printId, input.loanId, t)),
@@ -234,6 +236,7 @@ export async function createReport(printId: string, input: ReportInput, actor: A
 async function lockDraft(id: string, version: number, actor: Actor, t: Transaction): Promise<LoadedReport> {
   const row = await ConditionReport.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
   if (!row) throw notFound('The condition report');
+  await assertPrintEditable(row.printId, t);
   if (row.status === 'signed') throw conflict(LOCKED);
   if (row.examinerId !== actor.id) throw forbidden(NOT_AUTHOR);
   const loaded = await loadReport(id, t);
@@ -305,6 +308,7 @@ export async function addAddendum(id: string, text: string, actor: Actor, reques
   return db().transaction(async (t) => {
     const report = await ConditionReport.findByPk(id, { transaction: t });
     if (!report) throw notFound('The condition report');
+    await assertPrintEditable(report.printId, t);
     if (report.status !== 'signed') throw conflict('This report is still a draft; edit the draft instead.');
     const addendum = await Addendum.create({ reportId: id, authorId: actor.id, authorName: actor.name, text }, { transaction: t });
     await recordAudit(

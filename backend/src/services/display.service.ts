@@ -8,6 +8,7 @@ import { AppError, conflict, notFound, validationFailed } from '../errors';
 import type { FieldIssue } from '@toneledger/common/schemas/envelope';
 import { presentDisplay } from '../presenters/exhibition.presenter';
 import { recordAudit } from './audit.service';
+import { assertPrintEditable } from './print-lock';
 import { loadDisplays } from './display-rows';
 import { refreshLightWarnings } from './light.service';
 import type { Actor } from './print.service';
@@ -122,6 +123,7 @@ export async function createDisplay(exhibitionId: string, input: DisplayInput, a
           { path: 'printId', message: 'Refused for display', code: 'refused' },
         ]);
       }
+      await assertPrintEditable(input.printId, t);
       await checkValues(exhibitionId, values, t);
       await checkOverlap(input.printId, values.startsOn, values.endsOn, null, t);
       const d = await DisplayPeriod.create({ ...values, printId: input.printId, exhibitionId }, { transaction: t });
@@ -140,6 +142,7 @@ export async function createDisplay(exhibitionId: string, input: DisplayInput, a
 async function lockDisplay(id: string, version: number, t: Transaction): Promise<DisplayPeriod> {
   const d = await DisplayPeriod.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
   if (!d) throw notFound('The display period');
+  await assertPrintEditable(d.printId, t);
   if (d.version !== version) throw await staleEdit(ENTITY, id, await one(id, t), t);
   return d;
 }

@@ -10,6 +10,7 @@ import { conflict, notFound, validationFailed } from '../errors';
 import type { FieldIssue } from '@toneledger/common/schemas/envelope';
 import { presentExhibition } from '../presenters/exhibition.presenter';
 import { recordAudit } from './audit.service';
+import { assertPrintEditable, assertPrintsEditable } from './print-lock';
 import { todayIso } from './display-rows';
 import { exhibitionDetail } from './exhibition-detail.service';
 import { refreshLightWarnings } from './light.service';
@@ -166,6 +167,7 @@ export async function addObjects(id: string, input: ObjectsInput, actor: Actor, 
     })).map((r) => r.id));
     const issues: FieldIssue[] = input.printIds.flatMap((p, i) => (found.has(p) ? [] : [{ path: `printIds.${i}`, message: 'No such print', code: 'not_found' }]));
     if (issues.length) throw validationFailed(issues);
+    await assertPrintsEditable(input.printIds, t);
     const added = (await db().query<{ print_id: string }>(
       `INSERT INTO exhibition_objects (exhibition_id, print_id) SELECT $1, unnest($2::uuid[]) ON CONFLICT DO NOTHING RETURNING print_id`,
       { bind: [id, [...new Set(input.printIds)]], transaction: t, type: QueryTypes.SELECT },
@@ -181,6 +183,7 @@ export async function removeObject(id: string, printId: string, version: number,
     const e = await lockExhibition(id, version, t);
     const o = await ExhibitionObject.findOne({ where: { exhibitionId: id, printId }, transaction: t });
     if (!o) throw notFound('The print on this object list');
+    await assertPrintEditable(printId, t);
     const displays = await db().query(`SELECT id, to_char(starts_on, 'YYYY-MM-DD') AS starts_on, to_char(ends_on, 'YYYY-MM-DD') AS ends_on, lux::float8 AS lux
       FROM display_periods WHERE exhibition_id = $1 AND print_id = $2`, { bind: [id, printId], transaction: t, type: QueryTypes.SELECT });
     await ExhibitionObject.destroy({ where: { exhibitionId: id, printId }, transaction: t });
@@ -202,6 +205,7 @@ export async function decideObject(id: string, printId: string, input: ApprovalI
     await lockExhibition(id, null, t);
     const o = await ExhibitionObject.findOne({ where: { exhibitionId: id, printId }, transaction: t, lock: t.LOCK.UPDATE });
     if (!o) throw notFound('The print on this object list');
+    await assertPrintEditable(printId, t);
     if (input.decision === 'refused') {
       const [{ n }] = await db().query<{ n: number }>(`SELECT count(*)::int AS n FROM display_periods WHERE exhibition_id = $1 AND print_id = $2`, {
         bind: [id, printId], transaction: t, type: QueryTypes.SELECT,

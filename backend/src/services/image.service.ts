@@ -1,4 +1,5 @@
 import { createReadStream } from 'node:fs';
+import { assertPrintEditable } from './print-lock';
 import { mkdtemp, rm, stat } from 'node:fs/promises';
 import { randomUUID } from 'node:crypto';
 import os from 'node:os';
@@ -73,6 +74,7 @@ export async function storeImage(
 ): Promise<Image> {
   const print = await Print.findByPk(printId, { attributes: ['id', 'accessionNumber'] });
   if (!print) throw notFound('The print');
+  await assertPrintEditable(printId);
   const id = randomUUID();
   const key = keyFor(printId, id, 'original');
   // Storing and the full decode check (which renders the screen copy) run side by side; whichever fails, nothing is kept.
@@ -100,6 +102,7 @@ export async function storeImage(
   let image: Image;
   try {
     image = await db().transaction(async (t) => {
+      await assertPrintEditable(printId, t);
       const row = await Image.create(
         {
           id, printId, viewType: fields.viewType, capturedOn: fields.capturedOn ?? (exifSummary.capturedAt ? exifSummary.capturedAt.slice(0, 10) : null),
@@ -202,6 +205,7 @@ export async function updateImage(id: string, body: { viewType?: string; capture
   return db().transaction(async (t) => {
     const row = await Image.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
     if (!row || row.withdrawnAt) throw notFound('The image');
+    await assertPrintEditable(row.printId, t);
     if (row.version !== body.version) throw await staleEdit('image', id, presentImage(row, actor.role, null), t);
     const before = { viewType: row.viewType, capturedOn: row.capturedOn, notes: row.notes };
     const { version: _v, ...changes } = body;
@@ -225,6 +229,7 @@ export async function withdrawImage(
   return db().transaction(async (t) => {
     const row = await Image.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
     if (!row || row.withdrawnAt) throw notFound('The image');
+    await assertPrintEditable(row.printId, t);
     if (row.version !== body.version) throw await staleEdit('image', id, presentImage(row, actor.role, null), t);
     const purgeAfter = new Date(Date.now() + retentionDays * 86_400_000);
     await row.update({ withdrawnAt: new Date(), withdrawnByName: actor.name, withdrawnReason: body.reason, purgeAfter, version: row.version + 1 }, { transaction: t });
@@ -302,6 +307,7 @@ export async function saveAlignment(body: { baseImageId: string; otherImageId: s
   const [a, b] = await Promise.all([Image.findByPk(body.baseImageId), Image.findByPk(body.otherImageId)]);
   if (!a || !b) throw notFound('An image');
   if (a.printId !== b.printId) throw validationFailed([{ path: 'otherImageId', message: 'Both images must be of the same print', code: 'other_print' }]);
+  await assertPrintEditable(a.printId);
   const [row] = await ImageAlignment.upsert({ ...body, savedByName: actor.name, savedAt: new Date() } as never, { conflictFields: ['base_image_id', 'other_image_id'] as never });
   return { id: row.id, ...body, savedBy: actor.name, savedAt: new Date(row.savedAt ?? Date.now()).toISOString() };
 }

@@ -7,6 +7,7 @@ import type { Plan, PlannedRow } from './import-check.service';
 import { loadPrint, snapshot, stepRow, storeWarnings } from './print.service';
 import { recomputeCategories } from './light-settings.service';
 import { changedFields } from './versioning';
+import { assertPrintsEditable } from './print-lock';
 
 /**
  * Writing a checked plan inside the caller's transaction (all rows or none): new makers, new prints
@@ -102,6 +103,7 @@ export async function writePlan(plan: Plan, ctx: CommitContext, t: Transaction):
   const makers = await createMakers(plan, ctx, t);
   const creates = plan.rows.filter((r) => r.action === 'create');
   const updates = plan.rows.filter((r) => r.action === 'update');
+  await assertPrintsEditable(updates.map((r) => r.existing!.id), t);
   await createPrints(creates, makers, ctx, t);
   for (let i = 0; i < updates.length; i++) {
     await updatePrint(updates[i], makers, ctx, t);

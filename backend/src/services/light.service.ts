@@ -11,6 +11,7 @@ import { db } from '../db';
 import { notFound } from '../errors';
 import { presentDisplay } from '../presenters/exhibition.presenter';
 import { recordAudit } from './audit.service';
+import { assertPrintEditable } from './print-lock';
 import { loadDisplays, periodOf, todayIso, type DisplayRow } from './display-rows';
 import { getLightSettings, recomputeCategories } from './light-settings.service';
 import { printSpotChanges } from './measurement.service';
@@ -191,6 +192,7 @@ export async function overrideResponsivity(printId: string, body: OverrideInput,
   return db().transaction(async (t) => {
     const [p] = await lightPrints([printId], t, true);
     if (!p) throw notFound('The print');
+    await assertPrintEditable(printId, t);
     if (p.version !== body.version) throw await staleEdit('print', printId, await printLight(printId, undefined, t), t);
     const before = { lightResponsivityOverride: p.light_responsivity_override, reason: p.light_override_reason, lightResponsivity: p.light_responsivity };
     await db().query(

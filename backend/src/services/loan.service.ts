@@ -12,6 +12,7 @@ import { db } from '../db';
 import { conflict, notFound, validationFailed } from '../errors';
 import { Loan, LoanObject, LoanStatusChange } from '../models';
 import { conditionColumns, presentLoan, presentStatusChange } from '../presenters/loan.presenter';
+import { assertPrintEditable, assertPrintsEditable } from './print-lock';
 import { recordAudit } from './audit.service';
 import { blockersOf, displayApprovalsFor, overlappingLoans, REPORT_CONTEXT, signedReportsFor, spanOf } from './loan-rules';
 import { insertPrint, type Actor } from './print.service';
@@ -262,6 +263,7 @@ export async function setLoanObjects(id: string, body: z.infer<typeof loanObject
       if (!found.has(o.printId)) issues.push({ path: `objects.${i}.printId`, message: 'No such print', code: 'not_found' });
     });
     if (issues.length) throw validationFailed(issues);
+    await assertPrintsEditable(printIds, t);
     await refuseOverlaps(printIds, id, spanOf(loan), t, (printId) => [{ path: `objects.${seen.get(printId)}.printId`, printId }]);
     const before = await snapshot(id, t);
     const existing = new Map((await LoanObject.findAll({ where: { loanId: id }, transaction: t })).map((o) => [o.printId, o]));
@@ -292,6 +294,7 @@ export async function removeLoanObject(id: string, printId: string, version: num
   return db().transaction(async (t) => {
     const loan = await lockLoan(id, version, actor, t);
     refuseIfLeft(loan);
+    await assertPrintEditable(printId, t);
     const before = await snapshot(id, t);
     const n = await LoanObject.destroy({ where: { loanId: id, printId }, transaction: t });
     if (!n) throw notFound('The print on this loan');

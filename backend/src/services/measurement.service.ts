@@ -16,6 +16,7 @@ import {
 } from '../presenters/measurement.presenter';
 import { recordAudit } from './audit.service';
 import { markScheduleStale } from './schedule-stale';
+import { assertPrintEditable } from './print-lock';
 import { changedFields, rethrowUnique, staleEdit } from './versioning';
 
 /** Who is acting: every measurement write is attributed to a signed-in person. */
@@ -76,6 +77,7 @@ const DUPLICATE_SPOT = 'This print already has a spot with this name.';
 export async function createSpot(printId: string, input: SpotInput, actor: Actor, requestId: string | null) {
   return db().transaction(async (t) => {
     await requirePrint(printId, t);
+    await assertPrintEditable(printId, t);
     const issues = await pointIssues(printId, input.point, t);
     if (issues.length) throw validationFailed(issues);
     let spot: MeasurementSpot;
@@ -99,6 +101,7 @@ export async function createSpot(printId: string, input: SpotInput, actor: Actor
 async function lockSpot(id: string, version: number, t: Transaction): Promise<MeasurementSpot> {
   const spot = await MeasurementSpot.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
   if (!spot) throw notFound('The measurement spot');
+  await assertPrintEditable(spot.printId, t);
   if (spot.version !== version) throw await staleEdit(SPOT, id, presentSpot(spot), t);
   return spot;
 }
@@ -200,6 +203,7 @@ async function printSpots(printId: string, t?: Transaction) {
 export async function recordSession(printId: string, input: SessionInput, actor: Actor, requestId: string | null) {
   return db().transaction(async (t) => {
     await requirePrint(printId, t);
+    await assertPrintEditable(printId, t);
     const spots = await printSpots(printId, t);
     const ofPrint = new Set(spots.map((s) => s.id));
     const issues: FieldIssue[] = [];

@@ -13,6 +13,7 @@ import { changedFields, rethrowUnique, staleEdit } from './versioning';
 import { accessionSortKey, deriveDate, tonerClassesOf, warningsOf } from './print-derive';
 import { storeLightDerived } from './light.service';
 import { markScheduleStale } from './schedule-stale';
+import { assertPrintEditable } from './print-lock';
 import { paperLabel, presentMovement, presentPrint, type LoadedPrint } from '../presenters/catalogue.presenter';
 
 /** Who acts, as every write service takes it: for the audit trail, and the role that decides what the answer shows. */
@@ -124,6 +125,7 @@ export async function insertPrint(input: PrintInput, actor: Actor, requestId: st
 async function lockForEdit(id: string, version: number, t: Transaction, role: Role): Promise<LoadedPrint> {
   const row = await Print.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
   if (!row) throw notFound('The print');
+  await assertPrintEditable(row, t);
   const loaded = await loadPrint(id, t);
   if (row.version !== version) throw await staleEdit('print', id, presentPrint(loaded, role), t);
   return loaded;
@@ -151,6 +153,7 @@ export async function updatePrint(id: string, update: PrintUpdate, actor: Actor,
   });
 }
 
+const SET_BY_DEACCESSION = 'Deaccessioned is set by completing the print\'s deaccession record, which keeps the reason, the approval and the method.';
 const SET_BY_LOAN = 'On loan is set by the loan: a print goes on loan when its loan is dispatched and comes back when the loan is returned.';
 
 /**
@@ -158,6 +161,7 @@ const SET_BY_LOAN = 'On loan is set by the loan: a print goes on loan when its l
  * is on a loan out that has left (one marked on loan before loans were recorded can be cleared).
  */
 async function checkLoanStatus(id: string, from: string, to: string, t: Transaction) {
+  if (to === 'deaccessioned') throw validationFailed([{ path: 'status', message: SET_BY_DEACCESSION, code: 'set_by_deaccession' }]);
   if (to === 'on_loan') throw validationFailed([{ path: 'status', message: SET_BY_LOAN, code: 'set_by_loan' }]);
   if (from !== 'on_loan') return;
   const [away] = await db().query<{ n: number }>(
@@ -177,6 +181,7 @@ export async function moveForLoan(
 ) {
   const row = await Print.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
   if (!row) throw notFound('The print');
+  await assertPrintEditable(row, t);
   const before = await loadPrint(id, t);
   const to = await Location.findByPk(toLocationId, { transaction: t });
   if (!to) throw notFound('The location');

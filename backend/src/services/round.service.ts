@@ -6,6 +6,7 @@ import { db } from '../db';
 import { conflict, notFound, validationFailed } from '../errors';
 import { InspectionRound, InspectionRoundItem } from '../models';
 import { recordAudit } from './audit.service';
+import { assertPrintsEditable } from './print-lock';
 import type { Actor } from './print.service';
 import { roundDetail } from './round-detail.service';
 import { staleEdit } from './versioning';
@@ -63,6 +64,7 @@ export async function createRound(input: RoundInput, actor: Actor, requestId: st
     await checkAssignee(input.assigneeId, t);
     const printIds = [...new Set(input.printIds)];
     await checkPrints('printIds', input.printIds, t);
+    await assertPrintsEditable(input.printIds, t);
     const round = await InspectionRound.create(
       { title: input.title, plannedOn: input.plannedOn, assigneeId: input.assigneeId, notes: input.notes ?? null, createdBy: actor.id! },
       { transaction: t },
@@ -86,6 +88,7 @@ export async function updateRound(id: string, update: RoundUpdate, actor: Actor,
     }
     if (changes.assigneeId !== undefined) await checkAssignee(changes.assigneeId, t);
     await checkPrints('addPrintIds', addPrintIds, t);
+    await assertPrintsEditable(addPrintIds, t);
     const fields: Partial<InspectionRound> = {};
     for (const k of ['title', 'plannedOn', 'assigneeId', 'notes', 'status'] as const) {
       if (changes[k] !== undefined && changes[k] !== round[k]) (fields as Record<string, unknown>)[k] = changes[k];

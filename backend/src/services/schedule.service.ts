@@ -5,6 +5,7 @@ import type { PrintSchedule, RiskFactor, scheduleOverrideInputSchema } from '@to
 import { db } from '../db';
 import { notFound } from '../errors';
 import { recordAudit } from './audit.service';
+import { assertPrintEditable } from './print-lock';
 import { todayIso } from './display-rows';
 import type { Actor } from './print.service';
 import { loadRiskInputs } from './schedule-inputs';
@@ -127,6 +128,7 @@ export async function overrideSchedule(printId: string, body: OverrideInput, act
   return db().transaction(async (t) => {
     const row = await scheduleRow(printId, t, true);
     if (!row) throw notFound('The print');
+    await assertPrintEditable(printId, t);
     if (row.version !== body.version) throw await staleEdit('print_schedule', printId, presentSchedule(row), t);
     const reason = body.dueOn ? body.reason ?? null : null;
     await db().query(
