@@ -19,6 +19,7 @@ import { auditRoutes } from './routes/audit/audit.routes';
 import { devMailRoutes } from './routes/dev-mail/dev-mail.routes';
 import { systemRoutes } from './routes/system/system.routes';
 import { printsRoutes } from './routes/prints/prints.routes';
+import { bulkRoutes } from './routes/bulk/bulk.routes';
 import { referenceRoutes } from './routes/reference/reference.routes';
 import { settingsRoutes } from './routes/settings/settings.routes';
 import { importsRoutes } from './routes/imports/imports.routes';
@@ -44,6 +45,7 @@ export function allRoutes(deps: AppDeps): RouteDef[] {
     ...auditRoutes(),
     ...devMailRoutes(deps),
     ...printsRoutes(),
+    ...bulkRoutes(),
     ...referenceRoutes(),
     ...settingsRoutes(),
     ...importsRoutes(deps),

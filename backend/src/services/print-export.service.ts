@@ -14,7 +14,7 @@ import { toCsv, type CsvCell } from './csv-cells';
 const CHUNK = 2000;
 
 /** The ids of the filtered list, in its order, a chunk at a time. */
-async function* listedIds(query: PrintListQuery, role: Role | null): AsyncGenerator<string[]> {
+export async function* listedIds(query: PrintListQuery, role: Role | null): AsyncGenerator<string[]> {
   for (let page = 1; ; page++) {
     const sql = buildListSql({ ...query, page, pageSize: CHUNK }, role);
     const ids = (await db().query<{ id: string }>(sql.select, { bind: sql.params, type: QueryTypes.SELECT })).map((r) => r.id);
@@ -35,10 +35,15 @@ async function write(out: Writable, rows: CsvCell[][]) {
  * Text that a spreadsheet would run as a formula is written with a leading ' (csv-cells.ts).
  */
 export async function writePrintsCsv(query: PrintListQuery, role: Role | null, out: Writable): Promise<number> {
+  return writePrintRowsCsv(listedIds(query, role), role, out);
+}
+
+/** The same CSV for any ids, a chunk at a time, in the order given (a bulk action's selection). */
+export async function writePrintRowsCsv(chunks: AsyncIterable<string[]>, role: Role | null, out: Writable): Promise<number> {
   const fields = PRINT_FIELDS.filter((f) => mayRead(role, f));
   out.write(toCsv([fields.map((f) => f.column)]));
   let written = 0;
-  for await (const ids of listedIds(query, role)) {
+  for await (const ids of chunks) {
     const rows = await db().query<DbRow>(`${PRINT_ROWS_SQL} WHERE p.id = ANY($1)`, { bind: [ids], type: QueryTypes.SELECT });
     const byId = new Map(rows.map((r) => [r.id as string, r]));
     await write(out, ids.map((id) => fields.map((f) => exportCellInRow(f, byId.get(id)!))));

@@ -299,6 +299,9 @@ const HISTORY_SUMMARY: Record<string, string> = {
   'print.steps_replaced': 'Process history edited',
   'print.moved': 'Moved',
   'print.imported': 'Imported from CSV',
+  'print.rehoused': 'Rehoused',
+  'print.added_to_round': 'Added to an inspection round',
+  'print.added_to_exhibition': 'Added to an exhibition',
 };
 
 /** May the role read this key of a print's audit snapshot? Keys that are not fields of the table (steps) follow the record. */

@@ -1,5 +1,6 @@
 import type { Contract } from './endpoint';
 import { authApi } from './auth';
+import { bulkApi, savedSearchesApi } from './bulk';
 import { climateApi, climateSettingsApi } from './climate';
 import { conditionSettingsApi, conditionTermsApi, reportsApi } from './condition';
 import { devMailApi } from './dev-mail';
@@ -22,4 +23,5 @@ export const allContracts: Record<string, Contract> = {
   locationsApi, catalogueSettingsApi, imagesApi, fixityApi, conditionSettingsApi, conditionTermsApi, reportsApi, measurementSettingsApi,
   measurementsApi, exhibitionsApi, displaysApi, lightApi, lightSettingsApi, loansApi,
   climateApi, climateSettingsApi, scheduleApi, roundsApi, remindersApi, researchApi,
+  bulkApi, savedSearchesApi,
 };

@@ -50,7 +50,7 @@ export const printsApi = {
   }),
   move: endpoint({
     method: 'post', path: '/api/prints/:id/movements', summary: 'Moves a print and records from, to, when, who and why', tags: ['prints'],
-    access: 'catalogue.write', params: idParamsSchema, body: movementInputSchema, status: 201, idempotent: true, response: { description: 'The print', schema: printEnvelope },
+    access: 'prints.move', params: idParamsSchema, body: movementInputSchema, status: 201, idempotent: true, response: { description: 'The print', schema: printEnvelope },
   }),
   history: endpoint({
     method: 'get', path: '/api/prints/:id/history', summary: 'Every change to the print: who, when, before and after', tags: ['prints'],

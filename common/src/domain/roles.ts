@@ -26,6 +26,8 @@ export const PERMISSIONS = {
   'catalogue.read': ['admin', 'registrar', 'conservator', 'researcher', 'viewer'],
   'catalogue.read_restricted': ['admin', 'registrar', 'conservator', 'researcher'],
   'catalogue.write': ['admin', 'registrar'],
+  /** Moving prints and rehousing them (location and enclosure only): conservators too; every other catalogue field stays the registrar's. */
+  'prints.move': ['admin', 'registrar', 'conservator'],
   /** Insurance valuations of prints (amount and currency): on screen, in every export and in the history. */
   'valuation.read': ['admin', 'registrar'],
   'condition.read': ['admin', 'registrar', 'conservator', 'researcher'],
