@@ -24,6 +24,7 @@ import { referenceRoutes } from './routes/reference/reference.routes';
 import { settingsRoutes } from './routes/settings/settings.routes';
 import { importsRoutes } from './routes/imports/imports.routes';
 import { imagesRoutes } from './routes/images/images.routes';
+import { iiifRoutes } from './routes/iiif/iiif.routes';
 import { conditionRoutes } from './routes/condition/condition.routes';
 import { measurementsRoutes } from './routes/measurements/measurements.routes';
 import { exhibitionsRoutes } from './routes/exhibitions/exhibitions.routes';
@@ -50,6 +51,7 @@ export function allRoutes(deps: AppDeps): RouteDef[] {
     ...settingsRoutes(),
     ...importsRoutes(deps),
     ...imagesRoutes(deps),
+    ...iiifRoutes(deps),
     ...conditionRoutes(),
     ...measurementsRoutes(),
     ...exhibitionsRoutes(),

@@ -19,6 +19,7 @@ import { staleEdit } from './versioning';
 import { MAX_IMAGE_PIXELS, inspectImage, readExif, sha256Of, type ExifSummary, type ReceivedFile } from './image-ingest';
 import type { JobQueue } from '../jobs/queue';
 import { QUEUES } from '../jobs/queue';
+import { dropIiifCache } from './iiif-image.service';
 
 export const DERIVATIVES = { thumb: 320, screen: 1600 } as const;
 
@@ -296,6 +297,7 @@ export async function purgeWithdrawn(store: ObjectStore, retentionDays: number):
   const due = await Image.findAll({ where: { purgedAt: null, purgeAfter: { [Op.lt]: new Date() } } });
   for (const image of due) {
     for (const key of [image.originalKey, image.thumbKey, image.screenKey]) if (key) await store.delete(key);
+    await dropIiifCache(store, image.id);
     await image.update({ purgedAt: new Date() });
     await recordAudit({ actor: null, action: 'image.purged', entityType: 'image', entityId: image.id, before: { sha256: image.sha256, printId: image.printId }, after: { purgedAfterRetentionDays: retentionDays }, requestId: 'purge' });
   }

@@ -6,6 +6,7 @@ import { conditionSettingsApi, conditionTermsApi, reportsApi } from './condition
 import { devMailApi } from './dev-mail';
 import { displaysApi, exhibitionsApi } from './exhibitions';
 import { fixityApi, imagesApi } from './images';
+import { iiifApi } from './iiif';
 import { importsApi } from './imports';
 import { remindersApi, roundsApi, scheduleApi } from './inspections';
 import { lightApi, lightSettingsApi } from './light';
@@ -20,7 +21,7 @@ import { auditApi, meApi, usersApi } from './users';
 /** Every contract, by resource: the server must implement each endpoint here exactly once (a test checks it). */
 export const allContracts: Record<string, Contract> = {
   systemApi, authApi, meApi, usersApi, auditApi, devMailApi, printsApi, importsApi, makersApi, papersApi, recipesApi, enclosuresApi,
-  locationsApi, catalogueSettingsApi, imagesApi, fixityApi, conditionSettingsApi, conditionTermsApi, reportsApi, measurementSettingsApi,
+  locationsApi, catalogueSettingsApi, imagesApi, fixityApi, iiifApi, conditionSettingsApi, conditionTermsApi, reportsApi, measurementSettingsApi,
   measurementsApi, exhibitionsApi, displaysApi, lightApi, lightSettingsApi, loansApi,
   climateApi, climateSettingsApi, scheduleApi, roundsApi, remindersApi, researchApi,
   bulkApi, savedSearchesApi,
