@@ -69,7 +69,7 @@ describe('a registrar catalogues a print', () => {
     await page.getByLabel('Kind of step to add').selectOption('toning');
     await page.getByRole('button', { name: 'Add step' }).click();
     const step = page.getByRole('listitem', { name: /Step 1: Toning/ });
-    await step.getByLabel('Toner class').selectOption('iron_blue');
+    await step.getByLabel('Toner', { exact: true }).selectOption('iron_blue');
     await step.getByLabel('Recipe').selectOption({ label: `Iron blue single bath ${stamp}` });
     await step.getByLabel('Time (m:ss or seconds)').fill('4:00');
     await step.getByLabel('Extent').selectOption('full');

@@ -125,7 +125,7 @@ describe('a researcher compares iron blue on fibre with and without an alkaline 
     await form.locator('details[data-factor="support"] summary').click();
     await form.getByRole('group', { name: 'Support' }).getByLabel('Fibre-based (baryta)').check();
     await form.locator('details[data-factor="tonerClass"] summary').click();
-    await form.getByRole('group', { name: 'Toner class' }).getByLabel('Iron blue (Prussian blue)').check();
+    await form.getByRole('group', { name: 'Toner', exact: true }).getByLabel('Iron blue (Prussian blue)').check();
     await form.locator('details[data-factor="location"] summary').click();
     await form.getByLabel('Storage place (and everything inside it)').selectOption({ label: roomLabel });
     await form.getByLabel('Group by').selectOption('alkalineAfterBath');

@@ -141,9 +141,9 @@ const TONINGS: Record<string, { weight: number; steps: TStep[] }> = {
   selenium_gold_split: {
     weight: 4,
     steps: [
-      { type: 'toning', tonerClass: 'selenium', recipeKey: 'selenium', agent: 'Selenium toner with sulfite', dilution: '1+19', timeSeconds: 180, temperatureC: 20, extent: 'split' },
+      { type: 'toning', tonerClass: 'selenium', recipeKey: 'selenium', agent: 'Selenium toner with sulfite', dilution: '1+19', timeSeconds: 180, temperatureC: 20, extent: 'partial', notes: 'Split effect.' },
       { type: 'washing', agent: 'Running water', timeSeconds: 450, temperatureC: 20 },
-      { type: 'toning', tonerClass: 'gold', recipeKey: 'gold', agent: 'Gold thiocyanate toner', dilution: 'as mixed', timeSeconds: 480, temperatureC: 20, extent: 'split' },
+      { type: 'toning', tonerClass: 'gold', recipeKey: 'gold', agent: 'Gold thiocyanate toner', dilution: 'as mixed', timeSeconds: 480, temperatureC: 20, extent: 'partial', notes: 'Split effect.' },
     ],
   },
   sepia_blue_split: {
@@ -151,7 +151,7 @@ const TONINGS: Record<string, { weight: number; steps: TStep[] }> = {
     steps: [
       { type: 'toning', tonerClass: 'sulfide', recipeKey: 'sepia_bleach', agent: 'Ferricyanide–bromide bleach', dilution: '1+9', timeSeconds: 30, temperatureC: 20, extent: 'partial' },
       { type: 'toning', tonerClass: 'sulfide', recipeKey: 'sepia_redev', agent: 'Sodium sulfide redeveloper', dilution: 'as mixed', timeSeconds: 60, temperatureC: 20, extent: 'partial' },
-      { type: 'toning', tonerClass: 'iron_blue', recipeKey: 'iron_blue', agent: 'Iron-blue single-bath toner', dilution: '1+1', timeSeconds: 60, temperatureC: 20, extent: 'split' },
+      { type: 'toning', tonerClass: 'iron_blue', recipeKey: 'iron_blue', agent: 'Iron-blue single-bath toner', dilution: '1+1', timeSeconds: 60, temperatureC: 20, extent: 'partial', notes: 'Split effect.' },
     ],
   },
 };
@@ -229,7 +229,7 @@ const RECIPE_BASES: { key: string; name: string; tonerClass: string | null; volu
   { key: 'selenium', name: 'Selenium toner with sulfite', tonerClass: 'selenium', volumeMl: 1000, ingredients: [
     { chemical: 'selenium toner concentrate (sodium selenosulfate solution)', amount: 50, unit: 'ml' }, { chemical: 'sodium sulfite, anhydrous', amount: 20, unit: 'g' }] },
   { key: 'gold', name: 'Gold thiocyanate toner', tonerClass: 'gold', volumeMl: 1000, ingredients: [
-    { chemical: 'gold(III) chloride, 1 % solution', amount: 10, unit: 'ml' }, { chemical: 'ammonium thiocyanate', amount: 10, unit: 'g' }] },
+    { chemical: 'gold(III) chloride, 1 % solution', amount: 10, unit: 'ml', strengthPercent: 1 }, { chemical: 'ammonium thiocyanate', amount: 10, unit: 'g' }] },
   { key: 'sepia_bleach', name: 'Sepia bleach (ferricyanide–bromide)', tonerClass: 'sulfide', volumeMl: 1000, ingredients: [
     { chemical: 'potassium ferricyanide', amount: 50, unit: 'g' }, { chemical: 'potassium bromide', amount: 50, unit: 'g' }] },
   { key: 'sepia_redev', name: 'Sepia redeveloper (sodium sulfide)', tonerClass: 'sulfide', volumeMl: 1000, ingredients: [{ chemical: 'sodium sulfide nonahydrate', amount: 20, unit: 'g' }] },

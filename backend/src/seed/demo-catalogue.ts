@@ -226,7 +226,7 @@ const RECIPES: RecipeSpec[] = [
   {
     key: 'gold', name: 'Gold thiocyanate toner', tonerClass: 'gold', volumeMl: 1000,
     ingredients: [
-      { chemical: 'gold(III) chloride, 1 % solution', amount: 10, unit: 'ml' },
+      { chemical: 'gold(III) chloride, 1 % solution', amount: 10, unit: 'ml', strengthPercent: 1 },
       { chemical: 'ammonium thiocyanate', amount: 10, unit: 'g' },
     ],
     mixingNotes:
@@ -403,17 +403,21 @@ const IMAGE_SIZES: [number, number][] = [[127, 178], [152, 203], [190, 240], [20
 function toningSteps(toning: Toning, r: Rng, ids: Ids, warm: boolean): ProcessStepInput[] {
   const recipe = (k: string) => ids.recipes.get(k)!;
   const temp = () => r.pick([18, 20, 20, 20, 21, 22]);
-  const selenium = (extent: 'full' | 'partial' | 'split', dilution: string, t: number): ProcessStepInput => ({
-    type: 'toning', tonerClass: 'selenium', recipeId: recipe('selenium'), agent: 'Selenium toner with sulfite', dilution, timeSeconds: t, temperatureC: temp(), extent,
-    ...(extent === 'split' ? { notes: warm ? 'Pulled when the shadows went purple-brown and the highlights stayed warm.' : 'Pulled at the first shift in the shadows.' } : {}),
+  // A split effect is partial toning with a note saying so (the extent vocabulary has no 'split').
+  type Extent = 'full' | 'partial' | 'split';
+  const extentOf = (e: Extent) => (e === 'split' ? 'partial' : e);
+  const selenium = (extent: Extent, dilution: string, t: number): ProcessStepInput => ({
+    type: 'toning', tonerClass: 'selenium', recipeId: recipe('selenium'), agent: 'Selenium toner with sulfite', dilution, timeSeconds: t, temperatureC: temp(), extent: extentOf(extent),
+    ...(extent === 'split' ? { notes: warm ? 'Split effect. Pulled when the shadows went purple-brown and the highlights stayed warm.' : 'Split effect. Pulled at the first shift in the shadows.' } : {}),
   });
-  const gold = (extent: 'full' | 'partial' | 'split', t: number): ProcessStepInput => ({
-    type: 'toning', tonerClass: 'gold', recipeId: recipe('gold'), agent: 'Gold thiocyanate toner', dilution: 'as mixed', timeSeconds: t, temperatureC: temp(), extent,
+  const gold = (extent: Extent, t: number): ProcessStepInput => ({
+    type: 'toning', tonerClass: 'gold', recipeId: recipe('gold'), agent: 'Gold thiocyanate toner', dilution: 'as mixed', timeSeconds: t, temperatureC: temp(), extent: extentOf(extent),
+    ...(extent === 'split' ? { notes: 'Split effect.' } : {}),
   });
-  const ironBlue = (extent: 'full' | 'partial' | 'split', t: number): ProcessStepInput => ({
+  const ironBlue = (extent: Extent, t: number): ProcessStepInput => ({
     type: 'toning', tonerClass: 'iron_blue', recipeId: recipe('iron_blue'), agent: 'Iron-blue single-bath toner', dilution: r.pick(['as mixed', '1+1', '1+2']),
-    timeSeconds: t, temperatureC: 20, extent,
-    ...(extent === 'partial' ? { notes: 'Pulled early: blue in the shadows, highlights left neutral.' } : {}),
+    timeSeconds: t, temperatureC: 20, extent: extentOf(extent),
+    ...(extent === 'partial' ? { notes: 'Pulled early: blue in the shadows, highlights left neutral.' } : extent === 'split' ? { notes: 'Split effect.' } : {}),
   });
   const sepia = (extent: 'full' | 'partial'): ProcessStepInput[] => [
     {

@@ -166,6 +166,9 @@ describe('noticeable-change threshold', () => {
     expect(DEFAULT_NOTICEABLE_DELTA_E).toBe(2.0);
     expect(NOTICEABLE_DELTA_E_GUIDANCE).toMatch(/1\.6/);
     expect(NOTICEABLE_DELTA_E_GUIDANCE).toMatch(/microfading/);
+    // Thresholds cite a paper beside the figure, never a piece of software.
+    expect(NOTICEABLE_DELTA_E_GUIDANCE).toMatch(/Whitmore.*1999/);
+    expect(NOTICEABLE_DELTA_E_GUIDANCE).not.toMatch(/calculator|software|program/i);
     expect(NOTICEABLE_DELTA_E_GUIDANCE).toMatch(/setting/);
   });
 });

@@ -23,8 +23,9 @@ export const MS_PER_YEAR = DAYS_PER_YEAR * 86_400_000;
 export const DEFAULT_NOTICEABLE_DELTA_E = 2.0;
 
 export const NOTICEABLE_DELTA_E_GUIDANCE =
-  'A colour change of about ΔE 1.6 is treated as just noticeable by one national conservation ' +
-  "institute's light-damage calculator, and microfading tests are usually stopped near ΔE 2. " +
+  'A colour change of about ΔE 1.6 is treated as just noticeable in national conservation guidance on light damage, ' +
+  'and microfading tests are usually stopped near ΔE 2 (P. M. Whitmore, X. Pan and C. Bailie, "Predicting the fading of objects", ' +
+  'Journal of the American Institute for Conservation 38(3):395–409, 1999; reference recalled from memory, verify). ' +
   'Toneledger uses ΔE00 = 2.0 by default; the figure is a setting for each collection, not a constant.';
 
 /**

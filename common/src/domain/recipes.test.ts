@@ -183,4 +183,20 @@ describe('recipeCautions (texts are common practice in darkroom chemical safety)
     expect(codes(r)).toContain('acid_to_water');
     expect(recipeCautions(r).find((c) => c.code === 'acid_to_water')!.text).toBe('Always add acid to water, never water to acid.');
   });
+
+  it('adds the cautions of the table of toner chemicals: sulfides, selenium, thiocyanate and gold chloride, each with its H-statements', () => {
+    const sepia: Recipe = { name: 'redeveloper', volumeMl: 1000, ingredients: [{ chemical: 'sodium sulfide nonahydrate', amount: 20, unit: 'g' }] };
+    const sulfide = recipeCautions(sepia).find((c) => c.code === 'chemical_sodium_sulfide')!;
+    expect(sulfide.text).toMatch(/hydrogen sulfide/);
+    expect(sulfide.text).toMatch(/H314/);
+    const selenium: Recipe = { name: 'selenium', volumeMl: 1000, ingredients: [{ chemical: 'selenium toner concentrate', amount: 50, unit: 'ml' }] };
+    expect(recipeCautions(selenium).find((c) => c.code === 'chemical_selenium')!.text).toMatch(/disposal/);
+    const gold: Recipe = {
+      name: 'gold', volumeMl: 1000,
+      ingredients: [{ chemical: 'gold(III) chloride, 1 % solution', amount: 10, unit: 'ml' }, { chemical: 'ammonium thiocyanate', amount: 10, unit: 'g' }],
+    };
+    // in the order of the ingredients
+    expect(codes(gold)).toEqual([...general, 'chemical_gold_chloride', 'chemical_ammonium_thiocyanate']);
+    expect(recipeCautions(gold).find((c) => c.code === 'chemical_ammonium_thiocyanate')!.text).toMatch(/EUH032.*acids/);
+  });
 });

@@ -13,6 +13,8 @@
  *    volume ≤ 0) throw a RangeError naming the ingredient: a recipe with them cannot be mixed.
  */
 
+import { ingredientHazard } from './toner-chemicals';
+
 export type MassUnit = 'g' | 'mg' | 'kg';
 export type VolumeUnit = 'ml' | 'l';
 
@@ -152,6 +154,8 @@ export function compareIngredients(a: NormalisedIngredient, b: NormalisedIngredi
   return { relativeDifference: larger === 0 ? 0 : Math.abs(pa - pb) / larger };
 }
 
+/** Families whose cautions are written above; the table adds the others. */
+const COVERED_ABOVE = new Set(['ferricyanide', 'acetic_acid', 'hydrochloric_acid']);
 const FERRICYANIDE = /ferricyanide/i;
 const ACETIC = /acetic/i;
 const STRONG_ACID = /hydrochloric|sulfuric|sulphuric|nitric/i;
@@ -210,6 +214,17 @@ export function recipeCautions(r: Recipe): Caution[] {
 
   if (names.some((n) => ANY_ACID.test(n))) {
     cautions.push({ code: 'acid_to_water', text: 'Always add acid to water, never water to acid.' });
+  }
+
+  // The families the table of toner chemicals knows beyond those above (sulfides, selenium,
+  // thiocyanates, gold chloride, borax…): each once, with its hazard statements.
+  const seen = new Set<string>();
+  for (const i of r.ingredients) {
+    const h = ingredientHazard(i);
+    if (!h.entry || COVERED_ABOVE.has(h.entry.key) || seen.has(h.entry.key) || !h.entry.caution || h.classification.hazards.length === 0) continue;
+    seen.add(h.entry.key);
+    const codes = h.classification.hazards.join(', ');
+    cautions.push({ code: `chemical_${h.entry.key}`, text: `${h.entry.name} (${codes}): ${h.entry.caution}` });
   }
   return cautions;
 }

@@ -7,6 +7,7 @@
  * functions to preview a session before it is recorded. The arithmetic itself lives in
  * `colour.ts` (CIEDE2000, ΔL/ΔC/ΔH, density) and `fading.ts` (rate and projection).
  */
+import { ciede2000Parts } from './ciede2000-parts';
 import {
   classifyChange, comparable, densityChange, densityFromReflectance, type DominantChange, type Lab, type MeasurementConditions,
 } from './colour';
@@ -51,6 +52,7 @@ export interface IncomparablePoint extends PointBase {
   comparable: false;
   reason: string;
   dE00: null; dE76: null; dL: null; dC: null; dH: null;
+  dLPrime: null; dCPrime: null; dHPrime: null;
   dominant: null;
   dD: null;
   densityLossPercent: null;
@@ -60,6 +62,8 @@ export interface ComparablePoint extends PointBase {
   comparable: true;
   reason: null;
   dE00: number; dE76: number; dL: number; dC: number; dH: number;
+  /** The CIEDE2000 components ΔL′, ΔC′, ΔH′ (ciede2000-parts.ts); dL, dC, dH are CIELAB's ΔL*, ΔC*ab, ΔH*ab. */
+  dLPrime: number; dCPrime: number; dHPrime: number;
   dominant: DominantChange | null;
   /** ΔD = D − D0; null without a density at both, or when both name different kinds of density. */
   dD: number | null;
@@ -119,16 +123,19 @@ export function pointAgainst(base: SpotObservation, o: SpotObservation): SpotPoi
   if (!verdict.ok) {
     return {
       ...common, comparable: false, reason: verdict.reason,
-      dE00: null, dE76: null, dL: null, dC: null, dH: null, dominant: null, dD: null, densityLossPercent: null,
+      dE00: null, dE76: null, dL: null, dC: null, dH: null, dLPrime: null, dCPrime: null, dHPrime: null,
+      dominant: null, dD: null, densityLossPercent: null,
     };
   }
   const change = classifyChange(base.lab, o.lab);
   const d = change.difference;
+  const parts = ciede2000Parts(base.lab, o.lab);
   const baseDensity = densityOf(base);
   const dc = baseDensity !== null && density !== null && !densityKindsDiffer(base, o) ? densityChange(baseDensity, density) : null;
   return {
     ...common, comparable: true, reason: null,
     dE00: d.dE00, dE76: d.dE76, dL: d.dL, dC: d.dC, dH: d.dH, dominant: change.dominant,
+    dLPrime: parts.dLPrime, dCPrime: parts.dCPrime, dHPrime: parts.dHPrime,
     dD: dc ? dc.deltaD : null, densityLossPercent: dc ? dc.percentLoss : null,
   };
 }

@@ -31,7 +31,7 @@ export const COHORT_FACTORS = {
   paperBase: { label: 'Paper base', kind: 'choice', choices: vocab(PAPER_BASE), description: "The base of the print's paper (Papers)." },
   paperSurface: { label: 'Paper surface', kind: 'text', description: "The surface of the print's paper as recorded (Papers)." },
   paperTint: { label: 'Paper base tint', kind: 'text', description: "The base tint of the print's paper as recorded (Papers)." },
-  tonerClass: { label: 'Toner class', kind: 'choice', choices: vocab(TONER_CLASS), description: 'A class of toner used in any toning step of the process history; a print toned twice belongs to both. "Untoned" is the flag below.' },
+  tonerClass: { label: 'Toner', kind: 'choice', choices: vocab(TONER_CLASS), description: 'A class of toner used in any toning step of the process history; a print toned twice belongs to both. "Untoned" is the flag below.' },
   toned: { label: 'Toned', kind: 'flag', description: 'Whether the process history holds any toning step.' },
   tonerSequence: { label: 'Toner sequence', kind: 'text', description: 'The toner classes in the order of the toning steps, e.g. "selenium → iron_blue".' },
   ferricyanideGL: { label: 'Ferricyanide in the toner', kind: 'number', unit: 'g/L', description: 'Potassium ferricyanide per litre of working toner, from the toning step\'s recipe and dilution (Bath recipes).' },

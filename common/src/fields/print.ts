@@ -96,28 +96,28 @@ export const PRINT_FIELDS = [
     importNote: 'Computed from the process and toner classes (a conservator overrides it on the print page); ignored on import.',
   },
   {
-    key: 'imageWidthMm', inputKey: 'imageWidthMm', label: 'Image width', column: 'image_width_mm', read: R, origin: 'entered',
-    ...millimetres(), example: '240', description: 'Width of the image area.',
-  },
-  {
     key: 'imageHeightMm', inputKey: 'imageHeightMm', label: 'Image height', column: 'image_height_mm', read: R, origin: 'entered',
     ...millimetres(), example: '180', description: 'Height of the image area.',
   },
   {
-    key: 'sheetWidthMm', inputKey: 'sheetWidthMm', label: 'Sheet width', column: 'sheet_width_mm', read: R, origin: 'entered',
-    ...millimetres(), example: '254', description: 'Width of the paper sheet.',
+    key: 'imageWidthMm', inputKey: 'imageWidthMm', label: 'Image width', column: 'image_width_mm', read: R, origin: 'entered',
+    ...millimetres(), example: '240', description: 'Width of the image area.',
   },
   {
     key: 'sheetHeightMm', inputKey: 'sheetHeightMm', label: 'Sheet height', column: 'sheet_height_mm', read: R, origin: 'entered',
     ...millimetres(), example: '203', description: 'Height of the paper sheet.',
   },
   {
-    key: 'mountWidthMm', inputKey: 'mountWidthMm', label: 'Mount width', column: 'mount_width_mm', read: R, origin: 'entered',
-    ...millimetres(), example: '355', description: 'Width of the mount, when the print is mounted.',
+    key: 'sheetWidthMm', inputKey: 'sheetWidthMm', label: 'Sheet width', column: 'sheet_width_mm', read: R, origin: 'entered',
+    ...millimetres(), example: '254', description: 'Width of the paper sheet.',
   },
   {
     key: 'mountHeightMm', inputKey: 'mountHeightMm', label: 'Mount height', column: 'mount_height_mm', read: R, origin: 'entered',
     ...millimetres(), example: '430', description: 'Height of the mount, when the print is mounted.',
+  },
+  {
+    key: 'mountWidthMm', inputKey: 'mountWidthMm', label: 'Mount width', column: 'mount_width_mm', read: R, origin: 'entered',
+    ...millimetres(), example: '355', description: 'Width of the mount, when the print is mounted.',
   },
   {
     key: 'inscriptions', inputKey: 'inscriptions', label: 'Inscriptions', column: 'inscriptions', read: R, origin: 'entered',
@@ -144,7 +144,7 @@ export const PRINT_FIELDS = [
     ...currency(), example: 'GBP', description: 'The currency of the valuation, as an ISO 4217 code (GBP, EUR, USD…); a code in small letters is kept in capitals. Read by registrars and administrators only.',
   },
   {
-    key: 'tonerClasses', label: 'Toner classes', column: 'toner_classes', read: R, origin: 'computed',
+    key: 'tonerClasses', label: 'Toners', column: 'toner_classes', read: R, origin: 'computed',
     ...codes('the toner classes', TONER_CLASS), list: true, example: 'selenium;gold',
     description: 'The toner classes of the toning steps in the process history, in order.',
     importNote: 'Computed from the process history. A new print with no rows in the steps file gets one toning step per class; otherwise the column is ignored.',

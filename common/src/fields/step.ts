@@ -44,7 +44,7 @@ export const STEP_FIELDS = [
     description: 'The developer, fixer, wash or solution as used.',
   },
   {
-    key: 'tonerClass', inputKey: 'tonerClass', label: 'Toner class', column: 'toner_class', read: R, origin: 'entered',
+    key: 'tonerClass', inputKey: 'tonerClass', label: 'Toner', column: 'toner_class', read: R, origin: 'entered',
     ...code('the toner classes', TONER_CLASS), example: 'selenium', description: 'For a toning step (and only there): the class of toner.',
   },
   {
@@ -69,7 +69,7 @@ export const STEP_FIELDS = [
   },
   {
     key: 'extent', inputKey: 'extent', label: 'Extent', column: 'extent', read: R, origin: 'entered',
-    ...code('the toning extents', TONING_EXTENT), example: 'partial', description: 'For a toning step: how far the toning went (full, partial, split, local).',
+    ...code('the toning extents', TONING_EXTENT), example: 'partial', description: 'For a toning step: how far the toning went (full, partial, local). A split effect goes in the notes ("Split effect.").',
   },
   {
     key: 'concentration', inputKey: 'concentration', label: 'Concentration', column: 'concentration', read: R, origin: 'entered',

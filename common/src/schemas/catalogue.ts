@@ -136,7 +136,7 @@ export const processStepInputSchema = z
   .object(inputShape(STEP_FIELDS))
   .superRefine((s, ctx) => {
     if (s.type === 'toning' && !s.tonerClass) ctx.addIssue({ code: 'custom', path: ['tonerClass'], message: 'A toning step needs its toner class' });
-    if (s.type !== 'toning' && (s.tonerClass || s.extent)) ctx.addIssue({ code: 'custom', path: ['tonerClass'], message: 'Toner class and extent belong to toning steps' });
+    if (s.type !== 'toning' && (s.tonerClass || s.extent)) ctx.addIssue({ code: 'custom', path: ['tonerClass'], message: 'Toner and extent belong to toning steps' });
     if (s.type === 'residual_thiosulfate_test') {
       if (!s.method) ctx.addIssue({ code: 'custom', path: ['method'], message: 'Name the test method' });
       if (s.value != null && !s.unit) ctx.addIssue({ code: 'custom', path: ['unit'], message: 'Give the unit of the measured value' });

@@ -103,6 +103,8 @@ export const spotAnalysisSchema = z.object({
     dE00: z.number().nullable(), dE76: z.number().nullable(), dL: z.number().nullable(), dC: z.number().nullable(), dH: z.number().nullable(),
     dominant: z.string().nullable(), density: z.number().nullable(), dD: z.number().nullable(), densityLossPercent: z.number().nullable(),
   })),
+    /** CIEDE2000's ΔL′, ΔC′, ΔH′ (dL, dC, dH are CIELAB's ΔL*, ΔC*ab, ΔH*ab). */
+    dLPrime: z.number().nullable(), dCPrime: z.number().nullable(), dHPrime: z.number().nullable(),
   /** ΔE00 per year. */
   rate: rateSchema.nullable(),
   /** Density change in D per year (ΔD = D − D0 fitted; negative while the density falls). */

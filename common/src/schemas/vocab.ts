@@ -66,10 +66,10 @@ export const STEP_TYPE = labelled(
   },
 );
 
-export const TONING_EXTENT = labelled(['full', 'partial', 'split', 'local'] as const, {
+/** How far a toning went. A split effect is not an extent: it is written in the step's notes ("Split effect."). */
+export const TONING_EXTENT = labelled(['full', 'partial', 'local'] as const, {
   full: 'Full',
   partial: 'Partial',
-  split: 'Split',
   local: 'Local',
 });
 

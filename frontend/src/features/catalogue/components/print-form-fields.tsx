@@ -109,7 +109,7 @@ function Materials() {
   );
 }
 
-const DIMENSIONS = ['imageWidthMm', 'imageHeightMm', 'sheetWidthMm', 'sheetHeightMm', 'mountWidthMm', 'mountHeightMm'] as const;
+const DIMENSIONS = ['imageHeightMm', 'imageWidthMm', 'sheetHeightMm', 'sheetWidthMm', 'mountHeightMm', 'mountWidthMm'] as const;
 
 function Housing({ creating, print, enclosures }: { creating: boolean; print: Print | null; enclosures: Enclosure[] }) {
   const locations = useLocations(undefined, creating);
@@ -165,7 +165,7 @@ export function PrintFormFields({ creating, print, pattern }: { creating: boolea
       <Identification pattern={pattern} savedAccession={print?.accessionNumber ?? null} />
       <Materials />
       <fieldset className={`${box} sm:grid-cols-2 lg:grid-cols-3`}>
-        <legend className={legend}>Dimensions (mm, width × height)</legend>
+        <legend className={legend}>Dimensions (mm, height × width)</legend>
         {DIMENSIONS.map((field) => (
           <NumberInput key={field} name={field} label={L[field]} />
         ))}

@@ -1,6 +1,7 @@
 import type { ReactNode } from 'react';
 import type { Print } from '@toneledger/common/schemas/catalogue';
 import { LIGHT_RESPONSIVITY, PAT_RESULT, PROCESS, STATUS, SUPPORT, TONER_CLASS } from '@toneledger/common/schemas/vocab';
+import { edtfAsWritten } from '@toneledger/common/domain/edtf-words';
 import { formatDimensions } from '@/features/catalogue/utils/format';
 
 const none = <span className="text-ink-600">Not recorded</span>;
@@ -22,9 +23,9 @@ function buffering(value: boolean | null): string {
 
 /** What the print is: identity, making, materials, size, status and enclosure. */
 export function PrintIdentity({ print }: { print: Print }) {
-  const image = formatDimensions(print.imageWidthMm, print.imageHeightMm);
-  const sheet = formatDimensions(print.sheetWidthMm, print.sheetHeightMm);
-  const mount = formatDimensions(print.mountWidthMm, print.mountHeightMm);
+  const image = formatDimensions(print.imageHeightMm, print.imageWidthMm);
+  const sheet = formatDimensions(print.sheetHeightMm, print.sheetWidthMm);
+  const mount = formatDimensions(print.mountHeightMm, print.mountWidthMm);
   return (
     <dl className="rounded border border-paper-300 bg-white px-4 py-2">
       <Row term="Accession number">
@@ -35,10 +36,11 @@ export function PrintIdentity({ print }: { print: Print }) {
       <Row term="Date made">
         {print.dateMade ? (
           <>
-            {print.dateDisplay ?? print.dateMade}{' '}
-            <span className="text-ink-600">
-              (EDTF <code className="mono">{print.dateMade}</code>)
-            </span>
+            <span title={`EDTF ${print.dateMade}`}>{edtfAsWritten(print.dateMade)}</span>{' '}
+            <details className="inline-block align-top text-xs text-ink-700">
+              <summary className="cursor-pointer underline">EDTF</summary>
+              <code className="mono">{print.dateMade}</code> · {print.dateDisplay}
+            </details>
           </>
         ) : (
           none
@@ -48,7 +50,7 @@ export function PrintIdentity({ print }: { print: Print }) {
       <Row term="Support">{print.support ? SUPPORT.labels[print.support] : none}</Row>
       <Row term="Paper">{print.paper?.label ?? none}</Row>
       <Row term="Toners">{print.tonerClasses.length ? print.tonerClasses.map((t) => TONER_CLASS.labels[t]).join(', ') : 'None recorded'}</Row>
-      <Row term="Dimensions">
+      <Row term="Dimensions (h × w)">
         {image || sheet || mount ? (
           <ul className="num">
             {image ? <li>Image {image}</li> : null}

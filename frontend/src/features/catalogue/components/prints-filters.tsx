@@ -121,7 +121,7 @@ export function PrintsFilters({ query, onChange, showLocation }: PrintsFiltersPr
           value={query.holding === 'collection' ? undefined : query.holding}
           onChoose={choose('holding')}
         />
-        <ChoiceSelect label="Toner class" empty="Any toner" options={TONER_CLASS.options} value={query.tonerClass} onChoose={choose('tonerClass')} />
+        <ChoiceSelect label="Toner" empty="Any toner" options={TONER_CLASS.options} value={query.tonerClass} onChoose={choose('tonerClass')} />
         <ChoiceSelect label="Light responsivity" empty="Any" options={LIGHT_RESPONSIVITY.options} value={query.lightResponsivity} onChoose={choose('lightResponsivity')} />
         <ChoiceSelect label="Warnings" empty="With or without" options={WARNINGS} value={query.hasWarnings} onChoose={choose('hasWarnings')} />
         <ChoiceSelect label="Maker" empty="Any maker" options={makers.data?.data.map((m) => ({ value: m.id, label: m.name }))} value={query.makerId} onChoose={choose('makerId')} />

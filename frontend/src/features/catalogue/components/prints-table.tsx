@@ -4,6 +4,7 @@ import { createColumnHelper, type VisibilityState } from '@tanstack/react-table'
 import { printSortSchema, type PrintListItem, type PrintListQuery } from '@toneledger/common/schemas/catalogue';
 import { PROCESS, STATUS, SUPPORT, TONER_CLASS } from '@toneledger/common/schemas/vocab';
 import { labelOf } from '@toneledger/common/fields/print';
+import { edtfAsWritten } from '@toneledger/common/domain/edtf-words';
 import { DataTable } from '@/components/ui/data-table';
 import { formatDate } from '@/lib/format';
 import { sortingToSort, sortToSorting, useServerTable } from '@/lib/server-table';
@@ -40,7 +41,7 @@ export const printColumns = [
       if (!row.dateMade) return none;
       return (
         <span className="whitespace-nowrap" title={`EDTF ${row.dateMade}`}>
-          {row.dateDisplay ?? row.dateMade}
+          {edtfAsWritten(row.dateMade)}
         </span>
       );
     },

@@ -16,7 +16,7 @@ function Fact({ term, children }: { term: string; children: ReactNode }) {
 
 function StepFacts({ step }: { step: ProcessStep }) {
   const facts: ReactNode[] = [];
-  if (step.type === 'toning' && step.tonerClass) facts.push(<Fact key="toner" term="Toner class">{TONER_CLASS.labels[step.tonerClass]}</Fact>);
+  if (step.type === 'toning' && step.tonerClass) facts.push(<Fact key="toner" term="Toner">{TONER_CLASS.labels[step.tonerClass]}</Fact>);
   if (step.recipe) {
     facts.push(
       <Fact key="recipe" term="Recipe">

@@ -2,11 +2,13 @@ import { useEffect, useRef, useState } from 'react';
 import { useFieldArray, useFormContext, useWatch } from 'react-hook-form';
 import type { z } from 'zod';
 import { printSchema, stepsReplaceSchema, type Print } from '@toneledger/common/schemas/catalogue';
+import { isHazardous } from '@toneledger/common/domain/toner-chemicals';
 import { STEP_TYPE, THIOSULFATE_METHOD, TONER_CLASS, TONING_EXTENT } from '@toneledger/common/schemas/vocab';
 import { NumberInput, SelectInput, TextAreaInput, TextInput } from '@/components/form/fields';
 import { useFieldId } from '@/components/form/form-context';
 import { SchemaForm } from '@/components/form/schema-form';
 import { Button } from '@/components/ui/button';
+import { StepRecipeCautions } from '@/components/safety/ingredient-hazards';
 import { SelectField } from '@/components/ui/field';
 import { useRecordEdit } from '@/lib/forms/use-record-edit';
 import { useSchemaForm } from '@/lib/forms/use-schema-form';
@@ -42,20 +44,23 @@ function stepLabel(path: string, label: string | null): string | null {
 function StepFields({ index }: { index: number }) {
   const recipes = useRecipes();
   const type = useWatch<StepsValues, `steps.${number}.type`>({ name: `steps.${index}.type` });
+  const recipeId = useWatch<StepsValues, `steps.${number}.recipeId`>({ name: `steps.${index}.recipeId` });
   const fields = FIELDS_BY_KIND[type];
+  const chosen = fields.includes('recipeId') && recipeId ? recipes.data?.data.find((r) => r.id === recipeId) : undefined;
   const name = (field: string) => `steps.${index}.${field}`;
   return (
     <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
-      {fields.includes('tonerClass') ? <SelectInput name={name('tonerClass')} label="Toner class" empty="Choose…" options={TONER_CLASS.options} /> : null}
+      {fields.includes('tonerClass') ? <SelectInput name={name('tonerClass')} label="Toner" empty="Choose…" options={TONER_CLASS.options} /> : null}
       {fields.includes('recipeId') ? (
         <SelectInput
           name={name('recipeId')}
           label="Recipe"
           hint="Bath recipes are kept under Bath recipes."
           empty="No recipe recorded"
-          options={recipes.data?.data.map((r) => ({ value: r.id, label: r.name }))}
+          options={recipes.data?.data.map((r) => ({ value: r.id, label: isHazardous(r.ingredients) ? `${r.name} (⚠ hazardous)` : r.name }))}
         />
       ) : null}
+      {chosen ? <StepRecipeCautions recipe={chosen} /> : null}
       {fields.includes('method') ? <SelectInput name={name('method')} label="Test method" empty="Choose…" options={THIOSULFATE_METHOD.options} /> : null}
       {fields.includes('value') ? <NumberInput name={name('value')} label="Measured value" /> : null}
       {fields.includes('unit') ? <TextInput name={name('unit')} label="Unit" hint="As reported, e.g. µg/cm²" /> : null}

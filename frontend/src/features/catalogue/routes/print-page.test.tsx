@@ -16,7 +16,7 @@ const toned = makePrint({
   warnings: [{ code: 'prussian_blue_in_buffered_enclosure', severity: 'high', message: 'This iron-blue toned print is in an alkaline-buffered enclosure.', basis: 'Published guidance.' }],
   steps: [
     makeStep(),
-    makeStep({ id: '74111111-2222-4333-8444-555555555555', position: 2, type: 'toning', agent: null, tonerClass: 'iron_blue', recipe: { id: RECIPE_ID, name: 'Iron blue toner A' }, dilution: '1+4', timeSeconds: 95, temperatureC: 21, extent: 'split' }),
+    makeStep({ id: '74111111-2222-4333-8444-555555555555', position: 2, type: 'toning', agent: null, tonerClass: 'iron_blue', recipe: { id: RECIPE_ID, name: 'Iron blue toner A' }, dilution: '1+4', timeSeconds: 95, temperatureC: 21, extent: 'partial' }),
   ],
 });
 
@@ -48,7 +48,8 @@ describe('PrintPage', () => {
     const warnings = screen.getByRole('region', { name: 'Warnings' });
     expect(within(warnings).getByText('This iron-blue toned print is in an alkaline-buffered enclosure.')).toBeTruthy();
     expect(within(warnings).getByText('High')).toBeTruthy();
-    expect(screen.getByText('about April 1968')).toBeTruthy();
+    // The date as a registrar writes it, the EDTF value in the details beside it.
+    expect(screen.getByText('ca. April 1968').getAttribute('title')).toBe('EDTF 1968-04~');
     expect(screen.getByText('1968-04~')).toBeTruthy();
 
     const timeline = screen.getByRole('region', { name: 'Process history' });
@@ -56,7 +57,7 @@ describe('PrintPage', () => {
     expect(toning.textContent).toContain('Toning');
     expect(within(toning).getByRole('link', { name: 'Iron blue toner A' }).getAttribute('href')).toBe(`/catalogue/recipes/${RECIPE_ID}`);
     expect(within(toning).getByText('1:35')).toBeTruthy();
-    expect(toning.textContent).toContain('Split');
+    expect(toning.textContent).toContain('Partial');
     expect(within(timeline).getByRole('complementary', { name: 'Chemical safety' }).textContent).toMatch(/safety data sheet/);
     expect(screen.getByRole('link', { name: 'Download JSON' }).getAttribute('href')).toBe(`/api/prints/${PRINT_ID}/export.json`);
   });

@@ -4,7 +4,7 @@ import { errorResponse, json, mockFetch, type RecordedRequest } from '@/test/fet
 import { makeMe } from '@/test/fixtures';
 import { renderRoutes } from '@/test/render';
 import { PrintStepsPage } from '@/features/catalogue/routes/print-steps-page';
-import { PRINT_ID, RECIPE_ID, makePrint, makeStep, referenceHandlers } from '@/features/catalogue/testing/fixtures';
+import { PRINT_ID, RECIPE_ID, SULFIDE_RECIPE_ID, makePrint, makeStep, referenceHandlers } from '@/features/catalogue/testing/fixtures';
 
 const fixing = makeStep({ id: '73111111-2222-4333-8444-555555555555', position: 2, type: 'fixing', agent: 'Plain hypo', dilution: null, timeSeconds: 600, temperatureC: null });
 const opened = makePrint({ steps: [makeStep(), fixing] });
@@ -28,6 +28,26 @@ function renderSteps(put: (request: RecordedRequest) => Response | Promise<Respo
 const steps = () => within(screen.getByRole('list', { name: 'Steps in order' })).getAllByRole('listitem');
 
 describe('steps editor', () => {
+  it('marks hazardous recipes and shows the chosen recipe’s cautions in the step', async () => {
+    renderSteps(() => json({ data: makePrint() }));
+    await screen.findByRole('list', { name: 'Steps in order' });
+    fireEvent.change(screen.getByLabelText('Kind of step to add'), { target: { value: 'toning' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Add step' }));
+    const toning = steps()[2]!;
+    await waitFor(() => expect(within(toning).getAllByRole('option', { name: 'Sepia redeveloper (⚠ hazardous)' })).toHaveLength(1));
+    // Ferric ammonium citrate alone carries no hazard statement: no mark, no cautions.
+    expect(within(toning).getAllByRole('option', { name: 'Iron blue toner A' })).toHaveLength(1);
+    fireEvent.change(within(toning).getByLabelText('Recipe'), { target: { value: RECIPE_ID } });
+    expect(within(toning).queryByRole('complementary', { name: /Cautions for/ })).toBeNull();
+
+    fireEvent.change(within(toning).getByLabelText('Recipe'), { target: { value: SULFIDE_RECIPE_ID } });
+    const cautions = within(toning).getByRole('complementary', { name: 'Cautions for Sepia redeveloper' });
+    expect(cautions.textContent).toMatch(/hydrogen sulfide/);
+    expect(cautions.textContent).toMatch(/H314/);
+    expect(cautions.textContent).toContain('GHS05 Corrosion, GHS06 Skull and crossbones, GHS09 Environment');
+    expect(cautions.textContent).toMatch(/safety data sheet and local rules always take precedence/);
+  });
+
   it('adds a toning step, moves it up, removes one, and saves the whole ordered list with the version', async () => {
     const { requests, router } = renderSteps(() => json({ data: makePrint({ version: 4 }) }));
     await screen.findByRole('list', { name: 'Steps in order' });
@@ -39,7 +59,7 @@ describe('steps editor', () => {
     fireEvent.click(screen.getByRole('button', { name: 'Add step' }));
     const toning = steps()[2]!;
     expect(document.activeElement).toBe(within(toning).getByLabelText('Step type'));
-    fireEvent.change(within(toning).getByLabelText('Toner class'), { target: { value: 'iron_blue' } });
+    fireEvent.change(within(toning).getByLabelText('Toner'), { target: { value: 'iron_blue' } });
     await waitFor(() => expect(within(toning).getAllByRole('option', { name: 'Iron blue toner A' })).toHaveLength(1));
     fireEvent.change(within(toning).getByLabelText('Recipe'), { target: { value: RECIPE_ID } });
     fireEvent.change(within(toning).getByLabelText('Dilution'), { target: { value: '1+4' } });
@@ -116,7 +136,7 @@ describe('steps editor', () => {
     expect(await within(steps()[2]!).findByText('A toning step needs its toner class')).toBeTruthy();
     expect(requests.some((r) => r.method === 'PUT')).toBe(false);
 
-    fireEvent.change(within(steps()[2]!).getByLabelText('Toner class'), { target: { value: 'selenium' } });
+    fireEvent.change(within(steps()[2]!).getByLabelText('Toner'), { target: { value: 'selenium' } });
     fireEvent.click(screen.getByRole('button', { name: 'Save process history' }));
     expect(await within(steps()[1]!).findByText('Longer than any bath this catalogue accepts')).toBeTruthy();
     expect(calls).toBe(1);

@@ -1,3 +1,4 @@
+import { recipeCautions } from '@toneledger/common/domain/recipes';
 import { blankValues } from '@toneledger/common/fields/field';
 import { PRINT_FIELDS } from '@toneledger/common/fields/print';
 import type { Enclosure, Print, PrintListItem, ProcessStep, Recipe } from '@toneledger/common/schemas/catalogue';
@@ -10,6 +11,7 @@ export const BUFFERED_ID = '41111111-2222-4333-8444-555555555555';
 export const UNBUFFERED_ID = '42111111-2222-4333-8444-555555555555';
 export const LOCATION_ID = '51111111-2222-4333-8444-555555555555';
 export const RECIPE_ID = '61111111-2222-4333-8444-555555555555';
+export const SULFIDE_RECIPE_ID = '62111111-2222-4333-8444-555555555555';
 
 export function makeStep(overrides: Partial<ProcessStep> = {}): ProcessStep {
   return {
@@ -70,6 +72,12 @@ export const recipes: Recipe[] = [
   {
     id: RECIPE_ID, name: 'Iron blue toner A', tonerClass: 'iron_blue', volumeMl: 1000, ingredients: [{ chemical: 'Ferric ammonium citrate', amount: 4, unit: 'g' }],
     mixingNotes: null, normalised: [], cautions: [], stepCount: 0, version: 1,
+  },
+  {
+    id: SULFIDE_RECIPE_ID, name: 'Sepia redeveloper', tonerClass: 'sulfide', volumeMl: 1000, ingredients: [{ chemical: 'sodium sulfide nonahydrate', amount: 20, unit: 'g' }],
+    mixingNotes: null, normalised: [],
+    cautions: recipeCautions({ name: 'Sepia redeveloper', volumeMl: 1000, ingredients: [{ chemical: 'sodium sulfide nonahydrate', amount: 20, unit: 'g' }] }),
+    stepCount: 0, version: 1,
   },
 ];
 

@@ -14,11 +14,11 @@ export function edtfSummary(result: Extract<EdtfResult, { ok: true }>): string {
   return `${display} · ${from} to ${to}`;
 }
 
-/** "240 × 180 mm" (width × height); a missing side is shown as "?". Null when neither is known. */
-export function formatDimensions(width: number | null, height: number | null): string | null {
+/** "180 × 240 mm" (height × width, as museums give dimensions); a missing side is shown as "?". Null when neither is known. */
+export function formatDimensions(height: number | null, width: number | null): string | null {
   if (width === null && height === null) return null;
   const side = (n: number | null) => (n === null ? '?' : new Intl.NumberFormat('en-GB', { maximumFractionDigits: 1 }).format(n));
-  return `${side(width)} × ${side(height)} mm`;
+  return `${side(height)} × ${side(width)} mm`;
 }
 
 export function yesNoUnknown(value: boolean | null | undefined): string {

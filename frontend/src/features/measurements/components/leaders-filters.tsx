@@ -13,7 +13,7 @@ export function LeadersFilters({ query, onChange }: LeadersFiltersProps) {
   return (
     <div role="group" aria-label="Filter and sort" className="mb-4 grid grid-cols-1 gap-3 sm:grid-cols-3 lg:max-w-4xl">
       <ChoiceSelect label="Process" empty="Any process" options={PROCESS.options} value={query.process} onChoose={(process) => onChange({ process })} />
-      <ChoiceSelect label="Toner class" empty="Any toner" options={TONER_CLASS.options} value={query.tonerClass} onChoose={(tonerClass) => onChange({ tonerClass })} />
+      <ChoiceSelect label="Toner" empty="Any toner" options={TONER_CLASS.options} value={query.tonerClass} onChoose={(tonerClass) => onChange({ tonerClass })} />
       <SelectField label="Sort by" value={query.sort} onChange={(e) => onChange({ sort: e.target.value === 'change' ? 'change' : 'rate' })}>
         <option value="rate">Fastest change (ΔE00 per year)</option>
         <option value="change">Largest change so far (latest ΔE00)</option>

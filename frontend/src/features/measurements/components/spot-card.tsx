@@ -123,9 +123,9 @@ export function SpotCard({ analysis, threshold, sessions, mayWrite, onEdit }: Sp
               'No comparable measurement yet'
             )}
           </Figure>
-          {latest && latest.dL !== null && latest.dC !== null && latest.dH !== null ? (
-            <Figure term="Components">
-              ΔL* {formatSigned(latest.dL)} · ΔC* {formatSigned(latest.dC)} · ΔH* {formatSigned(latest.dH)}
+          {latest && latest.dLPrime !== null && latest.dCPrime !== null && latest.dHPrime !== null ? (
+            <Figure term="ΔE00 components">
+              ΔL′ {formatSigned(latest.dLPrime)} · ΔC′ {formatSigned(latest.dCPrime)} · ΔH′ {formatSigned(latest.dHPrime)}
               {latest.dominant ? <span className="block">Mainly {latest.dominant}</span> : null}
             </Figure>
           ) : null}

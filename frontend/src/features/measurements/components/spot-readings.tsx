@@ -42,7 +42,7 @@ function Preview({ analysis, baselineSession, conditions, threshold }: Omit<Spot
           ΔE00 {formatNumber(against.dE00)} against the baseline of {formatDay(against.baselineOn)}
           {against.atOrBeyondThreshold ? `: at or beyond the noticeable threshold (ΔE00 ${formatThreshold(threshold)})` : `: below the noticeable threshold (ΔE00 ${formatThreshold(threshold)})`}
           <span className="block font-normal text-ink-800">
-            ΔL* {formatSigned(against.dL)} · ΔC* {formatSigned(against.dC)} · ΔH* {formatSigned(against.dH)}
+            ΔL′ {formatSigned(against.dLPrime)} · ΔC′ {formatSigned(against.dCPrime)} · ΔH′ {formatSigned(against.dHPrime)}
             {against.dominant ? ` · mainly ${against.dominant}` : ''}
             {against.densityLossPercent !== null ? ` · density loss ${formatNumber(against.densityLossPercent, 1)} %` : ''}
           </span>

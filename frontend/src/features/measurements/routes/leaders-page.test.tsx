@@ -54,7 +54,7 @@ describe('spots changing most', () => {
   it('keeps filters and sort in the URL, going back to page 1 when they change', async () => {
     const { router, requests } = renderLeaders('/measurements?page=3');
     await screen.findByRole('link', { name: '1979.3.12' }, SLOW);
-    fireEvent.change(screen.getByLabelText('Toner class'), { target: { value: 'selenium' } });
+    fireEvent.change(screen.getByLabelText('Toner'), { target: { value: 'selenium' } });
     await waitFor(() => expect(router.state.location.search).toBe('?tonerClass=selenium'));
     fireEvent.click(screen.getByRole('button', { name: /Latest ΔE00/ }));
     await waitFor(() => expect(router.state.location.search).toBe('?tonerClass=selenium&sort=change'));

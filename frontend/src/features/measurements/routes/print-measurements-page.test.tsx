@@ -54,7 +54,7 @@ describe('a print’s measurements', () => {
 
     expect(within(card).getByText('0.06 ΔE00/year (95 % CI 0.04–0.08, n = 6 over 24.0 years)')).toBeTruthy();
     expect(within(card).getByText('Reaches ΔE00 2.0 around March 2031 (between 2029 and 2036)')).toBeTruthy();
-    expect(within(card).getByText('ΔL* +1.20 · ΔC* −4.30 · ΔH* +1.10', { exact: false })).toBeTruthy();
+    expect(within(card).getByText('ΔL′ +1.20 · ΔC′ −4.10 · ΔH′ +1.30', { exact: false })).toBeTruthy();
     expect(within(card).getByText('Mainly loss of chroma')).toBeTruthy();
     // The session measured under other conditions is listed with its reason, not plotted.
     expect(within(card).getByText(/D65\/10°: not comparable without conversion/)).toBeTruthy();

@@ -77,9 +77,9 @@ export function makeAnalysis(overrides: Partial<SpotAnalysis> = {}): SpotAnalysi
     spot: makeSpot(),
     baseline: { sessionId: SESSION1_ID, measuredOn: '2000-05-03', lab: { L: 50, a: 0, b: -82.7485 }, density: 1.2, chosen: false },
     points: [
-      { sessionId: SESSION1_ID, measuredOn: '2000-05-03', lab: { L: 50, a: 0, b: -82.7485 }, comparable: true, reason: null, dE00: 0, dE76: 0, dL: 0, dC: 0, dH: 0, dominant: null, density: 1.2, dD: 0, densityLossPercent: 0 },
-      { sessionId: SESSION2_ID, measuredOn: '2012-05-03', lab: { L: 50.5, a: 0.8, b: -80.1 }, comparable: false, reason: 'Baseline measured under D50/2°, this session under D65/10°: not comparable without conversion', dE00: null, dE76: null, dL: null, dC: null, dH: null, dominant: null, density: null, dD: null, densityLossPercent: null },
-      { sessionId: SESSION3_ID, measuredOn: '2024-05-03', lab: { L: 51.2, a: 1.9, b: -78.2 }, comparable: true, reason: null, dE00: 1.42, dE76: 4.9, dL: 1.2, dC: -4.3, dH: 1.1, dominant: 'loss of chroma', density: 1.1, dD: -0.1, densityLossPercent: 8.33 },
+      { sessionId: SESSION1_ID, measuredOn: '2000-05-03', lab: { L: 50, a: 0, b: -82.7485 }, comparable: true, reason: null, dE00: 0, dE76: 0, dL: 0, dC: 0, dH: 0, dLPrime: 0, dCPrime: 0, dHPrime: 0, dominant: null, density: 1.2, dD: 0, densityLossPercent: 0 },
+      { sessionId: SESSION2_ID, measuredOn: '2012-05-03', lab: { L: 50.5, a: 0.8, b: -80.1 }, comparable: false, reason: 'Baseline measured under D50/2°, this session under D65/10°: not comparable without conversion', dE00: null, dE76: null, dL: null, dC: null, dH: null, dLPrime: null, dCPrime: null, dHPrime: null, dominant: null, density: null, dD: null, densityLossPercent: null },
+      { sessionId: SESSION3_ID, measuredOn: '2024-05-03', lab: { L: 51.2, a: 1.9, b: -78.2 }, comparable: true, reason: null, dE00: 1.42, dE76: 4.9, dL: 1.2, dC: -4.3, dH: 1.1, dLPrime: 1.2, dCPrime: -4.1, dHPrime: 1.3, dominant: 'loss of chroma', density: 1.1, dD: -0.1, densityLossPercent: 8.33 },
     ],
     rate: { ok: true, slopePerYear: 0.0592, intercept: 0.01, standardError: 0.01, ci95: [0.04, 0.08], n: 6, spanYears: 24, r2: 0.93 },
     densityChangeRate: null,

@@ -1,3 +1,4 @@
+import { ciede2000Parts } from '@toneledger/common/domain/ciede2000-parts';
 import { averageReadings, classifyChange, comparable, densityChange, densityFromReflectance, type Lab, type MeasurementConditions, type ReadingSummary } from '@toneledger/common/domain/colour';
 import {
   labReadingSchema,
@@ -188,6 +189,9 @@ export type SpotPreview =
             dL: number;
             dC: number;
             dH: number;
+            dLPrime: number;
+            dCPrime: number;
+            dHPrime: number;
             dominant: string | null;
             atOrBeyondThreshold: boolean;
             densityLossPercent: number | null;
@@ -238,6 +242,7 @@ export function previewSpot(
       dL: change.difference.dL,
       dC: change.difference.dC,
       dH: change.difference.dH,
+      ...ciede2000Parts(baseline.lab, summary.mean),
       dominant: change.dominant,
       atOrBeyondThreshold: change.difference.dE00 >= threshold,
       densityLossPercent: density !== null && baseline.density !== null ? densityChange(baseline.density, density).percentLoss : null,

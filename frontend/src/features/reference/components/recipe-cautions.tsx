@@ -14,8 +14,9 @@ export const PRECEDENCE_NOTE =
 /** The safety cautions of a recipe, shown before anything else about mixing it. */
 export function RecipeCautions({ cautions, live = false }: { cautions: Caution[]; live?: boolean }) {
   const headingId = useId();
-  const serious = cautions.filter((c) => SERIOUS.has(c.code));
-  const general = cautions.filter((c) => !SERIOUS.has(c.code));
+  const isSerious = (code: string) => SERIOUS.has(code) || code.startsWith('chemical_');
+  const serious = cautions.filter((c) => isSerious(c.code));
+  const general = cautions.filter((c) => !isSerious(c.code));
   return (
     <section aria-labelledby={headingId} className="rounded border-2 border-sepia-700 bg-sepia-50 px-4 py-3 text-sm text-ink-900">
       <h2 id={headingId} className="flex items-center gap-2 font-sans text-base font-semibold text-sepia-800">

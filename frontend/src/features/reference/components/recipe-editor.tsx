@@ -14,7 +14,7 @@ import { useRecordForm } from '@/features/reference/components/use-record-form';
 
 const LABELS: Record<keyof RecipeValues, string> = {
   name: 'Name',
-  tonerClass: 'Toner class',
+  tonerClass: 'Toner',
   volumeMl: 'Final volume (ml)',
   ingredients: 'Ingredients',
   mixingNotes: 'Mixing notes',

@@ -1,6 +1,8 @@
 import { TONER_CLASS } from '@toneledger/common/schemas/vocab';
 import type { Recipe } from '@toneledger/common/schemas/catalogue';
+import { strengthText } from '@toneledger/common/domain/toner-chemicals';
 import { TableHead } from '@/components/ui/table-head';
+import { IngredientHazards } from '@/components/safety/ingredient-hazards';
 import { formatCount } from '@/lib/format';
 import { NormalisedTable } from '@/features/reference/components/normalised-table';
 import { RecipeCautions } from '@/features/reference/components/recipe-cautions';
@@ -14,7 +16,7 @@ export function RecipeView({ recipe }: { recipe: Recipe }) {
       <RecipeCautions cautions={recipe.cautions} />
 
       <dl className="grid grid-cols-[auto_1fr] gap-x-6 gap-y-1 text-sm">
-        <dt className="font-semibold text-ink-700">Toner class</dt>
+        <dt className="font-semibold text-ink-700">Toner</dt>
         <dd>{recipe.tonerClass ? TONER_CLASS.labels[recipe.tonerClass] : 'Not stated'}</dd>
         <dt className="font-semibold text-ink-700">Final volume</dt>
         <dd className="num">{formatQuantity(recipe.volumeMl)} ml</dd>
@@ -37,7 +39,7 @@ export function RecipeView({ recipe }: { recipe: Recipe }) {
                 'Chemical',
                 { label: 'Amount', align: 'right' },
                 'Unit',
-                { label: 'Strength (%)', align: 'right' },
+                'Strength',
                 { label: 'Density (g/ml)', align: 'right' },
               ]}
             />
@@ -47,7 +49,7 @@ export function RecipeView({ recipe }: { recipe: Recipe }) {
                   <th scope="row" className="px-3 py-2 font-medium text-ink-900">{ingredient.chemical}</th>
                   <td className="num px-3 py-2 text-right">{formatQuantity(ingredient.amount)}</td>
                   <td className="px-3 py-2">{ingredient.unit}</td>
-                  <td className="num px-3 py-2 text-right">{ingredient.strengthPercent != null ? formatQuantity(ingredient.strengthPercent) : 'pure'}</td>
+                  <td className="num px-3 py-2">{strengthText(ingredient)}</td>
                   <td className="num px-3 py-2 text-right">{formatQuantity(ingredient.densityGPerMl)}</td>
                 </tr>
               ))}
@@ -55,6 +57,8 @@ export function RecipeView({ recipe }: { recipe: Recipe }) {
           </table>
         </div>
       </section>
+
+      <IngredientHazards ingredients={recipe.ingredients} />
 
       <section aria-labelledby="recipe-per-litre" className="flex flex-col gap-2">
         <h2 id="recipe-per-litre" className="text-lg">

@@ -1,6 +1,7 @@
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
 import { createColumnHelper } from '@tanstack/react-table';
 import { can } from '@toneledger/common/domain/roles';
+import { edtfAsWritten } from '@toneledger/common/domain/edtf-words';
 import { referenceListQuerySchema, type Paper } from '@toneledger/common/schemas/catalogue';
 import { PAPER_BASE, YES_NO_UNKNOWN } from '@toneledger/common/schemas/vocab';
 import { SidePanel } from '@/components/ui/side-panel';
@@ -33,7 +34,7 @@ export function PapersPage() {
       header: 'Made',
       cell: ({ row }) =>
         row.original.madeDates ? (
-          <span title={`EDTF ${row.original.madeDates}`}>{row.original.madeDisplay ?? row.original.madeDates}</span>
+          <span title={`EDTF ${row.original.madeDates}`}>{edtfAsWritten(row.original.madeDates)}</span>
         ) : (
           <Empty>—</Empty>
         ),

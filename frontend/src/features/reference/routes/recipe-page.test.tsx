@@ -70,7 +70,7 @@ describe('RecipePage: new recipe', () => {
     const { router } = renderRecipe('/catalogue/recipes/new');
 
     type(screen.getByLabelText('Name'), 'Selenium 1+9');
-    fireEvent.change(screen.getByLabelText('Toner class'), { target: { value: 'selenium' } });
+    fireEvent.change(screen.getByLabelText('Toner'), { target: { value: 'selenium' } });
     type(screen.getByLabelText('Final volume (ml)'), '1000');
     type(ingredient(1).getByLabelText('Chemical'), 'Selenium toner concentrate');
     type(ingredient(1).getByLabelText('Amount'), '100');
@@ -122,6 +122,14 @@ describe('RecipePage: a stored recipe', () => {
     const perLitre = screen.getByRole('table', { name: 'Ingredients per litre of working bath' });
     expect(cellsOf(perLitre, 'Acetic acid')).toEqual(['130 g of 28 % solution', '260', '—', '72.8']);
     expect(screen.getByText('5 process steps')).toBeTruthy();
+    // Strength shows what the solution is, and each ingredient its hazards, marked as recalled.
+    const stated = screen.getByRole('table', { name: 'Ingredients as stated' });
+    expect(cellsOf(stated, 'Acetic acid')[2]).toBe('28 % solution');
+    expect(cellsOf(stated, 'Potassium ferricyanide')[2]).toBe('pure');
+    const hazards = screen.getByRole('region', { name: 'Hazards of the ingredients' });
+    expect(hazards.textContent).toContain('H314 Causes severe skin burns and eye damage.');
+    expect(hazards.textContent).toContain("Recalled from memory — verify against the supplier's SDS");
+    expect(hazards.textContent).toMatch(/hydrogen cyanide/);
     // A researcher reads but does not edit.
     expect(screen.queryByRole('button', { name: 'Edit recipe' })).toBeNull();
   });

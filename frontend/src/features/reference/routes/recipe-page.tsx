@@ -60,7 +60,7 @@ function ExistingRecipe({ id, canWrite }: { id: string; canWrite: boolean }) {
     );
   }
   const data = recipe.data;
-  const summary = `${data.tonerClass ? TONER_CLASS.labels[data.tonerClass] : 'Toner class not stated'} · ${formatQuantity(data.volumeMl)} ml`;
+  const summary = `${data.tonerClass ? TONER_CLASS.labels[data.tonerClass] : 'Toner not stated'} · ${formatQuantity(data.volumeMl)} ml`;
 
   return (
     <section>

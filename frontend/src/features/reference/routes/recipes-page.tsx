@@ -4,6 +4,7 @@ import { Link, useNavigate } from 'react-router-dom';
 import { can } from '@toneledger/common/domain/roles';
 import { referenceListQuerySchema, type Recipe } from '@toneledger/common/schemas/catalogue';
 import { TONER_CLASS } from '@toneledger/common/schemas/vocab';
+import { HazardMark } from '@/components/safety/ingredient-hazards';
 import { useMe } from '@/lib/auth';
 import { recipesQueryOptions } from '@/lib/reference-api';
 import { useSearchQuery } from '@/lib/search-query';
@@ -24,7 +25,7 @@ const columns = [
     ),
   }),
   column.accessor('tonerClass', {
-    header: 'Toner class',
+    header: 'Toner',
     cell: (info) => {
       const value = info.getValue();
       return value ? TONER_CLASS.labels[value] : <Empty>Not stated</Empty>;
@@ -37,6 +38,7 @@ const columns = [
     cell: (info) => <CountCell value={info.getValue()} />,
   }),
   column.accessor('stepCount', { header: 'Steps using it', cell: (info) => <CountCell value={info.getValue()} /> }),
+  column.display({ id: 'hazards', header: 'Hazards', cell: ({ row }) => <HazardMark ingredients={row.original.ingredients} /> }),
 ];
 
 export function RecipesPage() {
