@@ -35,6 +35,7 @@ import { remindersRoutes } from './routes/reminders/reminders.routes';
 import { roundsRoutes, worklistRoutes } from './routes/inspections/rounds.routes';
 import { scheduleRoutes } from './routes/inspections/schedule.routes';
 import { researchRoutes } from './routes/research/research.routes';
+import { exportsRoutes } from './routes/exports/exports.routes';
 
 /** Every route the app serves, in one list: Express mounts it and OpenAPI describes it. */
 export function allRoutes(deps: AppDeps): RouteDef[] {
@@ -63,6 +64,7 @@ export function allRoutes(deps: AppDeps): RouteDef[] {
     ...roundsRoutes(),
     ...scheduleRoutes(deps),
     ...researchRoutes(),
+    ...exportsRoutes(),
   ];
   return routes;
 }

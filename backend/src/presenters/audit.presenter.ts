@@ -1,7 +1,15 @@
 import type { AuditEvent } from '@toneledger/common/schemas/audit';
+import { actionLabel, auditSentence, readableChanges } from '@toneledger/common/fields/audit-words';
 import type { AuditEventModel } from '../models';
 
-export function presentAuditEvent(e: AuditEventModel): AuditEvent {
+/**
+ * One audit event, with its action as a sentence and each change as label, before and after in
+ * people's words (fields/audit-words.ts). `recordName` names the record when its snapshots do not
+ * (a print moved: the snapshot holds only the place), e.g. "print 1987.14.3".
+ */
+export function presentAuditEvent(e: AuditEventModel, recordName?: string | null): AuditEvent {
+  const before = e.before ?? null;
+  const after = e.after ?? null;
   return {
     id: String(e.id),
     at: e.at.toISOString(),
@@ -10,8 +18,11 @@ export function presentAuditEvent(e: AuditEventModel): AuditEvent {
     action: e.action,
     entityType: e.entityType,
     entityId: e.entityId,
-    before: e.before ?? null,
-    after: e.after ?? null,
+    before,
+    after,
     requestId: e.requestId,
+    sentence: auditSentence({ actorName: e.actorName, action: e.action, entityType: e.entityType, before, after }, recordName ?? null),
+    actionLabel: actionLabel(e.action),
+    changes: e.action === 'session.signed_in' || e.action === 'session.signed_out' ? [] : readableChanges(e.entityType, before, after),
   };
 }

@@ -1,8 +1,5 @@
 import type { Transaction } from 'sequelize';
 import { AuditEventModel } from '../models';
-import type { AuditListQuery } from '@toneledger/common/schemas/audit';
-import type { WhereOptions } from 'sequelize';
-import { presentAuditEvent } from '../presenters/audit.presenter';
 
 export interface AuditActor {
   id: string | null;
@@ -38,21 +35,4 @@ export async function recordAudit(entry: AuditEntry, transaction?: Transaction):
   );
 }
 
-export async function listAudit(query: AuditListQuery) {
-  const where: WhereOptions<AuditEventModel> = {};
-  if (query.action) Object.assign(where, { action: query.action });
-  if (query.entityType) Object.assign(where, { entityType: query.entityType });
-  if (query.entityId) Object.assign(where, { entityId: query.entityId });
-  if (query.actorId) Object.assign(where, { actorId: query.actorId });
-  const { rows, count } = await AuditEventModel.findAndCountAll({
-    where,
-    order: [
-      ['at', 'DESC'],
-      ['id', 'DESC'],
-    ],
-    limit: query.pageSize,
-    offset: (query.page - 1) * query.pageSize,
-  });
-  return { rows: rows.map(presentAuditEvent), total: count };
-}
-
+// Reading the trail (filters, sentences, the CSV export) is audit-read.service.ts.

@@ -4,6 +4,7 @@ import { bulkApi, savedSearchesApi } from './bulk';
 import { climateApi, climateSettingsApi } from './climate';
 import { conditionSettingsApi, conditionTermsApi, reportsApi } from './condition';
 import { devMailApi } from './dev-mail';
+import { exportsApi } from './exports';
 import { displaysApi, exhibitionsApi } from './exhibitions';
 import { fixityApi, imagesApi } from './images';
 import { iiifApi } from './iiif';
@@ -24,5 +25,6 @@ export const allContracts: Record<string, Contract> = {
   locationsApi, catalogueSettingsApi, imagesApi, fixityApi, iiifApi, conditionSettingsApi, conditionTermsApi, reportsApi, measurementSettingsApi,
   measurementsApi, exhibitionsApi, displaysApi, lightApi, lightSettingsApi, loansApi,
   climateApi, climateSettingsApi, scheduleApi, roundsApi, remindersApi, researchApi,
+  exportsApi,
   bulkApi, savedSearchesApi,
 };

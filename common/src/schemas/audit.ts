@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { pageQuerySchema } from './envelope';
+import { isoDate } from './primitives';
 
 export const auditEventSchema = z.object({
   id: z.string(),
@@ -12,6 +13,12 @@ export const auditEventSchema = z.object({
   before: z.unknown().nullable(),
   after: z.unknown().nullable(),
   requestId: z.string().nullable(),
+  /** The action as a sentence: "Maren Oakshott replaced the process history of print 1987.14.3." */
+  sentence: z.string(),
+  /** The action's short label ("Process history replaced"). */
+  actionLabel: z.string(),
+  /** Each changed field: its label and its values before and after as people read them (fields/audit-words.ts). */
+  changes: z.array(z.object({ field: z.string(), label: z.string(), before: z.string(), after: z.string() })),
 });
 export type AuditEvent = z.infer<typeof auditEventSchema>;
 
@@ -20,5 +27,19 @@ export const auditListQuerySchema = pageQuerySchema.extend({
   entityType: z.string().trim().max(100).optional(),
   entityId: z.string().trim().max(100).optional(),
   actorId: z.string().uuid().optional(),
+  /** Events on or after this day (UTC). */
+  from: isoDate.optional(),
+  /** Events on or before this day (UTC). */
+  to: isoDate.optional(),
 });
 export type AuditListQuery = z.infer<typeof auditListQuerySchema>;
+
+/** The filters of the audit trail without paging: what the CSV export reads. */
+export const auditExportQuerySchema = auditListQuerySchema.omit({ page: true, pageSize: true });
+export type AuditExportQuery = z.infer<typeof auditExportQuerySchema>;
+
+/** What the audit screen's pickers offer: the people who appear in the trail and the actions recorded. */
+export const auditChoicesSchema = z.object({
+  people: z.array(z.object({ id: z.string().uuid(), name: z.string() })),
+  actions: z.array(z.object({ code: z.string(), label: z.string() })),
+});
