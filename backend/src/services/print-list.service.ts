@@ -102,7 +102,9 @@ export function buildListSql(query: PrintListQuery, role: Role | null): ListSql 
   const order = SORT_SQL[query.sort] ?? SORT_SQL.accessionNumber;
   // The page's ids first (an index-only walk to any depth), then only those rows are read and joined.
   const select = `SELECT p.id, p.accession_number, p.title, p.maker_name, p.date_made, p.date_display, p.process, p.support, p.status,
-      p.toner_classes, p.paper_label, e.name AS enclosure_name, p.warning_codes, p.updated_at${restricted ? ', l.path_label AS location_label' : ''}
+      p.toner_classes, p.paper_label, e.name AS enclosure_name, p.warning_codes, p.updated_at${restricted ? ', l.path_label AS location_label' : ''},
+      (SELECT i.id FROM images i WHERE i.print_id = p.id AND i.view_type = 'recto' AND i.withdrawn_at IS NULL AND i.thumb_key IS NOT NULL
+        ORDER BY i.captured_on DESC NULLS LAST, i.uploaded_at DESC LIMIT 1) AS thumb_image_id
     FROM (SELECT p.id FROM prints p ${whereSql} ORDER BY ${order} LIMIT ${limit} OFFSET ${offset}) page
     JOIN prints p ON p.id = page.id
     LEFT JOIN enclosure_types e ON e.id = p.enclosure_id
@@ -118,7 +120,7 @@ export function buildListSql(query: PrintListQuery, role: Role | null): ListSql 
 interface ListRow {
   id: string; accession_number: string; title: string; maker_name: string | null; date_made: string | null; date_display: string | null;
   process: string; support: string | null; status: string; toner_classes: string[]; paper_label: string | null; enclosure_name: string | null;
-  warning_codes: string[]; updated_at: Date; location_label?: string | null;
+  warning_codes: string[]; updated_at: Date; location_label?: string | null; thumb_image_id?: string | null;
 }
 
 export function presentListRow(r: ListRow, restricted: boolean): PrintListItem {
@@ -126,7 +128,7 @@ export function presentListRow(r: ListRow, restricted: boolean): PrintListItem {
     id: r.id, accessionNumber: r.accession_number, title: r.title, makerName: r.maker_name, dateMade: r.date_made, dateDisplay: r.date_display,
     process: r.process as PrintListItem['process'], support: r.support as PrintListItem['support'], status: r.status as PrintListItem['status'],
     tonerClasses: r.toner_classes as PrintListItem['tonerClasses'], paperLabel: r.paper_label, enclosureName: r.enclosure_name,
-    warningCodes: r.warning_codes, updatedAt: new Date(r.updated_at).toISOString(),
+    warningCodes: r.warning_codes, updatedAt: new Date(r.updated_at).toISOString(), thumbImageId: r.thumb_image_id ?? null,
   };
   if (restricted) item.locationLabel = r.location_label ?? null;
   return item;

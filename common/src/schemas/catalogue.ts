@@ -192,6 +192,8 @@ export const printListItemSchema = z.object({
   makerName: z.string().nullable(), dateDisplay: z.string().nullable(), paperLabel: z.string().nullable(),
   enclosureName: z.string().nullable(), warningCodes: z.array(z.string()),
   locationLabel: z.string().nullable().optional(),
+  /** The latest recto image with a thumbnail (captured last, then uploaded last), for the list's thumbnail column. */
+  thumbImageId: z.string().uuid().nullable().optional(),
 });
 export type PrintListItem = z.infer<typeof printListItemSchema>;
 

@@ -142,3 +142,57 @@ describe('PrintsPage', () => {
     localStorage.removeItem('toneledger.catalogue.prints.columns');
   });
 });
+
+describe('PrintsPage selection', () => {
+  const ids = ['11111111-1111-4111-8111-000000000001', '11111111-1111-4111-8111-000000000002', '11111111-1111-4111-8111-000000000003', '11111111-1111-4111-8111-000000000004'];
+  const rows = ids.map((id, i) => makeListItem({ id, accessionNumber: `1987.14.${i + 1}`, title: `Quay ${i + 1}` }));
+  function setup(total = 4) {
+    return mockFetch({
+      ...referenceHandlers(),
+      'GET /api/prints': () => json({ data: rows, pagination: { page: 1, pageSize: 50, total } }),
+      'GET /api/saved-searches': () => json({ data: [] }),
+      'POST /api/prints-bulk/export.csv': () => new Response('accession_number\n', { headers: { 'content-type': 'text/csv', 'content-disposition': 'attachment; filename="prints-selection.csv"' } }),
+    });
+  }
+
+  it('shift-click ticks a range of rows, and the export sends exactly those ids', async () => {
+    URL.createObjectURL = () => 'blob:x';
+    URL.revokeObjectURL = () => {};
+    const { requests } = setup();
+    renderPage(<PrintsPage />, { path: '/catalogue/prints', me: makeMe('registrar') });
+    const first = await screen.findByRole('checkbox', { name: 'Select 1987.14.1' });
+    fireEvent.click(first);
+    fireEvent.click(screen.getByRole('checkbox', { name: 'Select 1987.14.3' }), { shiftKey: true });
+    expect(await screen.findByText('3 selected.')).toBeTruthy();
+    for (const n of [1, 2, 3]) expect((screen.getByRole('checkbox', { name: `Select 1987.14.${n}` }) as HTMLInputElement).checked).toBe(true);
+    expect((screen.getByRole('checkbox', { name: 'Select 1987.14.4' }) as HTMLInputElement).checked).toBe(false);
+    fireEvent.click(within(screen.getByRole('region', { name: 'Selected prints' })).getByRole('button', { name: 'Export CSV' }));
+    await waitFor(() => expect(requests.find((r) => r.path === '/api/prints-bulk/export.csv')).toBeTruthy());
+    expect(requests.find((r) => r.path === '/api/prints-bulk/export.csv')!.body).toEqual({ selection: { kind: 'ids', ids: ids.slice(0, 3) } });
+  });
+
+  it('"select all N matching" makes the selection the search, sent as filters, not ids', async () => {
+    URL.createObjectURL = () => 'blob:x';
+    URL.revokeObjectURL = () => {};
+    const { requests } = setup(48_210);
+    renderPage(<PrintsPage />, { path: '/catalogue/prints?tonerClass=iron_blue&page=2', me: makeMe('registrar') });
+    fireEvent.click(await screen.findByRole('checkbox', { name: 'Select every print on this page' }));
+    fireEvent.click(await screen.findByRole('button', { name: 'Select all 48,210 matching' }));
+    expect(await screen.findByText('All 48,210 prints matching this search are selected.')).toBeTruthy();
+    fireEvent.click(within(screen.getByRole('region', { name: 'Selected prints' })).getByRole('button', { name: 'Export CSV' }));
+    await waitFor(() => expect(requests.find((r) => r.path === '/api/prints-bulk/export.csv')).toBeTruthy());
+    expect(requests.find((r) => r.path === '/api/prints-bulk/export.csv')!.body).toEqual({ selection: { kind: 'query', query: { tonerClass: 'iron_blue', holding: 'collection' } } });
+  });
+
+  it('offers only the actions the role may take: a conservator moves and rehouses, but does not change status', async () => {
+    setup();
+    renderPage(<PrintsPage />, { path: '/catalogue/prints', me: makeMe('conservator') });
+    fireEvent.click(await screen.findByRole('checkbox', { name: 'Select 1987.14.2' }));
+    const bar = await screen.findByRole('region', { name: 'Selected prints' });
+    expect(within(bar).getByRole('button', { name: 'Move…' })).toBeTruthy();
+    expect(within(bar).getByRole('button', { name: 'Rehouse…' })).toBeTruthy();
+    expect(within(bar).queryByRole('button', { name: 'Change status…' })).toBeNull();
+    expect(within(bar).getByRole('button', { name: 'Add to round…' })).toBeTruthy();
+    expect(within(bar).queryByRole('button', { name: 'Add to exhibition…' })).toBeNull();
+  });
+});
