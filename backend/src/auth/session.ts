@@ -29,7 +29,8 @@ const USER_COLUMNS = 'u.id, u.name, u.email, u.role, u.created_at AS "createdAt"
 const UUID = '^[0-9a-fA-F]{8}-[0-9a-fA-F]{4}-[0-9a-fA-F]{4}-[0-9a-fA-F]{4}-[0-9a-fA-F]{12}$';
 const SESSION_WITH_USER =
   `SELECT s.sess, ${USER_COLUMNS} FROM ${TABLE} s ` +
-  `LEFT JOIN users u ON u.id = CASE WHEN s.sess->>'userId' ~ '${UUID}' THEN (s.sess->>'userId')::uuid END ` +
+  // A deactivated person has no user here, so their session (if any survived) signs no one in.
+  `LEFT JOIN users u ON u.id = CASE WHEN s.sess->>'userId' ~ '${UUID}' THEN (s.sess->>'userId')::uuid END AND u.deactivated_at IS NULL ` +
   'WHERE s.sid = $1 AND s.expire >= to_timestamp($2)';
 const SESSION_USER = Symbol('sessionUser');
 
@@ -128,7 +129,7 @@ export function loadUser(e: Env, pool: pg.Pool) {
       req.user = joined;
       return next();
     }
-    const { rows } = await pool.query<SignedInUser>(`SELECT ${USER_COLUMNS} FROM users u WHERE u.id = $1`, [s.userId]);
+    const { rows } = await pool.query<SignedInUser>(`SELECT ${USER_COLUMNS} FROM users u WHERE u.id = $1 AND u.deactivated_at IS NULL`, [s.userId]);
     if (rows[0]) req.user = rows[0];
     next();
   };

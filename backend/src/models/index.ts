@@ -28,6 +28,9 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare lastSignInAt: Date | null;
+  /** Set when the person was deactivated: kept in the record, cannot sign in. */
+  declare deactivatedAt: CreationOptional<Date | null>;
+  declare deactivationReason: CreationOptional<string | null>;
 }
 
 export class AuditEventModel extends Model<InferAttributes<AuditEventModel>, InferCreationAttributes<AuditEventModel>> {
@@ -56,6 +59,8 @@ export function initModels(sequelize: Sequelize): void {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
       lastSignInAt: DataTypes.DATE,
+      deactivatedAt: DataTypes.DATE,
+      deactivationReason: DataTypes.TEXT,
     },
     { sequelize, tableName: 'users', underscored: true },
   );

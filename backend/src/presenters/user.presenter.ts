@@ -3,9 +3,10 @@ import { PERMISSIONS, can, type Permission } from '@toneledger/common/domain/rol
 import type { User } from '../models';
 
 /** A user row: the model, or the columns read with the session on each request. */
-type UserRow = Pick<User, 'id' | 'email' | 'name' | 'role' | 'createdAt' | 'lastSignInAt'>;
+type UserRow = Pick<User, 'id' | 'email' | 'name' | 'role' | 'createdAt' | 'lastSignInAt'> & { deactivatedAt?: Date | null };
 
-export function presentUser(user: UserRow): UserDto {
+/** `lastAdmin`: whether this person is the one active administrator (the list and the changes work it out). */
+export function presentUser(user: UserRow, lastAdmin = false): UserDto {
   return {
     id: user.id,
     email: user.email,
@@ -13,6 +14,8 @@ export function presentUser(user: UserRow): UserDto {
     role: user.role,
     createdAt: user.createdAt.toISOString(),
     lastSignInAt: user.lastSignInAt ? user.lastSignInAt.toISOString() : null,
+    deactivatedAt: user.deactivatedAt ? user.deactivatedAt.toISOString() : null,
+    lastAdmin,
   };
 }
 

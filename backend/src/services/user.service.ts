@@ -39,6 +39,14 @@ export async function upsertOnSignIn(claims: SignInClaims, policy: SignInPolicy,
       }
     }
     const now = new Date();
+    if (user?.deactivatedAt) {
+      // Kept in the record, never signed in again: the caller sees `deactivatedAt` and refuses the session.
+      await recordAudit(
+        { actor: { id: user.id, name: user.name }, action: 'session.refused_deactivated', entityType: 'user', entityId: user.id, requestId },
+        t,
+      );
+      return user;
+    }
     if (!user) {
       const admin = email !== null && policy.adminEmails.some((a) => a.toLowerCase() === email.toLowerCase());
       user = await User.create(
@@ -107,7 +115,8 @@ export async function listUsers(query: UserListQuery) {
     limit: query.pageSize,
     offset: (query.page - 1) * query.pageSize,
   });
-  return { rows: rows.map(presentUser), total: count };
+  const admins = await activeAdmins();
+  return { rows: rows.map((u) => presentUser(u, isLastAdmin(u, admins))), total: count };
 }
 
 /** Role changes take this transaction-scoped lock, so they run one at a time. */
@@ -129,11 +138,8 @@ export async function changeRole(
     const user = await User.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
     if (!user) throw notFound('The user');
     if (user.role === role) return presentUser(user);
-    if (user.role === 'admin') {
-      const admins = await User.count({ where: { role: 'admin' }, transaction: t });
-      if (admins <= 1) {
-        throw conflict('This is the last administrator: make someone else an administrator first.');
-      }
+    if (user.role === 'admin' && !user.deactivatedAt && (await activeAdmins(t)) <= 1) {
+      throw conflict(LAST_ADMIN);
     }
     const before = presentUser(user);
     await user.update({ role }, { transaction: t });
@@ -141,6 +147,58 @@ export async function changeRole(
       { actor, action: 'user.role_changed', entityType: 'user', entityId: user.id, before: { role: before.role }, after: { role, ...(reason ? { reason } : {}) }, requestId },
       t,
     );
-    return presentUser(user);
+    return presentUser(user, isLastAdmin(user, await activeAdmins(t)));
+  });
+}
+
+const LAST_ADMIN = 'This is the last administrator: make someone else an administrator first.';
+
+/** Administrators who can still sign in. */
+function activeAdmins(transaction?: Transaction): Promise<number> {
+  return User.count({ where: { role: 'admin', deactivatedAt: null }, transaction });
+}
+
+function isLastAdmin(user: Pick<User, 'role' | 'deactivatedAt'>, admins: number): boolean {
+  return user.role === 'admin' && !user.deactivatedAt && admins <= 1;
+}
+
+/**
+ * Deactivates a person: kept in the record, refused at sign-in, and every session of theirs ends
+ * now (the rows go, and the session read ignores a deactivated user besides). Nobody deactivates
+ * themselves, and the last active administrator stays. Serialised with role changes.
+ */
+export async function deactivateUser(id: string, reason: string | undefined, actor: AuditActor & { id: string }, requestId: string | null): Promise<UserDto> {
+  return db().transaction(async (t: Transaction) => {
+    await db().query('SELECT pg_advisory_xact_lock(:key)', { replacements: { key: ROLE_CHANGE_LOCK }, transaction: t });
+    const user = await User.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
+    if (!user) throw notFound('The user');
+    if (user.deactivatedAt) return presentUser(user, false);
+    if (user.id === actor.id) throw conflict('You cannot deactivate yourself: ask another administrator.');
+    if (user.role === 'admin' && (await activeAdmins(t)) <= 1) throw conflict(LAST_ADMIN);
+    const at = new Date();
+    await user.update({ deactivatedAt: at, deactivationReason: reason ?? null }, { transaction: t });
+    const [, ended] = (await db().query(`DELETE FROM http_sessions WHERE sess->>'userId' = :id`, { replacements: { id: user.id }, transaction: t })) as [unknown, { rowCount?: number } | number];
+    await recordAudit(
+      {
+        actor, action: 'user.deactivated', entityType: 'user', entityId: user.id, before: { active: true },
+        after: { active: false, ...(reason ? { reason } : {}), sessionsEnded: typeof ended === 'number' ? ended : (ended?.rowCount ?? 0) }, requestId,
+      },
+      t,
+    );
+    return presentUser(user, false);
+  });
+}
+
+/** Lets a deactivated person sign in again, with the role they had. */
+export async function reactivateUser(id: string, actor: AuditActor, requestId: string | null): Promise<UserDto> {
+  return db().transaction(async (t: Transaction) => {
+    await db().query('SELECT pg_advisory_xact_lock(:key)', { replacements: { key: ROLE_CHANGE_LOCK }, transaction: t });
+    const user = await User.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
+    if (!user) throw notFound('The user');
+    if (user.deactivatedAt) {
+      await user.update({ deactivatedAt: null, deactivationReason: null }, { transaction: t });
+      await recordAudit({ actor, action: 'user.reactivated', entityType: 'user', entityId: user.id, before: { active: false }, after: { active: true }, requestId }, t);
+    }
+    return presentUser(user, isLastAdmin(user, await activeAdmins(t)));
   });
 }

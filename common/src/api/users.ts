@@ -1,5 +1,5 @@
 import { dataEnvelope, pageEnvelope } from '../schemas/envelope';
-import { meSchema, roleChangeSchema, userIdParamsSchema, userListQuerySchema, userSchema } from '../schemas/users';
+import { deactivationSchema, meSchema, roleChangeSchema, userIdParamsSchema, userListQuerySchema, userSchema } from '../schemas/users';
 import { auditChoicesSchema, auditEventSchema, auditExportQuerySchema, auditListQuerySchema } from '../schemas/audit';
 import { endpoint } from './endpoint';
 
@@ -19,6 +19,17 @@ export const usersApi = {
     method: 'patch', path: '/api/users/:id/role', summary: "Changes a user's role (409 if it would leave no administrator)", tags: ['users'],
     access: 'users.manage', params: userIdParamsSchema, body: roleChangeSchema,
     response: { description: 'The changed user', schema: dataEnvelope(userSchema) },
+  }),
+  deactivate: endpoint({
+    method: 'post', path: '/api/users/:id/deactivate',
+    summary: 'Deactivates a person: kept in the record, cannot sign in, their sessions end (409 for oneself or the last administrator)', tags: ['users'],
+    access: 'users.manage', params: userIdParamsSchema, body: deactivationSchema,
+    response: { description: 'The deactivated user', schema: dataEnvelope(userSchema) },
+  }),
+  reactivate: endpoint({
+    method: 'post', path: '/api/users/:id/reactivate', summary: 'Lets a deactivated person sign in again, with the role they had', tags: ['users'],
+    access: 'users.manage', params: userIdParamsSchema,
+    response: { description: 'The reactivated user', schema: dataEnvelope(userSchema) },
   }),
 };
 

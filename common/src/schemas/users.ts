@@ -11,6 +11,10 @@ export const userSchema = z.object({
   role: roleSchema,
   createdAt: z.string().datetime(),
   lastSignInAt: z.string().datetime().nullable(),
+  /** When the person was deactivated (kept in the record, cannot sign in); null while active. */
+  deactivatedAt: z.string().datetime().nullable(),
+  /** True for the one active administrator: they cannot be demoted or deactivated until someone else is an administrator. */
+  lastAdmin: z.boolean(),
 });
 export type User = z.infer<typeof userSchema>;
 
@@ -35,3 +39,8 @@ export const roleChangeSchema = z.object({
   reason: z.string().trim().max(500).optional(),
 });
 export type RoleChange = z.infer<typeof roleChangeSchema>;
+
+export const deactivationSchema = z.object({
+  reason: z.string().trim().max(500).optional(),
+});
+export type Deactivation = z.infer<typeof deactivationSchema>;

@@ -9,6 +9,8 @@ export function makeUser(overrides: Partial<User> = {}): User {
     role: 'registrar',
     createdAt: '2024-03-01T09:00:00.000Z',
     lastSignInAt: '2025-01-15T14:30:00.000Z',
+    deactivatedAt: null,
+    lastAdmin: false,
     ...overrides,
   };
 }

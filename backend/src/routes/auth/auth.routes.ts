@@ -45,6 +45,12 @@ export function authRoutes(deps: AppDeps): RouteDef[] {
           return;
         }
         const user = await upsertOnSignIn(identity, { adminEmails: env.ADMIN_EMAILS, defaultRole: env.DEFAULT_ROLE }, requestId);
+        if (user.deactivatedAt) {
+          delete req.session.pendingSignIn;
+          await save(req);
+          res.redirect(302, '/signed-out?error=deactivated');
+          return;
+        }
         // A new session id at sign-in: a session fixed before sign-in is worth nothing after it.
         await regenerate(req);
         req.session.userId = user.id;

@@ -1,6 +1,6 @@
 import { usersApi } from '@toneledger/common/api/users';
 import { implement, type RouteDef } from '../../http/route';
-import { changeRole, listUsers } from '../../services/user.service';
+import { changeRole, deactivateUser, listUsers, reactivateUser } from '../../services/user.service';
 
 export function usersRoutes(): RouteDef[] {
   return implement(usersApi, {
@@ -9,5 +9,7 @@ export function usersRoutes(): RouteDef[] {
       return { data: rows, pagination: { page: query.page, pageSize: query.pageSize, total } };
     },
     changeRole: async ({ params, body, actor, requestId }) => ({ data: await changeRole(params.id, body.role, body.reason, actor, requestId) }),
+    deactivate: async ({ params, body, actor, requestId }) => ({ data: await deactivateUser(params.id, body.reason, actor, requestId) }),
+    reactivate: async ({ params, actor, requestId }) => ({ data: await reactivateUser(params.id, actor, requestId) }),
   });
 }

@@ -37,6 +37,18 @@ export function RoleControl({ user }: { user: User }) {
     form.reset({ reason: '' });
   }
 
+  // The last-admin guard, shown before any demotion is offered (the server refuses it too).
+  if (user.lastAdmin && !pending) {
+    return (
+      <div className="flex min-w-52 flex-col gap-1">
+        <span className="text-sm font-medium text-ink-900">{ROLE_LABELS[saved]}</span>
+        <span className="text-xs text-ink-700" id={`last-admin-${user.id}`}>
+          The only administrator: make someone else an administrator before changing this role.
+        </span>
+      </div>
+    );
+  }
+
   return (
     <div className="flex min-w-52 flex-col gap-2">
       <select

@@ -4,6 +4,7 @@ import { userListQuerySchema, type User, type UserListQuery } from '@toneledger/
 import { DataTable } from '@/components/ui/data-table';
 import { formatDate, formatDateTime } from '@/lib/format';
 import { sortingToSort, sortToSorting, useServerTable } from '@/lib/server-table';
+import { ActivationControl } from '@/features/users/components/activation-control';
 import { RoleControl } from '@/features/users/components/role-control';
 
 type Sort = UserListQuery['sort'];
@@ -23,6 +24,11 @@ const columns = [
   column.accessor('role', {
     header: 'Role',
     cell: (info) => <RoleControl user={info.row.original} />,
+  }),
+  column.accessor('deactivatedAt', {
+    header: 'Sign-in',
+    enableSorting: false,
+    cell: (info) => <ActivationControl user={info.row.original} />,
   }),
   column.accessor('lastSignInAt', {
     header: 'Last signed in',

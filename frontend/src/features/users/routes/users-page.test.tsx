@@ -99,6 +99,48 @@ describe('UsersPage', () => {
     expect(within(row).getByRole('alert')).toBe(alert);
   });
 
+  it('shows the last-admin guard before any demotion is offered: no role choice, no deactivation', async () => {
+    const sole = { ...onlyAdmin, lastAdmin: true };
+    mockFetch({ 'GET /api/users': () => page([ada, sole]) });
+    renderPage(<UsersPage />, { path: '/admin/users', me: makeMe('admin') });
+    await screen.findByRole('combobox', { name: 'Role of Ada Marsh' });
+    expect(screen.queryByRole('combobox', { name: 'Role of Bram Otley' })).toBeNull();
+    const row = screen.getByText('Bram Otley').closest('tr')!;
+    expect(within(row).getByText(/The only administrator: make someone else an administrator before changing this role/)).toBeTruthy();
+    expect(within(row).queryByRole('button', { name: 'Deactivate Bram Otley' })).toBeNull();
+    expect(within(row).getByText('The only administrator: make someone else an administrator first.')).toBeTruthy();
+  });
+
+  it('deactivates a person after confirming, with a reason, and reactivates a deactivated one', async () => {
+    const gone = makeUser({ id: '7c7c7c7c-1111-4222-8333-444455556666', name: 'Wenna Pascoe', email: 'wenna@example.test', role: 'viewer', deactivatedAt: '2026-11-30T10:00:00.000Z' });
+    const { requests } = mockFetch({
+      'GET /api/users': () => page([ada, onlyAdmin, gone]),
+      [`POST /api/users/${ada.id}/deactivate`]: () => json({ data: { ...ada, deactivatedAt: '2026-12-02T10:00:00.000Z' } }),
+      [`POST /api/users/${gone.id}/reactivate`]: () => json({ data: { ...gone, deactivatedAt: null } }),
+    });
+    renderPage(<UsersPage />, { path: '/admin/users', me: makeMe('admin') });
+    fireEvent.click(await screen.findByRole('button', { name: 'Deactivate Ada Marsh' }));
+    const confirm = screen.getByRole('group', { name: 'Confirm deactivation of Ada Marsh' });
+    expect(confirm.textContent).toMatch(/stay in the record, cannot sign in, and any session of theirs ends now/);
+    fireEvent.change(within(confirm).getByLabelText(/Reason/), { target: { value: 'Left the institution' } });
+    fireEvent.click(within(confirm).getByRole('button', { name: 'Deactivate' }));
+    await waitFor(() => expect(requests.find((r) => r.method === 'POST' && r.path.endsWith('/deactivate'))?.body).toEqual({ reason: 'Left the institution' }));
+
+    const goneRow = screen.getByText('Wenna Pascoe').closest('tr')!;
+    expect(within(goneRow).getByText(/^Deactivated/)).toBeTruthy();
+    fireEvent.click(within(goneRow).getByRole('button', { name: 'Reactivate Wenna Pascoe' }));
+    await waitFor(() => expect(requests.some((r) => r.method === 'POST' && r.path === `/api/users/${gone.id}/reactivate`)).toBe(true));
+  });
+
+  it('offers no deactivation of oneself', async () => {
+    const me = makeMe('admin');
+    mockFetch({ 'GET /api/users': () => page([ada, { ...onlyAdmin, id: me.id, name: me.name }]) });
+    renderPage(<UsersPage />, { path: '/admin/users', me });
+    await screen.findByRole('button', { name: 'Deactivate Ada Marsh' });
+    expect(screen.queryByRole('button', { name: `Deactivate ${me.name}` })).toBeNull();
+    expect(screen.getByText('You cannot deactivate yourself.')).toBeTruthy();
+  });
+
   it('shows a load failure with its request id', async () => {
     mockFetch({ 'GET /api/users': () => errorResponse(403, 'forbidden', 'Only administrators manage people.') });
     renderPage(<UsersPage />, { path: '/admin/users', me: makeMe('admin') });
