@@ -7,7 +7,9 @@
  *    background job runs (the thumbnail), timed apart from the queue's wait. Beside it: sharp alone, reading the
  *    same file and making the same two resizes. Target: pipeline within 1.5 × sharp alone, as the
  *    median of 25 per-run ratios (BENCH_IMAGE_RUNS), the two alternating which goes first.
- * 2. Memory while a 200 MB upload streams in, against a 20 MB one: resident memory of the server
+ * 2. IIIF tiles of that image (512 px at full resolution and at a quarter): the first request of each
+ *    tile, made from the original and stored, against the same request again, read from storage.
+ * 3. Memory while a 200 MB upload streams in, against a 20 MB one: resident memory of the server
  *    process is sampled every 20 ms; a streamed upload does not grow with the file's size.
  *
  * What is timed is the app's own process: the local services (PostgreSQL, S3, identity provider,
@@ -17,6 +19,7 @@
  *
  * It runs on fresh local services in a temporary folder, sends requests only to 127.0.0.1, and stops by itself.
  */
+import http from 'node:http';
 import { mkdtempSync, rmSync, statSync, createReadStream, openSync, writeSync, closeSync } from 'node:fs';
 import { execFile, spawn } from 'node:child_process';
 import os from 'node:os';
@@ -84,6 +87,57 @@ async function sampleRss<T>(work: () => Promise<T>): Promise<{ result: T; peakMb
     return { result, peakMb: peak, baseMb };
   } finally {
     clearInterval(timer);
+  }
+}
+
+/** GET through the measured app: status, cache header and milliseconds to the last byte. */
+function timedGet(url: URL, cookie: string): Promise<{ status: number; cache: string; ms: number }> {
+  return new Promise((resolve, reject) => {
+    const t0 = performance.now();
+    const req = http.get(url, { headers: { cookie } }, (res) => {
+      res.on('data', () => {});
+      res.on('end', () => resolve({ status: res.statusCode ?? 0, cache: String(res.headers['x-iiif-cache'] ?? ''), ms: performance.now() - t0 }));
+    });
+    req.on('error', reject);
+  });
+}
+
+/**
+ * IIIF tiles of the 24-megapixel JPEG as a deep-zoom viewer asks for them (512-pixel tiles at full
+ * resolution and at a quarter): each tile's first request (made from the original and stored) against
+ * the same request again (read back from object storage).
+ */
+async function benchIiifTiles(base: string, cookie: string, origin: string, uploadUrl: URL, jpeg: string, derive: (id: string) => Promise<void>) {
+  const res = await multipartUpload(uploadUrl, cookie, origin, jpeg);
+  const id = JSON.parse(res.body).data.id as string;
+  await derive(id);
+  const full = Array.from({ length: 12 }, (_, i) => `${(i % 6) * 1024},${Math.floor(i / 6) * 1024},512,512/512,/0/default.jpg`);
+  const quarter = Array.from({ length: 6 }, (_, i) => `${(i % 3) * 2048},${Math.floor(i / 3) * 2048},2048,2048/512,/0/default.jpg`);
+  const url = (tile: string) => new URL(`/api/iiif/images/${id}/${tile}`, base);
+  const info = await timedGet(new URL(`/api/iiif/images/${id}/info.json`, base), cookie);
+  const rows: [string, number[], number[]][] = [];
+  let first = 0;
+  for (const [name, tiles] of [['full resolution (scale factor 1)', full], ['a quarter (scale factor 4)', quarter]] as const) {
+    const cold: number[] = [];
+    const warm: number[] = [];
+    for (const tile of tiles) {
+      const a = await timedGet(url(tile), cookie);
+      if (a.status !== 200 || a.cache !== 'miss') throw new Error(`tile ${tile}: ${a.status} ${a.cache}`);
+      if (!first) first = a.ms;
+      else cold.push(a.ms);
+    }
+    for (const tile of tiles) {
+      const b = await timedGet(url(tile), cookie);
+      if (b.status !== 200 || b.cache !== 'hit') throw new Error(`tile ${tile} again: ${b.status} ${b.cache}`);
+      warm.push(b.ms);
+    }
+    rows.push([name, cold, warm]);
+  }
+  console.log('');
+  console.log(`IIIF tiles of the 24-megapixel JPEG, 512 px, as a conservator (original); load average ${os.loadavg().map((x) => x.toFixed(2)).join(' ')}`);
+  console.log(`  info.json ${info.ms.toFixed(1)} ms; the first tile ${first.toFixed(0)} ms (it also reads the 24 MP original from storage into memory)`);
+  for (const [name, cold, warm] of rows) {
+    console.log(`  ${name.padEnd(34)} made now: median ${median(cold).toFixed(0).padStart(4)} ms (${cold.length})   from storage: median ${median(warm).toFixed(1).padStart(5)} ms (${warm.length})`);
   }
 }
 
@@ -184,6 +238,8 @@ export async function runImageBench(): Promise<void> {
     console.log(`  sharp alone, same resizes                                              ${median(alone).toFixed(0).padStart(6)} ms`);
     console.log(`  ratio pipeline / sharp alone, median of the ${runs} per-run ratios: ${ratio.toFixed(2)}× (quartiles ${quartile(ratios, 0.25).toFixed(2)}–${quartile(ratios, 0.75).toFixed(2)}; ratio of medians ${(median(pipeline) / median(alone)).toFixed(2)}×)   target < 1.5×: ${ratio < 1.5 ? 'met' : 'NOT met'}`);
     console.log('  (the queue\'s pick-up wait, up to its 1 s polling interval, is not counted: it is latency, not work)');
+
+    await benchIiifTiles(measured.url, cookie, origin, uploadUrl, jpeg, async (id) => makeDerivatives(store, id));
 
     // Memory while streaming: junk bodies with a JPEG signature stream fully to disk, then fail the decode check.
     const makeFile = (mb: number) => {

@@ -1,13 +1,17 @@
 import { useId, useState } from 'react';
 import { can, type Role } from '@toneledger/common/domain/roles';
 import { VIEW_TYPE_LABELS, type PrintImage } from '@toneledger/common/schemas/images';
+import { Button } from '@/components/ui/button';
 import { ErrorNotice, Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/loading';
 import { formatDateTime } from '@/lib/format';
 import { useImages } from '@/lib/images-api';
 import { FixityBadge } from '@/features/condition/components/fixity-badge';
 import { ImageDetails } from '@/features/condition/components/image-details';
+import { ImageViewerDialog } from '@/features/condition/components/image-viewer-dialog';
+import { ManifestLink } from '@/features/condition/components/manifest-link';
 import { UploadQueue } from '@/features/condition/components/upload-queue';
+import { imageLabel } from '@/features/condition/components/region-drawer';
 import { formatDay } from '@/features/condition/utils/format';
 
 function Thumb({ image }: { image: PrintImage }) {
@@ -26,6 +30,7 @@ export function ImagesPanel({ printId, role }: { printId: string; role: Role }) 
   const [includeWithdrawn, setIncludeWithdrawn] = useState(false);
   const [selected, setSelected] = useState<string | null>(null);
   const [withdrawn, setWithdrawn] = useState<PrintImage | null>(null);
+  const [viewing, setViewing] = useState<PrintImage | null>(null);
   const images = useImages(printId, { includeWithdrawn });
   const current = images.data?.find((i) => i.id === selected) ?? null;
   const pending = images.data?.some((i) => i.derivatives === 'pending');
@@ -76,11 +81,18 @@ export function ImagesPanel({ printId, role }: { printId: string; role: Role }) 
                   </span>
                   {image.withdrawn ? <span className="text-xs font-semibold text-sepia-800">Withdrawn</span> : null}
                 </button>
+                {image.urls.screen && !image.withdrawn ? (
+                  <Button size="sm" variant="quiet" className="mt-1 w-full" onClick={() => setViewing(image)} title={`Zoom into ${imageLabel(image)}`}>
+                    Zoom in the viewer
+                  </Button>
+                ) : null}
               </li>
             ))}
           </ul>
         )
       ) : null}
+      {images.data && images.data.length > 0 ? <ManifestLink printId={printId} /> : null}
+      {viewing ? <ImageViewerDialog key={viewing.id} image={viewing} onClose={() => setViewing(null)} /> : null}
       {pending ? (
         <p role="status" className="mt-2 text-xs text-ink-700">
           Display copies are being made; this list updates by itself.

@@ -10,12 +10,13 @@ import { useDocumentTitle } from '@/lib/use-document-title';
 import { useImages } from '@/lib/images-api';
 import { usePrint } from '@/lib/prints-api';
 import { useAlignment } from '@/features/condition/api/alignment';
+import { LinkedDeepZoom } from '@/features/condition/components/linked-deep-zoom';
 import { OverlayCompare } from '@/features/condition/components/overlay-compare';
 import { imageLabel } from '@/features/condition/components/region-drawer';
 import { byCapture, defaultPair } from '@/features/condition/utils/compare';
 import { NotLoaded } from '@/features/condition/routes/print-not-loaded';
 
-type Mode = 'side' | 'overlay';
+type Mode = 'side' | 'zoom' | 'overlay';
 
 function Figure({ image, caption }: { image: PrintImage; caption: string }) {
   return (
@@ -110,6 +111,9 @@ export function ComparePage() {
                 <input type="radio" name="compare-mode" checked={mode === 'side'} onChange={() => setMode('side')} /> Side by side
               </label>
               <label className="flex items-center gap-1.5">
+                <input type="radio" name="compare-mode" checked={mode === 'zoom'} onChange={() => setMode('zoom')} /> Zoom side by side
+              </label>
+              <label className="flex items-center gap-1.5">
                 <input type="radio" name="compare-mode" checked={mode === 'overlay'} onChange={() => setMode('overlay')} /> Overlay
               </label>
             </fieldset>
@@ -124,6 +128,8 @@ export function ComparePage() {
               <Figure image={a} caption="Earlier" />
               <Figure image={b} caption="Later" />
             </div>
+          ) : mode === 'zoom' ? (
+            <LinkedDeepZoom key={`${a.id}-${b.id}`} a={a} b={b} />
           ) : alignment.isPending ? (
             <Loading label="Loading the saved alignment…" />
           ) : (
