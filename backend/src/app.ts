@@ -36,6 +36,7 @@ import { roundsRoutes, worklistRoutes } from './routes/inspections/rounds.routes
 import { scheduleRoutes } from './routes/inspections/schedule.routes';
 import { researchRoutes } from './routes/research/research.routes';
 import { exportsRoutes } from './routes/exports/exports.routes';
+import { preservationRoutes } from './routes/preservation/preservation.routes';
 
 /** Every route the app serves, in one list: Express mounts it and OpenAPI describes it. */
 export function allRoutes(deps: AppDeps): RouteDef[] {
@@ -65,6 +66,7 @@ export function allRoutes(deps: AppDeps): RouteDef[] {
     ...scheduleRoutes(deps),
     ...researchRoutes(),
     ...exportsRoutes(),
+    ...preservationRoutes(deps),
   ];
   return routes;
 }

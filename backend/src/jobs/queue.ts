@@ -13,6 +13,8 @@ export const QUEUES = {
   scheduleRecompute: 'schedule-recompute',
   digestTick: 'digest-tick',
   digestSend: 'digest-send',
+  bagExport: 'bag-export',
+  bagImport: 'bag-import',
 } as const;
 export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
 

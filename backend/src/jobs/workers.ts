@@ -6,6 +6,7 @@ import { resumeImports, runImportJob } from '../services/import.service';
 import { recomputeJob, resumeLightRecompute } from '../services/light-recompute.service';
 import { markUnscheduled, processStale, resumeScheduleRecompute, scheduleRecomputeJob } from '../services/schedule-jobs';
 import { startDigestWorkers } from './digest-workers';
+import { runExport, runImport } from '../services/preservation.service';
 import type { DigestContext } from '../services/digest.service';
 
 export interface WorkerSettings {
@@ -60,4 +61,11 @@ export async function startWorkers(queue: JobQueue, store: ObjectStore, logger: 
   await boss.schedule(QUEUES.fixity, settings.fixityCron, {}, { tz: 'UTC' });
   await boss.schedule(QUEUES.purge, '15 3 * * *', {}, { tz: 'UTC' });
   if (settings.digest) await startDigestWorkers(queue, settings.digest, logger);
+  // Preservation packages: a bag written or brought in (a job run again after a crash starts over; an import's transaction left nothing).
+  await boss.work<{ jobId: string }>(QUEUES.bagExport, { batchSize: 1, pollingIntervalSeconds: 2 }, async ([job]) => {
+    await runExport(job.data.jobId, store);
+  });
+  await boss.work<{ jobId: string }>(QUEUES.bagImport, { batchSize: 1, pollingIntervalSeconds: 2 }, async ([job]) => {
+    await runImport(job.data.jobId, store);
+  });
 }

@@ -13,6 +13,7 @@ import { remindersApi, roundsApi, scheduleApi } from './inspections';
 import { lightApi, lightSettingsApi } from './light';
 import { loansApi } from './loans';
 import { measurementSettingsApi, measurementsApi } from './measurements';
+import { preservationApi } from './preservation';
 import { printsApi } from './prints';
 import { researchApi } from './research';
 import { catalogueSettingsApi, enclosuresApi, locationsApi, makersApi, papersApi, recipesApi } from './reference';
@@ -27,4 +28,5 @@ export const allContracts: Record<string, Contract> = {
   climateApi, climateSettingsApi, scheduleApi, roundsApi, remindersApi, researchApi,
   exportsApi,
   bulkApi, savedSearchesApi,
+  preservationApi,
 };

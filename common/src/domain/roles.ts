@@ -59,6 +59,12 @@ export const PERMISSIONS = {
   'research.run': ['admin', 'conservator', 'researcher'],
   /** Cohort datasets out (Frictionless Data Packages); audited. */
   'research.export': ['admin', 'conservator', 'researcher'],
+  /** The whole collection out as a BagIt bag (records, images, audit trail); audited. */
+  'collection.export': ['admin'],
+  /** A selection of prints (a catalogue search or a list) out as a BagIt bag; audited. */
+  'selection.export': ['admin', 'registrar'],
+  /** A bag brought into an installation that holds no prints; audited. */
+  'collection.import': ['admin'],
   'users.manage': ['admin'],
   'audit.read': ['admin'],
   'settings.manage': ['admin'],
