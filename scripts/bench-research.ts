@@ -1,7 +1,8 @@
 /**
  * The longevity-research scenarios of `npm run bench` ("research, …"), on the toneledger_scale
  * database (`npm run seed:scale`), in process: the cohort service as a request runs it (statement,
- * grouping and statistics), beside the bare statement (`buildCohortSql`'s text alone). First fills
+ * grouping and statistics), beside the bare statement (`buildAggregateSql`'s text alone, with the
+ * service's session settings: `withWorkMem`). First fills
  * `print_outcomes` for prints without a row (as the workers do at start), batch by batch, and says
  * how long that took. Medians of 5 runs after one warm-up. Run alone with `npm run bench -- --only research`.
  *
@@ -37,11 +38,12 @@ try {
   const { db } = await import('../backend/src/db');
   const { migrateUp } = await import('../backend/src/migrate');
   const { recomputeOutcomes } = await import('../backend/src/services/print-outcomes');
-  const { runCohort } = await import('../backend/src/services/cohort.service');
+  const { runCohort, withWorkMem } = await import('../backend/src/services/cohort.service');
   const { buildAggregateSql } = await import('../backend/src/services/cohort-aggregate');
-  const { pgRows } = await import('../backend/src/services/print-list.service');
   const { cohortQuerySchema } = await import('../common/src/schemas/research');
+  const { getMeasurementSettings } = await import('../backend/src/services/measurement.service');
   await migrateUp(db());
+  const { noticeableDeltaE } = await getMeasurementSettings();
   const [[{ n, have, measured }]] = (await db().query(
     `SELECT (SELECT count(*) FROM prints)::int AS n, (SELECT count(*) FROM print_outcomes)::int AS have, (SELECT count(DISTINCT print_id) FROM spot_readings)::int AS measured`,
   )) as unknown as [[{ n: number; have: number; measured: number }]];
@@ -62,9 +64,10 @@ try {
   for (const sc of SCENARIOS) {
     if (ONLY && !sc.name.includes(ONLY) && !'research'.includes(ONLY)) continue;
     const q = cohortQuerySchema.parse(sc.query);
-    const sql = buildAggregateSql(q, q.event.thresholdDeltaE ?? 1.6, { places: new Map(), pointsCap: 500 });
+    // The threshold the service uses: the query's, else the settings' (the stored first-event day is read for that one).
+    const sql = buildAggregateSql(q, q.event.thresholdDeltaE ?? noticeableDeltaE, { places: new Map(), pointsCap: 500 });
     if (EXPLAIN) {
-      const plan = await pgRows<{ 'QUERY PLAN': string }>(`EXPLAIN (ANALYZE, BUFFERS) ${sql.text}`, sql.values);
+      const plan = await withWorkMem<{ 'QUERY PLAN': string }>(`EXPLAIN (ANALYZE, BUFFERS) ${sql.text}`, sql.values);
       log(`${sc.name}, plan:\n${plan.map((r) => r['QUERY PLAN']).join('\n')}`);
       continue;
     }
@@ -75,7 +78,7 @@ try {
       const a = performance.now();
       last = await runCohort(q);
       const b = performance.now();
-      await pgRows(sql.text, sql.values);
+      await withWorkMem(sql.text, sql.values);
       const c = performance.now();
       if (i > 0) { api.push(b - a); bare.push(c - b); }
     }

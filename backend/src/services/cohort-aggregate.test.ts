@@ -1,7 +1,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { describe as summarise } from '@toneledger/common/domain/distribution';
 import { testApp } from '../../test/app';
-import { pickEvenly } from './cohort-aggregate';
+import { QUARTILES, pickEvenly } from './cohort-aggregate';
 import { pgRows } from './print-list.service';
 
 // The aggregated cohort statement computes quartiles with PostgreSQL's percentile_cont and picks the
@@ -32,6 +32,25 @@ describe('percentile_cont', () => {
       expect(row!.q[1]).toBeCloseTo(d.median!, 12);
       expect(row!.q[2]).toBeCloseTo(d.q3!, 12);
       expect([row!.lo, row!.hi]).toEqual([d.min, d.max]);
+    }
+  });
+});
+
+describe('the quartiles from the ranks', () => {
+  it('equal percentile_cont exactly (same float8 operations), ties, small n and two groups included', async () => {
+    // The figures' statement ranks each rate once and reads the quartiles from the ranks (QUARTILES);
+    // percentile_cont, checked above against describe, is the reference, to the last bit.
+    const lists = [[7], [1, 2], [3, 1, 2, 4], [1, 1, 1, 5, 9, 9], [0.1, 0.2, 0.3], values(11), values(12), values(1001), values(2000).map((v) => v / 7)];
+    for (const list of lists) {
+      const [row] = await pgRows<{ mine: number[]; pg: number[]; other: number[] }>(
+        `WITH x AS (SELECT g, v FROM unnest($1::float8[]) WITH ORDINALITY AS u(v, i) CROSS JOIN (VALUES ('a'), ('b')) AS gs(g) WHERE g = 'a' OR i % 2 = 0),
+              r AS (SELECT g AS k0, NULL::text AS k1, 'de'::text AS metric, v, row_number() OVER (PARTITION BY g ORDER BY v) AS rn, count(*) OVER (PARTITION BY g) AS n FROM x)
+         SELECT (SELECT qs FROM (${QUARTILES}) q WHERE k0 = 'a') AS mine,
+                (SELECT percentile_cont(ARRAY[0.25, 0.5, 0.75]) WITHIN GROUP (ORDER BY v) FROM x WHERE g = 'a') AS pg,
+                (SELECT json_build_array((SELECT qs FROM (${QUARTILES}) q WHERE k0 = 'b'), (SELECT to_json(percentile_cont(ARRAY[0.25, 0.5, 0.75]) WITHIN GROUP (ORDER BY v)) FROM x WHERE g = 'b'))) AS other`,
+        [list]);
+      expect(row!.mine, JSON.stringify(list.slice(0, 6))).toEqual(row!.pg);
+      expect(row!.other[0]).toEqual(row!.other[1]);
     }
   });
 });

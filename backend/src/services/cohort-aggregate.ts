@@ -25,6 +25,22 @@ import { cohortBase, type CohortSql } from './cohort-sql';
 export const pickEvenly = (rn: string, n: string, cap: string) =>
   `(${n} <= ${cap} OR (${rn} - 1) = round(round((${rn} - 1) * (${cap} - 1)::numeric / (${n} - 1)) * (${n} - 1) / (${cap} - 1)::numeric))`;
 
+/**
+ * The quartiles of each group's rate from its ranked rows (`r`: rank `rn` of `n` by value), as
+ * `percentile_cont(ARRAY[0.25, 0.5, 0.75])` computes them, without a sort of its own: for each p,
+ * h = p·(n − 1) in float8, the values at ranks 1 + floor(h) and 1 + ceil(h), and lo + (h − floor(h))·(hi − lo)
+ * (PostgreSQL's float8 interpolation, operation for operation), or lo when h is whole; R's type 7, the rule of
+ * `describe`. `cohort-aggregate.test.ts` checks it equals `percentile_cont` exactly.
+ */
+export const QUARTILES = `SELECT k0, k1, metric, json_build_array(${[0.25, 0.5, 0.75].map((p) => {
+  const h = `${p}::float8 * (n - 1)::float8`;
+  const lo = `min(v) FILTER (WHERE rn = 1 + floor(${h}))`;
+  const hi = `min(v) FILTER (WHERE rn = 1 + ceil(${h}))`;
+  return `CASE WHEN ceil(${h}) > floor(${h}) THEN ${lo} + ((${h} - floor(${h})) * (${hi} - ${lo})) ELSE ${lo} END`;
+}).join(', ')}) AS qs
+    FROM r WHERE ${[0.25, 0.5, 0.75].map((p) => `rn IN (1 + floor(${p}::float8 * (n - 1)::float8), 1 + ceil(${p}::float8 * (n - 1)::float8))`).join(' OR ')}
+   GROUP BY k0, k1, metric, n`;
+
 export interface AggregateOptions {
   /** Location id → the name of the place under the filter it lies in (`placeGroups`). */
   places: Map<string, string>;
@@ -55,30 +71,36 @@ export function buildAggregateSql(q: CohortQuery, threshold: number, options: Ag
   const k1 = code(1, q.groupBy[1]);
   const med = `m AS (SELECT ${q.groupBy.map((f, i) => (COHORT_FACTORS[f].kind === 'number' && !q.bands?.[f] ? `(SELECT percentile_cont(0.5) WITHIN GROUP (ORDER BY g${i}::float8) FROM c)` : 'NULL::float8') + ` AS g${i}`).concat(q.groupBy.length < 1 ? ['NULL::float8 AS g0'] : [], q.groupBy.length < 2 ? ['NULL::float8 AS g1'] : []).join(', ')})`;
   const cap = options.pointsCap === null ? 'NULL' : bind(options.pointsCap, 'int');
-  // Ranked on the narrow columns; the accession numbers are read for the kept points only.
-  const pts = (col: string, metric: string) => `SELECT k0, k1, '${metric}' AS metric, id, ${col} AS v,
+  // Each rate ranked once per group (one sort): the ranks give both the quartiles (`QUARTILES`) and
+  // the strip-plot points; the accession numbers are read for the kept points only.
+  const ranked = (col: string, metric: string) => `SELECT k0, k1, '${metric}'::text AS metric, id, ${col} AS v,
            row_number() OVER (PARTITION BY k0, k1 ORDER BY ${col}, id) AS rn, count(*) OVER (PARTITION BY k0, k1) AS n
       FROM k WHERE ${col} IS NOT NULL`;
   const keep = options.pointsCap === null ? 'true' : pickEvenly('rn', 'n', cap);
+  // One row per print in c unless it is grouped by toner class (a print toned twice is in both groups).
+  const perPrint = q.groupBy.includes('tonerClass') ? 'count(DISTINCT id)' : 'count(*)';
   const cox = q.coxFactors.length
-    ? `(SELECT json_agg(json_build_array(x, time, event, n)) FROM (SELECT x, time, event, count(DISTINCT id)::int AS n FROM c WHERE time IS NOT NULL GROUP BY x, time, event) x)`
+    ? `(SELECT json_agg(json_build_array(x, time, event, n)) FROM (SELECT x, time, event, ${perPrint}::int AS n FROM c WHERE time IS NOT NULL GROUP BY x, time, event) x)`
     : 'NULL::json';
+  const dist = (metric: string, col: string) => `json_build_array(count(${col}), min(${col}), max(${col}),
+                   (SELECT q.qs FROM qs q WHERE q.metric = '${metric}' AND q.k0 IS NOT DISTINCT FROM k.k0 AND q.k1 IS NOT DISTINCT FROM k.k1))`;
   const text = `${head}c AS MATERIALIZED (${c}),
 ${med},
-k AS MATERIALIZED (SELECT c.*, ${k0} AS k0, ${k1} AS k1 FROM c CROSS JOIN m)
-SELECT (SELECT count(DISTINCT id) FROM c)::int AS total,
+k AS MATERIALIZED (SELECT c.*, ${k0} AS k0, ${k1} AS k1 FROM c CROSS JOIN m),
+r AS MATERIALIZED (
+  ${ranked('de_per_year', 'de')}
+  UNION ALL
+  ${ranked('density_loss_per_year', 'dl')}),
+qs AS MATERIALIZED (${QUARTILES}),
+g AS (SELECT k0, k1, count(*)::int AS size, count(de_per_year)::int AS with_rate, count(time)::int AS with_survival,
+             (count(*) FILTER (WHERE has_report))::int AS reports, ${dist('de', 'de_per_year')} AS de, ${dist('dl', 'density_loss_per_year')} AS dl
+        FROM k GROUP BY k0, k1)
+SELECT (SELECT ${perPrint} FROM c)::int AS total,
        (SELECT min(computed_at) FROM c) AS as_of,
        (SELECT json_build_array(g0, g1) FROM m) AS medians,
-       (SELECT json_agg(json_build_array(k0, k1, size, with_rate, with_survival, reports, de, dl)) FROM (
-          SELECT k0, k1, count(*)::int AS size, count(de_per_year)::int AS with_rate, count(time)::int AS with_survival,
-                 (count(*) FILTER (WHERE has_report))::int AS reports,
-                 json_build_array(count(de_per_year), min(de_per_year), max(de_per_year), percentile_cont(ARRAY[0.25, 0.5, 0.75]) WITHIN GROUP (ORDER BY de_per_year)) AS de,
-                 json_build_array(count(density_loss_per_year), min(density_loss_per_year), max(density_loss_per_year), percentile_cont(ARRAY[0.25, 0.5, 0.75]) WITHIN GROUP (ORDER BY density_loss_per_year)) AS dl
-            FROM k GROUP BY k0, k1) g) AS groups,
-       (SELECT json_agg(json_build_array(k0, k1, metric, id, (SELECT pr.accession_number FROM prints pr WHERE pr.id = p.id), v) ORDER BY metric, k0, k1, rn) FROM (
-          ${pts('de_per_year', 'de')}
-          UNION ALL
-          ${pts('density_loss_per_year', 'dl')}) p WHERE ${keep}) AS points,
+       (SELECT json_agg(json_build_array(k0, k1, size, with_rate, with_survival, reports, de, dl)) FROM g) AS groups,
+       (SELECT json_agg(json_build_array(k0, k1, metric, id, (SELECT pr.accession_number FROM prints pr WHERE pr.id = r.id), v) ORDER BY metric, k0, k1, rn)
+          FROM r WHERE ${keep}) AS points,
        (SELECT json_agg(json_build_array(k0, k1, time, event, n)) FROM (
           SELECT k0, k1, time, event, count(*)::int AS n FROM k WHERE time IS NOT NULL GROUP BY k0, k1, time, event) s) AS survival,
        (SELECT json_agg(json_build_array(k0, k1, term, n)) FROM (

@@ -12,7 +12,7 @@ import type { CohortQuery } from '@toneledger/common/schemas/research';
  */
 
 type Need = 'steps' | 'paper' | 'enclosure' | 'outcomes';
-/** The aggregates over a print's process steps a factor reads (only those are computed). */
+/** The aggregates over a print's process steps a factor reads (columns of `print_step_factors`). */
 type StepColumn = 'n' | 'toned' | 'seq' | 'toning_min' | 'extent' | 'wash_min' | 'hypo' | 'alk_yes' | 'alk_unknown';
 interface FactorSql { expr: string; needs: Need[]; steps?: StepColumn[] }
 
@@ -45,35 +45,20 @@ export const FACTOR_SQL: Record<CohortFactorCode, FactorSql> = {
   maker: { expr: 'p.maker_name', needs: [] },
 };
 
+/**
+ * The step aggregates come from `print_step_factors`, one row per print with steps, kept by triggers
+ * on `process_steps` in the transaction that changes them (migration 20261203100000): a cohort query
+ * never aggregates the steps. A print without steps has no row, so every step factor reads "unknown"
+ * or null for it.
+ */
+const STEPS_JOIN = 'LEFT JOIN print_step_factors st ON st.print_id = p.id';
+
 const JOINS: Record<Need, string> = {
   paper: 'LEFT JOIN papers pa ON pa.id = p.paper_id',
   enclosure: 'LEFT JOIN enclosure_types et ON et.id = p.enclosure_id',
   outcomes: 'LEFT JOIN print_outcomes o ON o.print_id = p.id',
-  steps: '', // built from the columns the query's factors read (stepsJoin)
+  steps: STEPS_JOIN,
 };
-
-const STEP_SQL: Record<StepColumn, string> = {
-  n: 'count(*) AS n',
-  toned: "coalesce(bool_or(s.type = 'toning'), false) AS toned",
-  seq: "string_agg(s.toner_class, ' → ' ORDER BY s.position) FILTER (WHERE s.type = 'toning') AS seq",
-  toning_min: "(sum(s.time_seconds) FILTER (WHERE s.type = 'toning') / 60.0)::float8 AS toning_min",
-  extent: "(array_agg(s.extent ORDER BY s.position) FILTER (WHERE s.type = 'toning'))[1] AS extent",
-  wash_min: "(sum(s.time_seconds) FILTER (WHERE s.type IN ('washing','final_wash')) / 60.0)::float8 AS wash_min",
-  hypo: "coalesce(bool_or(s.type = 'hypo_clearing'), false) AS hypo",
-  alk_yes: "coalesce(bool_or(s.alkaline) FILTER (WHERE s.type = 'after_bath'), false) AS alk_yes",
-  alk_unknown: "coalesce(bool_or(s.alkaline IS NULL) FILTER (WHERE s.type = 'after_bath'), false) AS alk_unknown",
-};
-
-/**
- * The step aggregates: per print through the index when the query filters (a small cohort), else all
- * prints' steps aggregated at once and hash-joined (200,000 index probes cost several seconds). A print
- * without steps has n = 0 one way and no row (nulls) the other: every factor reads both as "unknown"/null.
- */
-function stepsJoin(columns: Set<StepColumn>, whole: boolean): string {
-  const cols = [...columns].map((c) => STEP_SQL[c]).join(', ');
-  if (whole) return `LEFT JOIN (SELECT s.print_id, ${cols} FROM process_steps s GROUP BY s.print_id) st ON st.print_id = p.id`;
-  return `LEFT JOIN LATERAL (SELECT ${cols} FROM process_steps s WHERE s.print_id = p.id) st ON true`;
-}
 
 export const GRADE_COLUMN = { good: 'o.good_on', fair: 'o.fair_on', poor: 'o.poor_on', unacceptable: 'o.unacceptable_on' } as const;
 
@@ -118,11 +103,7 @@ export function cohortBase(q: CohortQuery, threshold: number, options: { narrow?
   const bind = (v: unknown, cast: string) => { values.push(v); return `$${values.length}::${cast}`; };
   const needs = new Set<Need>(['outcomes']);
   const used = [...q.filters.map((f) => f.factor), ...q.groupBy, ...q.coxFactors];
-  const stepColumns = new Set<StepColumn>();
-  for (const code of used) {
-    for (const n of FACTOR_SQL[code].needs) needs.add(n);
-    for (const c of FACTOR_SQL[code].steps ?? []) stepColumns.add(c);
-  }
+  for (const code of used) for (const n of FACTOR_SQL[code].needs) needs.add(n);
 
   const ctes: string[] = [];
   const where: string[] = [];
@@ -151,7 +132,10 @@ export function cohortBase(q: CohortQuery, threshold: number, options: { narrow?
   let eventOn: string;
   let censorOn: string;
   if (q.event.kind === 'fading') {
-    eventOn = `CASE WHEN cardinality(o.de_dates) > 0 THEN (SELECT min(u.d) FROM unnest(o.de_dates, o.de_values) AS u(d, v) WHERE u.v >= ${bind(threshold, 'float8')}) END`;
+    // The stored day when the outcomes were computed with this very threshold; else the first fitted point reaching it.
+    const t = bind(threshold, 'float8');
+    eventOn = `CASE WHEN o.noticeable_threshold = ${t} THEN o.noticeable_on
+                    WHEN cardinality(o.de_dates) > 0 THEN (SELECT min(u.d) FROM unnest(o.de_dates, o.de_values) AS u(d, v) WHERE u.v >= ${t}) END`;
     censorOn = 'o.last_measured_on';
   } else if (q.event.kind === 'observation') {
     eventOn = `(o.term_first ->> ${bind(q.event.term, 'text')})::date`;
@@ -162,13 +146,13 @@ export function cohortBase(q: CohortQuery, threshold: number, options: { narrow?
   }
   const cox = q.coxFactors.length ? `ARRAY[${q.coxFactors.map((c) => `(${FACTOR_SQL[c].expr})::text`).join(', ')}]` : 'NULL::text[]';
 
-  const joins = (['paper', 'enclosure', 'outcomes', 'steps'] as Need[]).filter((n) => needs.has(n)).map((n) => (n === 'steps' ? stepsJoin(stepColumns, !q.filters.length) : JOINS[n])).join('\n');
+  const joins = (['paper', 'enclosure', 'outcomes', 'steps'] as Need[]).filter((n) => needs.has(n)).map((n) => JOINS[n]).join('\n');
   // Narrow: without the print's accession number and title (the figures read them for a few prints only).
   const inner = `SELECT p.id, ${options.narrow ? '' : 'p.accession_number, p.accession_sort, p.title,'}
                (${groupExpr(q.groupBy[0])})::text AS g0, (${groupExpr(q.groupBy[1])})::text AS g1, ${cox} AS x,
                o.de_per_year, o.density_loss_per_year,
                ${origin} AS origin_on, coalesce(ev.on_, ${censorOn}) AS end_on, ev.on_ AS event_on,
-               CASE WHEN o.term_first <> '{}'::jsonb THEN ARRAY(SELECT jsonb_object_keys(o.term_first)) END AS terms,
+               coalesce(o.terms, CASE WHEN o.term_first <> '{}'::jsonb THEN ARRAY(SELECT jsonb_object_keys(o.term_first)) END) AS terms,
                o.last_report_on IS NOT NULL AS has_report, extract(epoch FROM o.computed_at)::float8 AS computed_at
           FROM prints p
           ${joins}

@@ -64,17 +64,19 @@ export async function loadCohort(q: CohortQuery, options: { ordered?: boolean } 
 }
 
 /**
- * The figures' statement with more sort memory (`SET LOCAL` in its own transaction): its sorts over
- * 200,000 rows (quartiles, ranks for the points) spill to disk at the default 4 MB.
+ * The figures' statement with more sort memory and without JIT (`SET LOCAL` in its own transaction):
+ * its sorts over 200,000 rows (quartiles, ranks for the points) spill to disk at the default 4 MB, and
+ * its cost estimate makes PostgreSQL compile it with LLVM, which took longer (1.5–5 s on the 2-core
+ * machine) than running it.
  */
-async function withWorkMem<T>(text: string, values: unknown[]): Promise<T[]> {
+export async function withWorkMem<T>(text: string, values: unknown[]): Promise<T[]> {
   const manager = db().connectionManager as unknown as {
     getConnection(): Promise<{ query(text: string, values?: unknown[]): Promise<{ rows: T[] }> }>;
     releaseConnection(connection: unknown): Promise<void>;
   };
   const connection = await manager.getConnection();
   try {
-    await connection.query("BEGIN READ ONLY; SET LOCAL work_mem = '64MB'");
+    await connection.query("BEGIN READ ONLY; SET LOCAL work_mem = '64MB'; SET LOCAL jit = off");
     try {
       const rows = (await connection.query(text, values)).rows;
       await connection.query('COMMIT');
@@ -181,7 +183,7 @@ export async function cohortPrints(input: PrintsInput): Promise<{ data: z.infer<
 const TEXT_SQL: Record<string, string> = {
   paperSurface: `SELECT pa.surface AS value, count(*)::int AS count FROM prints p JOIN papers pa ON pa.id = p.paper_id WHERE pa.surface IS NOT NULL GROUP BY 1`,
   paperTint: `SELECT pa.base_tint AS value, count(*)::int AS count FROM prints p JOIN papers pa ON pa.id = p.paper_id WHERE pa.base_tint IS NOT NULL GROUP BY 1`,
-  tonerSequence: `SELECT seq AS value, count(*)::int AS count FROM (SELECT string_agg(toner_class, ' → ' ORDER BY position) AS seq FROM process_steps WHERE type = 'toning' GROUP BY print_id) x WHERE seq IS NOT NULL GROUP BY 1`,
+  tonerSequence: `SELECT seq AS value, count(*)::int AS count FROM print_step_factors WHERE seq IS NOT NULL GROUP BY 1`,
   enclosureType: `SELECT et.name AS value, count(*)::int AS count FROM prints p JOIN enclosure_types et ON et.id = p.enclosure_id GROUP BY 1`,
   maker: `SELECT p.maker_name AS value, count(*)::int AS count FROM prints p WHERE p.maker_name IS NOT NULL GROUP BY 1`,
 };

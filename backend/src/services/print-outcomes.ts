@@ -1,9 +1,8 @@
 import { QueryTypes, type Transaction } from 'sequelize';
-import type { MeasurementConditions } from '@toneledger/common/domain/colour';
-import { analyseSpotHistory, chronological, densityOf, fittedPoints, type SpotObservation } from '@toneledger/common/domain/spot-analysis';
+import { chronological, densityOf, fittedPoints } from '@toneledger/common/domain/spot-analysis';
 import { normaliseRecipe, type Recipe } from '@toneledger/common/domain/recipes';
 import { db } from '../db';
-import { getMeasurementSettings } from './measurement.service';
+import { analysePrintSpots, type AnalysedSpot, type SpotAnalyses } from './spot-histories';
 import { placePermanence } from './schedule-inputs';
 
 /**
@@ -22,57 +21,36 @@ import { placePermanence } from './schedule-inputs';
  * - The current store's relative permanence (`placePermanence`, as the schedule does).
  */
 
-interface ReadingRow {
-  print_id: string; spot_id: string; purpose: string; baseline_session_id: string | null; session_id: string;
-  measured_on: string; created_at: Date; illuminant: string; observer: string; geometry: string; condition: string | null;
-  mean_l: number; mean_a: number; mean_b: number; density: number | null; density_type: string | null; reflectance: number | null;
-}
-
 interface FadingOutcome {
   spotId: string; baselineOn: string; dePerYear: number | null; densityLossPerYear: number | null;
   dates: string[]; values: number[]; noticeableOn: string | null;
 }
 
-async function fadingOutcomes(ids: readonly string[], threshold: number, t?: Transaction): Promise<Map<string, FadingOutcome>> {
-  const rows = await db().query<ReadingRow>(
-    `SELECT r.print_id, r.spot_id, sp.purpose, sp.baseline_session_id, s.id AS session_id, s.measured_on::text AS measured_on, s.created_at,
-            s.illuminant, s.observer, s.geometry, s.condition, r.mean_l::float8 AS mean_l, r.mean_a::float8 AS mean_a, r.mean_b::float8 AS mean_b,
-            r.density::float8 AS density, r.density_type, r.reflectance::float8 AS reflectance
-       FROM spot_readings r JOIN measurement_sessions s ON s.id = r.session_id JOIN measurement_spots sp ON sp.id = r.spot_id
-      WHERE r.print_id = ANY ($1::uuid[])`,
-    { bind: [ids], transaction: t, type: QueryTypes.SELECT },
-  );
-  const spots = new Map<string, ReadingRow[]>();
-  for (const r of rows) {
-    const list = spots.get(r.spot_id);
-    if (list) list.push(r); else spots.set(r.spot_id, [r]);
-  }
-  const observationsOf = (list: ReadingRow[]): SpotObservation[] => list.map((r) => ({
-    sessionId: r.session_id, measuredOn: r.measured_on, recordedAt: r.created_at,
-    conditions: { illuminant: r.illuminant, observer: r.observer as MeasurementConditions['observer'], geometry: r.geometry, condition: r.condition as MeasurementConditions['condition'] },
-    lab: { L: r.mean_l, a: r.mean_a, b: r.mean_b }, density: r.density, densityType: r.density_type, reflectance: r.reflectance,
-  }));
-  // Per print, the maximum-density spot is chosen before any analysis (only that one is analysed):
-  // purpose dmax first, then the highest baseline density (the chosen baseline session, else the
-  // first session by date), ties by spot id.
-  const chosen = new Map<string, { rank: [number, number, string]; observations: SpotObservation[]; row: ReadingRow }>();
-  for (const list of spots.values()) {
-    const first = list[0]!;
-    const observations = observationsOf(list);
-    const ordered = [...observations].sort(chronological);
-    const base = ordered.find((o) => o.sessionId === first.baseline_session_id) ?? ordered[0]!;
-    const rank: [number, number, string] = [first.purpose === 'dmax' ? 1 : 0, densityOf(base) ?? -1, first.spot_id];
-    const seen = chosen.get(first.print_id);
-    const better = !seen || rank[0] > seen.rank[0] || (rank[0] === seen.rank[0] && (rank[1] > seen.rank[1] || (rank[1] === seen.rank[1] && rank[2] < seen.rank[2])));
-    if (better) chosen.set(first.print_id, { rank, observations, row: first });
-  }
+/**
+ * Per print, the maximum-density spot's outcome from the batch's analyses (`spot-histories.ts`,
+ * made with the settings' noticeable threshold). The spot is chosen before looking at any result:
+ * purpose dmax first, then the highest baseline density (the chosen baseline session, else the first
+ * session by date), ties by spot id.
+ */
+function fadingOutcomes(ids: readonly string[], spots: SpotAnalyses): Map<string, FadingOutcome> {
+  const { byPrint, threshold } = spots;
   const out = new Map<string, FadingOutcome>();
-  for (const [printId, c] of chosen) {
-    const a = analyseSpotHistory(c.observations, { baselineSessionId: c.row.baseline_session_id, threshold });
+  for (const printId of ids) {
+    let chosen: { rank: [number, number, string]; spot: AnalysedSpot } | null = null;
+    for (const spot of byPrint.get(printId) ?? []) {
+      const ordered = [...spot.observations].sort(chronological);
+      const base = ordered.find((o) => o.sessionId === spot.baselineSessionId) ?? ordered[0]!;
+      const rank: [number, number, string] = [spot.purpose === 'dmax' ? 1 : 0, densityOf(base) ?? -1, spot.spotId];
+      const seen = chosen?.rank;
+      const better = !seen || rank[0] > seen[0] || (rank[0] === seen[0] && (rank[1] > seen[1] || (rank[1] === seen[1] && rank[2] < seen[2])));
+      if (better) chosen = { rank, spot };
+    }
+    if (!chosen) continue;
+    const a = chosen.spot.analysis;
     if (!a.baseline) continue;
     const fitted = fittedPoints(a);
     out.set(printId, {
-      spotId: c.row.spot_id, baselineOn: a.baseline.measuredOn,
+      spotId: chosen.spot.spotId, baselineOn: a.baseline.measuredOn,
       dePerYear: a.rate?.ok ? a.rate.slopePerYear : null,
       densityLossPerYear: a.densityLossRate?.ok ? a.densityLossRate.slopePerYear : null,
       dates: fitted.map((p) => p.measuredOn), values: fitted.map((p) => p.dE00),
@@ -113,10 +91,12 @@ interface ExamRow {
   term_first: Record<string, string> | null; good_on: string | null; fair_on: string | null; poor_on: string | null; unacceptable_on: string | null;
 }
 
-/** Recomputes and stores the outcomes of these prints (one upsert). */
-export async function recomputeOutcomes(ids: readonly string[], t?: Transaction): Promise<void> {
+/**
+ * Recomputes and stores the outcomes of these prints (one upsert). `spots`: the batch's spot
+ * analyses when the caller has them already (the schedule's batches share them); else read here.
+ */
+export async function recomputeOutcomes(ids: readonly string[], t?: Transaction, spots?: SpotAnalyses): Promise<void> {
   if (!ids.length) return;
-  const { noticeableDeltaE } = await getMeasurementSettings(t);
   const exams = await db().query<ExamRow>(
     `SELECT p.id, p.location_id,
             least(m.first_on, r.first_on)::text AS first_exam_on, greatest(m.last_on, r.last_on)::text AS last_exam_on, r.last_on::text AS last_report_on,
@@ -146,7 +126,8 @@ export async function recomputeOutcomes(ids: readonly string[], t?: Transaction)
   );
   const stepsOf = new Map<string, StepRow[]>();
   for (const s of steps) stepsOf.set(s.print_id, [...(stepsOf.get(s.print_id) ?? []), s]);
-  const fading = await fadingOutcomes(ids, noticeableDeltaE, t);
+  const analyses = spots ?? await analysePrintSpots(ids, t);
+  const fading = fadingOutcomes(ids, analyses);
   const today = new Date().toISOString().slice(0, 10);
   const places = [...new Set(exams.flatMap((e) => (e.location_id ? [e.location_id] : [])))];
   const permanence = await placePermanence(places, today, t);
@@ -166,21 +147,23 @@ export async function recomputeOutcomes(ids: readonly string[], t?: Transaction)
   });
   if (!rows.length) return;
   await db().query(
-    `INSERT INTO print_outcomes (print_id, spot_id, baseline_on, de_per_year, density_loss_per_year, de_dates, de_values, noticeable_on,
-        first_exam_on, last_exam_on, last_report_on, last_measured_on, term_first, good_on, fair_on, poor_on, unacceptable_on,
+    `INSERT INTO print_outcomes (print_id, spot_id, baseline_on, de_per_year, density_loss_per_year, de_dates, de_values, noticeable_on, noticeable_threshold,
+        first_exam_on, last_exam_on, last_report_on, last_measured_on, term_first, terms, good_on, fair_on, poor_on, unacceptable_on,
         ferricyanide_gl, acid_gl, climate_permanence, computed_at)
      SELECT (r->>'print_id')::uuid, (r->>'spot_id')::uuid, (r->>'baseline_on')::date, (r->>'de_per_year')::float8, (r->>'density_loss_per_year')::float8,
             ARRAY(SELECT jsonb_array_elements_text(r->'de_dates'))::date[], ARRAY(SELECT jsonb_array_elements_text(r->'de_values'))::float8[],
-            (r->>'noticeable_on')::date, (r->>'first_exam_on')::date, (r->>'last_exam_on')::date, (r->>'last_report_on')::date, (r->>'last_measured_on')::date,
-            r->'term_first', (r->>'good_on')::date, (r->>'fair_on')::date, (r->>'poor_on')::date, (r->>'unacceptable_on')::date,
+            (r->>'noticeable_on')::date, $2::float8,
+            (r->>'first_exam_on')::date, (r->>'last_exam_on')::date, (r->>'last_report_on')::date, (r->>'last_measured_on')::date,
+            r->'term_first', CASE WHEN r->'term_first' <> '{}'::jsonb THEN ARRAY(SELECT jsonb_object_keys(r->'term_first')) END,
+            (r->>'good_on')::date, (r->>'fair_on')::date, (r->>'poor_on')::date, (r->>'unacceptable_on')::date,
             (r->>'ferricyanide_gl')::float8, (r->>'acid_gl')::float8, (r->>'climate_permanence')::float8, now()
        FROM jsonb_array_elements($1::jsonb) r
      ON CONFLICT (print_id) DO UPDATE SET spot_id = EXCLUDED.spot_id, baseline_on = EXCLUDED.baseline_on, de_per_year = EXCLUDED.de_per_year,
        density_loss_per_year = EXCLUDED.density_loss_per_year, de_dates = EXCLUDED.de_dates, de_values = EXCLUDED.de_values,
-       noticeable_on = EXCLUDED.noticeable_on, first_exam_on = EXCLUDED.first_exam_on, last_exam_on = EXCLUDED.last_exam_on,
+       noticeable_on = EXCLUDED.noticeable_on, noticeable_threshold = EXCLUDED.noticeable_threshold, terms = EXCLUDED.terms, first_exam_on = EXCLUDED.first_exam_on, last_exam_on = EXCLUDED.last_exam_on,
        last_report_on = EXCLUDED.last_report_on, last_measured_on = EXCLUDED.last_measured_on, term_first = EXCLUDED.term_first,
        good_on = EXCLUDED.good_on, fair_on = EXCLUDED.fair_on, poor_on = EXCLUDED.poor_on, unacceptable_on = EXCLUDED.unacceptable_on,
        ferricyanide_gl = EXCLUDED.ferricyanide_gl, acid_gl = EXCLUDED.acid_gl, climate_permanence = EXCLUDED.climate_permanence, computed_at = now()`,
-    { bind: [JSON.stringify(rows)], transaction: t },
+    { bind: [JSON.stringify(rows), analyses.threshold], transaction: t },
   );
 }

@@ -3,11 +3,9 @@ import type { Grade } from '@toneledger/common/schemas/condition';
 import type { ClimateSettings } from '@toneledger/common/schemas/climate';
 import type { RiskInputs } from '@toneledger/common/domain/inspection-risk';
 import { DEFAULT_CLIMATE_SETTINGS, timeWeightedPermanence } from '@toneledger/common/domain/isoperm';
-import { analyseSpotHistory, type SpotObservation } from '@toneledger/common/domain/spot-analysis';
-import type { MeasurementConditions } from '@toneledger/common/domain/colour';
 import { db } from '../db';
 import { Setting } from '../models';
-import { getMeasurementSettings } from './measurement.service';
+import { analysePrintSpots, type SpotAnalyses } from './spot-histories';
 
 /**
  * The risk model's inputs for a batch of prints, in a few set-based statements (never one query per
@@ -124,68 +122,37 @@ export async function placePermanence(locationIds: readonly string[], asOf: stri
   return out;
 }
 
-interface ReadingRow {
-  print_id: string;
-  spot_id: string;
-  baseline_session_id: string | null;
-  session_id: string;
-  measured_on: string;
-  created_at: Date;
-  illuminant: string;
-  observer: string;
-  geometry: string;
-  condition: string | null;
-  mean_l: number;
-  mean_a: number;
-  mean_b: number;
-  density: number | null;
-  density_type: string | null;
-  reflectance: number | null;
-}
-
-/** Each print's fastest-fading spot (spot-analysis.ts): its ΔE00 per year and when its trend is noticeable. */
-export async function printFading(ids: readonly string[], t?: Transaction): Promise<Map<string, RiskInputs['fading']>> {
-  const rows = await db().query<ReadingRow>(
-    `SELECT r.print_id, r.spot_id, sp.baseline_session_id, s.id AS session_id, s.measured_on::text AS measured_on, s.created_at,
-            s.illuminant, s.observer, s.geometry, s.condition, r.mean_l::float8 AS mean_l, r.mean_a::float8 AS mean_a, r.mean_b::float8 AS mean_b,
-            r.density::float8 AS density, r.density_type, r.reflectance::float8 AS reflectance
-       FROM spot_readings r JOIN measurement_sessions s ON s.id = r.session_id JOIN measurement_spots sp ON sp.id = r.spot_id
-      WHERE r.print_id = ANY ($1::uuid[])`,
-    { bind: [ids], transaction: t, type: QueryTypes.SELECT },
-  );
+/**
+ * Each print's fastest-fading spot (spot-analysis.ts): its ΔE00 per year and when its trend is
+ * noticeable. `spots`: the batch's analyses when the caller has them already (`schedule-jobs.ts`
+ * shares them with the research outcomes); else they are read here.
+ */
+export async function printFading(ids: readonly string[], t?: Transaction, spots?: SpotAnalyses): Promise<Map<string, RiskInputs['fading']>> {
+  const { byPrint } = spots ?? await analysePrintSpots(ids, t);
   const out = new Map<string, RiskInputs['fading']>();
-  if (!rows.length) return out;
-  const { noticeableDeltaE } = await getMeasurementSettings(t);
-  const spots = new Map<string, ReadingRow[]>();
-  for (const r of rows) spots.set(r.spot_id, [...(spots.get(r.spot_id) ?? []), r]);
-  for (const list of spots.values()) {
-    const observations: SpotObservation[] = list.map((r) => ({
-      sessionId: r.session_id, measuredOn: r.measured_on, recordedAt: r.created_at,
-      conditions: { illuminant: r.illuminant, observer: r.observer as MeasurementConditions['observer'], geometry: r.geometry, condition: r.condition as MeasurementConditions['condition'] },
-      lab: { L: r.mean_l, a: r.mean_a, b: r.mean_b }, density: r.density, densityType: r.density_type, reflectance: r.reflectance,
-    }));
-    const a = analyseSpotHistory(observations, { baselineSessionId: list[0]!.baseline_session_id, threshold: noticeableDeltaE });
-    if (!a.rate?.ok || !(a.rate.slopePerYear > 0)) continue;
-    const p = a.projection;
-    const fading = {
-      ratePerYear: a.rate.slopePerYear,
-      alreadyNoticeable: p?.reached === true && p.alreadyReached,
-      noticeableOn: p?.reached === true && !p.alreadyReached ? p.date.toISOString().slice(0, 10) : null,
-    };
-    const printId = list[0]!.print_id;
-    const seen = out.get(printId);
-    if (!seen || fading.ratePerYear > seen.ratePerYear) out.set(printId, fading);
+  for (const id of ids) {
+    for (const { analysis: a } of byPrint.get(id) ?? []) {
+      if (!a.rate?.ok || !(a.rate.slopePerYear > 0)) continue;
+      const p = a.projection;
+      const fading = {
+        ratePerYear: a.rate.slopePerYear,
+        alreadyNoticeable: p?.reached === true && p.alreadyReached,
+        noticeableOn: p?.reached === true && !p.alreadyReached ? p.date.toISOString().slice(0, 10) : null,
+      };
+      const seen = out.get(id);
+      if (!seen || fading.ratePerYear > seen.ratePerYear) out.set(id, fading);
+    }
   }
   return out;
 }
 
 /** The model's inputs for each print of the batch that exists, by id. */
-export async function loadRiskInputs(ids: readonly string[], asOf: string, t?: Transaction): Promise<Map<string, RiskInputs & { lastCheckedOn: string | null }>> {
+export async function loadRiskInputs(ids: readonly string[], asOf: string, t?: Transaction, spots?: SpotAnalyses): Promise<Map<string, RiskInputs & { lastCheckedOn: string | null }>> {
   // One after the other: inside a transaction they share its one connection.
   const prints = await printRows(ids, asOf, t);
   const places = [...new Set(prints.flatMap((p) => (p.location_id ? [p.location_id] : [])))];
   const permanence = await placePermanence(places, asOf, t);
-  const fading = await printFading(ids, t);
+  const fading = await printFading(ids, t, spots);
   const out = new Map<string, RiskInputs>();
   for (const p of prints) {
     out.set(p.id, {

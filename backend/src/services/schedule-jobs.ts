@@ -7,6 +7,7 @@ import { conflict } from '../errors';
 import { onScheduleWake } from './schedule-stale';
 import { recomputeSchedules } from './schedule.service';
 import { recomputeOutcomes } from './print-outcomes';
+import { analysePrintSpots } from './spot-histories';
 
 /**
  * Keeping every print's date current.
@@ -40,6 +41,16 @@ export async function clearMarks(marks: { print_id: string; seq: string }[], t: 
 }
 
 /**
+ * A batch's schedule dates and research outcomes, in the caller's transaction: the spots are read and
+ * analysed once for both (`spot-histories.ts`).
+ */
+export async function recomputePrints(ids: readonly string[], t: Transaction): Promise<void> {
+  const spots = await analysePrintSpots(ids, t);
+  await recomputeSchedules(ids, t, undefined, spots);
+  await recomputeOutcomes(ids, t, spots);
+}
+
+/**
  * One batch of marks: recomputed and cleared in one transaction. Returns how many marks it took (0:
  * none was left). The marks are read without a lock, so a change marking one of these prints never
  * waits for the batch; two servers may now and then compute the same print twice, which is harmless.
@@ -52,8 +63,7 @@ export async function processStaleBatch(size = SCHEDULE_BATCH): Promise<number> 
     );
     if (!marks.length) return 0;
     const ids = marks.map((m) => m.print_id);
-    await recomputeSchedules(ids, t);
-    await recomputeOutcomes(ids, t);
+    await recomputePrints(ids, t);
     await clearMarks(marks, t);
     return ids.length;
   });
@@ -175,8 +185,7 @@ export async function scheduleRecomputeBatch(size = SCHEDULE_BATCH): Promise<boo
     const marks = ids.length
       ? await db().query<{ print_id: string; seq: string }>('SELECT print_id, seq FROM schedule_stale WHERE print_id = ANY ($1::uuid[])', { bind: [ids], transaction: t, type: QueryTypes.SELECT })
       : [];
-    await recomputeSchedules(ids, t);
-    await recomputeOutcomes(ids, t);
+    await recomputePrints(ids, t);
     await clearMarks(marks, t);
     const done = p.done + ids.length;
     const finished = ids.length < size;

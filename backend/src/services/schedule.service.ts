@@ -9,6 +9,7 @@ import { assertPrintEditable } from './print-lock';
 import { todayIso } from './display-rows';
 import type { Actor } from './print.service';
 import { loadRiskInputs } from './schedule-inputs';
+import type { SpotAnalyses } from './spot-histories';
 import { staleEdit } from './versioning';
 
 /**
@@ -23,9 +24,9 @@ import { staleEdit } from './versioning';
  * version moves only when something a person reads changed (date, interval, risk, factors, last check).
  * Returns how many prints were written.
  */
-export async function recomputeSchedules(ids: readonly string[], t?: Transaction, asOf = todayIso()): Promise<number> {
+export async function recomputeSchedules(ids: readonly string[], t?: Transaction, asOf = todayIso(), spots?: SpotAnalyses): Promise<number> {
   if (!ids.length) return 0;
-  const inputs = await loadRiskInputs(ids, asOf, t);
+  const inputs = await loadRiskInputs(ids, asOf, t, spots);
   const rows = [...inputs.entries()].map(([printId, input]) => {
     const r = assessPrint(input);
     return {
