@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { dataEnvelope } from '../schemas/envelope';
 import {
-  addendumInputSchema, conditionSettingsSchema, conditionTermInputSchema, conditionTermSchema, conditionTermUpdateSchema, reportInputSchema,
+  addendumInputSchema, conditionSettingsSchema, conditionTermInputSchema, conditionTermSchema, conditionTermUpdateSchema, conditionWorkSchema, reportInputSchema,
   reportSchema, reportUpdateSchema,
 } from '../schemas/condition';
 import { deletedSchema, idParamsSchema, versionBodySchema, versionQuerySchema } from '../schemas/primitives';
@@ -34,6 +34,11 @@ export const conditionTermsApi = {
 };
 
 export const reportsApi = {
+  work: endpoint({
+    method: 'get', path: '/api/condition/work',
+    summary: "The signed-in person's drafts (oldest change first) and latest signed reports, and the latest signed reports by anyone", tags: ['condition'],
+    access: 'condition.read', response: { description: 'Drafts and recent reports', schema: dataEnvelope(conditionWorkSchema) },
+  }),
   list: endpoint({
     method: 'get', path: '/api/prints/:id/condition-reports', summary: "A print's condition reports, newest examination first", tags: ['condition'],
     access: 'condition.read', params: idParamsSchema, response: { description: 'Reports', schema: dataEnvelope(z.array(reportSchema)) },

@@ -65,6 +65,6 @@ export const fixityApi = {
   }),
   alerts: endpoint({
     method: 'get', path: '/api/admin/fixity/alerts', summary: 'Images whose latest fixity check did not match', tags: ['fixity'],
-    access: 'fixity.manage', response: { description: 'Alerts', schema: dataEnvelope(z.array(fixityAlertSchema)) },
+    access: 'fixity.read', response: { description: 'Alerts', schema: dataEnvelope(z.array(fixityAlertSchema)) },
   }),
 };

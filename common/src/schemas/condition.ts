@@ -114,5 +114,20 @@ export const reportSchema = z.object({
 });
 export type ConditionReport = z.infer<typeof reportSchema>;
 
+/** One report as a line of a work list: no observations or addenda. */
+export const reportSummarySchema = reportSchema.pick({
+  id: true, printId: true, accessionNumber: true, printTitle: true, examinedOn: true, examinerName: true, context: true, grade: true,
+  status: true, signedAt: true, updatedAt: true,
+});
+export type ReportSummary = z.infer<typeof reportSummarySchema>;
+
+/** What the condition area opens on: the signed-in person's drafts and signed reports, and the latest reports by anyone. */
+export const conditionWorkSchema = z.object({
+  myDrafts: z.array(reportSummarySchema),
+  mySigned: z.array(reportSummarySchema),
+  recent: z.array(reportSummarySchema),
+});
+export type ConditionWork = z.infer<typeof conditionWorkSchema>;
+
 /** The condition settings: the written definition of each overall grade. */
 export const conditionSettingsSchema = z.object({ grades: gradeDefinitionsSchema });

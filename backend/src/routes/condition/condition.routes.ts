@@ -4,6 +4,7 @@ import {
   addAddendum, createReport, createTerm, discardReport, getConditionSettings, getReport, listReports, listTerms, putConditionSettings,
   signReport, updateReport, updateTerm,
 } from '../../services/condition.service';
+import { conditionWork } from '../../services/condition-work.service';
 
 export function conditionRoutes(): RouteDef[] {
   return [
@@ -17,6 +18,7 @@ export function conditionRoutes(): RouteDef[] {
       update: async ({ params, body, actor, requestId }) => ({ data: await updateTerm(params.code, body, actor, requestId) }),
     }),
     ...implement(reportsApi, {
+      work: async ({ actor }) => ({ data: await conditionWork(actor.id) }),
       list: async ({ params }) => ({ data: await listReports(params.id) }),
       create: async ({ params, body, actor, requestId }) => ({ data: await createReport(params.id, body, actor, requestId) }),
       get: async ({ params }) => ({ data: await getReport(params.id) }),

@@ -13,6 +13,7 @@ import { formatDateTime } from '@/lib/format';
 import { useDocumentTitle } from '@/lib/use-document-title';
 import { useFindPrints } from '@/lib/prints-api';
 import { useFixityAlerts, useRunFixityCheck } from '@/features/condition/api/fixity';
+import { ConditionWork } from '@/features/condition/components/condition-work';
 
 function PrintSearch() {
   const [params, setParams] = useSearchParams();
@@ -74,7 +75,7 @@ function PrintSearch() {
   );
 }
 
-function FixityAlertsPanel() {
+function FixityAlertsPanel({ manage }: { manage: boolean }) {
   const headingId = useId();
   const alerts = useFixityAlerts(true);
   const run = useRunFixityCheck();
@@ -84,9 +85,11 @@ function FixityAlertsPanel() {
         <h2 id={headingId} className="text-lg">
           Fixity alerts
         </h2>
-        <Button onClick={() => run.mutate()} disabled={run.isPending}>
-          Check all images now
-        </Button>
+        {manage ? (
+          <Button onClick={() => run.mutate()} disabled={run.isPending}>
+            Check all images now
+          </Button>
+        ) : null}
       </div>
       <p className="mt-1 text-sm text-ink-700">Images whose latest check did not match the SHA-256 kept at upload, or whose file is missing.</p>
       {run.isSuccess ? (
@@ -119,7 +122,10 @@ function FixityAlertsPanel() {
   );
 }
 
-/** The condition area: find a print to examine; administrators also see fixity alerts. */
+/**
+ * The condition area opens on the person's own work: their drafts to finish and recent reports, the
+ * latest reports by anyone, and fixity alerts for those who may read them; then the print search.
+ */
 export function ConditionIndexPage() {
   const me = useMe();
   useDocumentTitle('Condition');
@@ -130,8 +136,9 @@ export function ConditionIndexPage() {
         description="Condition reports, observations and images, print by print. Find a print to see its reports and images, write a report, or compare images across years."
       />
       <div className="flex flex-col gap-5">
+        <ConditionWork writer={can(me.role, 'condition.write')} />
+        {can(me.role, 'fixity.read') ? <FixityAlertsPanel manage={can(me.role, 'fixity.manage')} /> : null}
         <PrintSearch />
-        {can(me.role, 'fixity.manage') ? <FixityAlertsPanel /> : null}
       </div>
     </section>
   );
