@@ -1,3 +1,4 @@
+import polylabel from 'polylabel';
 import { regionSchema, type Region } from '@toneledger/common/schemas/condition';
 
 /** A point on an image: x and y as fractions (0–1) of the image's width and height. */
@@ -64,10 +65,17 @@ export function regionProblem(imageId: string, shape: Shape, points: Point[]): s
   return shape === 'rect' ? 'A rectangle needs two corners, each between 0 and 1.' : 'A polygon needs at least three points, each between 0 and 1.';
 }
 
-/** Where to put a region's number: its top-left-most extent. */
+/**
+ * Where to put a region's number: inside the region, as far from its edges as possible. A rectangle
+ * (two corners) has its centre; a polygon its pole of inaccessibility (polylabel, to 0.001 of the
+ * image), which lies inside even an L- or C-shaped outline where the centroid may not.
+ */
 export function labelPoint(points: Point[]): Point {
   if (points.length === 0) return [0, 0];
-  return [Math.min(...points.map((p) => p[0])), Math.min(...points.map((p) => p[1]))];
+  if (points.length === 1) return points[0]!;
+  if (points.length === 2) return [(points[0]![0] + points[1]![0]) / 2, (points[0]![1] + points[1]![1]) / 2];
+  const [x, y] = polylabel([points.map(([px, py]) => [px, py])], 0.001);
+  return [x, y];
 }
 
 export function describeRegion(region: Pick<Region, 'shape' | 'points'>): string {
