@@ -35,6 +35,7 @@ import { remindersRoutes } from './routes/reminders/reminders.routes';
 import { roundsRoutes, worklistRoutes } from './routes/inspections/rounds.routes';
 import { scheduleRoutes } from './routes/inspections/schedule.routes';
 import { researchRoutes } from './routes/research/research.routes';
+import { proceduresRoutes } from './routes/procedures/procedures.routes';
 import { exportsRoutes } from './routes/exports/exports.routes';
 import { preservationRoutes } from './routes/preservation/preservation.routes';
 
@@ -55,6 +56,7 @@ export function allRoutes(deps: AppDeps): RouteDef[] {
     ...imagesRoutes(deps),
     ...iiifRoutes(deps),
     ...conditionRoutes(),
+    ...proceduresRoutes(),
     ...measurementsRoutes(),
     ...exhibitionsRoutes(),
     ...lightRoutes(deps),

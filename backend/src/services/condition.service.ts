@@ -13,6 +13,7 @@ import { recordAudit } from './audit.service';
 import { checkOffRounds } from './round.service';
 import { markScheduleStale } from './schedule-stale';
 import { assertPrintEditable } from './print-lock';
+import { writeAddendum } from './addenda';
 import { changedFields, rethrowUnique, staleEdit } from './versioning';
 
 /** Who is acting: every condition write is attributed to a signed-in person. */
@@ -310,11 +311,11 @@ export async function addAddendum(id: string, text: string, actor: Actor, reques
     if (!report) throw notFound('The condition report');
     await assertPrintEditable(report.printId, t);
     if (report.status !== 'signed') throw conflict('This report is still a draft; edit the draft instead.');
-    const addendum = await Addendum.create({ reportId: id, authorId: actor.id, authorName: actor.name, text }, { transaction: t });
+    const addendum = await writeAddendum({ reportId: id }, text, actor, t);
     await recordAudit(
       {
         actor, action: 'condition_report.addendum_added', entityType: ENTITY, entityId: id,
-        after: { printId: report.printId, addendum: { id: addendum.id, authorName: addendum.authorName, writtenAt: addendum.writtenAt.toISOString(), text } },
+        after: { printId: report.printId, addendum },
         requestId,
       },
       t,

@@ -179,7 +179,24 @@ export async function listImages(printId: string, role: Role | null, includeWith
   if (!(includeWithdrawn && staff)) where.withdrawnAt = null;
   const rows = await Image.findAll({ where, order: [['capturedOn', 'ASC NULLS LAST'], ['uploadedAt', 'ASC']] });
   const fixity = await latestFixity(rows.map((r) => r.id));
-  return rows.map((r) => presentImage(r, role, fixity.get(r.id) ?? null));
+  const voids = await voidedCaptureDates(rows.map((r) => r.id));
+  return rows.map((r) => ({ ...presentImage(r, role, fixity.get(r.id) ?? null), voidedCaptureDates: voids.get(r.id) ?? [] }));
+}
+
+/** The capture dates voided as mistaken, per image, oldest first (`void.service.ts`). */
+export async function voidedCaptureDates(ids: string[]): Promise<Map<string, NonNullable<PrintImage['voidedCaptureDates']>>> {
+  const out = new Map<string, NonNullable<PrintImage['voidedCaptureDates']>>();
+  if (!ids.length) return out;
+  const rows = await db().query<{ image_id: string; captured_on: string; voided_at: Date; voided_by_name: string; reason: string }>(
+    `SELECT image_id, to_char(captured_on, 'YYYY-MM-DD') AS captured_on, voided_at, voided_by_name, reason FROM image_capture_date_voids WHERE image_id = ANY($1::uuid[]) ORDER BY voided_at, id`,
+    { bind: [ids], type: QueryTypes.SELECT },
+  );
+  for (const r of rows) {
+    const list = out.get(r.image_id) ?? [];
+    list.push({ capturedOn: r.captured_on, at: new Date(r.voided_at).toISOString(), by: r.voided_by_name, reason: r.reason });
+    out.set(r.image_id, list);
+  }
+  return out;
 }
 
 export async function getImage(id: string, role: Role | null) {

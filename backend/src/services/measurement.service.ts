@@ -1,4 +1,4 @@
-import { Op, type Transaction } from 'sequelize';
+import { Op, QueryTypes, type Transaction } from 'sequelize';
 import type { z } from 'zod';
 import { averageReadings, densityFromReflectance, type MeasurementConditions } from '@toneledger/common/domain/colour';
 import { DEFAULT_NOTICEABLE_DELTA_E, NOTICEABLE_DELTA_E_GUIDANCE } from '@toneledger/common/domain/fading';
@@ -145,6 +145,7 @@ export async function chooseBaseline(id: string, choice: BaselineChoice, actor: 
     if (choice.sessionId) {
       const reading = await SpotReading.findOne({ where: { sessionId: choice.sessionId, spotId: id }, attributes: ['id'], transaction: t });
       if (!reading) throw validationFailed([{ path: 'sessionId', message: 'This session has no reading for this spot', code: 'no_reading' }]);
+      if ((await voidedSessions([spot.printId], t)).has(choice.sessionId)) throw validationFailed([{ path: 'sessionId', message: 'This session was voided', code: 'voided' }]);
     }
     const chosen = choice.sessionId !== null;
     await spot.update(
@@ -275,9 +276,20 @@ export function analyseSpot(spot: MeasurementSpot, history: History[], threshold
   return { spot, ...analyseSpotHistory(history.map(observationOf), { baselineSessionId: spot.baselineSessionId, threshold }) };
 }
 
-function historiesBySpot(sessions: (MeasurementSession & { readings?: SpotReading[] })[]): Map<string, History[]> {
+/** Voided sessions of these prints, by session id: kept and shown, never analysed (`void.service.ts`). */
+export async function voidedSessions(printIds: readonly string[], t?: Transaction): Promise<Map<string, { at: string; by: string; reason: string }>> {
+  if (!printIds.length) return new Map();
+  const rows = await db().query<{ session_id: string; voided_at: Date; voided_by_name: string; reason: string }>(
+    'SELECT session_id, voided_at, voided_by_name, reason FROM measurement_session_voids WHERE print_id = ANY($1::uuid[])',
+    { bind: [[...printIds]], type: QueryTypes.SELECT, transaction: t },
+  );
+  return new Map(rows.map((r) => [r.session_id, { at: new Date(r.voided_at).toISOString(), by: r.voided_by_name, reason: r.reason }]));
+}
+
+function historiesBySpot(sessions: (MeasurementSession & { readings?: SpotReading[] })[], voided: ReadonlyMap<string, unknown>): Map<string, History[]> {
   const out = new Map<string, History[]>();
   for (const session of sessions) {
+    if (voided.has(session.id)) continue;
     for (const reading of session.readings ?? []) {
       const list = out.get(reading.spotId) ?? [];
       list.push({ session, reading });
@@ -295,13 +307,14 @@ export async function printMeasurements(printId: string): Promise<PrintMeasureme
     MeasurementSession.findAll({ where: { printId }, include: [{ model: SpotReading, as: 'readings' }] }) as Promise<(MeasurementSession & { readings?: SpotReading[] })[]>,
     getMeasurementSettings(),
   ]);
-  const histories = historiesBySpot(sessions);
+  const voided = await voidedSessions([printId]);
+  const histories = historiesBySpot(sessions, voided);
   const newestFirst = [...sessions].sort((a, b) => b.measuredOn.localeCompare(a.measuredOn) || b.createdAt.getTime() - a.createdAt.getTime());
   return {
     threshold: settings.noticeableDeltaE,
     thresholdGuidance: NOTICEABLE_DELTA_E_GUIDANCE,
     spots: spots.map((s) => presentAnalysis(analyseSpot(s, histories.get(s.id) ?? [], settings.noticeableDeltaE))),
-    sessions: newestFirst.map((s) => presentSession(s, s.readings ?? [], spots)),
+    sessions: newestFirst.map((s) => ({ ...presentSession(s, s.readings ?? [], spots), voided: voided.get(s.id) ?? null })),
   };
 }
 
@@ -313,7 +326,7 @@ export async function printSpotChanges(printId: string, t?: Transaction) {
     readings?: SpotReading[];
   })[];
   const settings = await getMeasurementSettings(t);
-  const histories = historiesBySpot(sessions);
+  const histories = historiesBySpot(sessions, await voidedSessions([printId], t));
   return { threshold: settings.noticeableDeltaE, spots: spots.map((s) => analyseSpot(s, histories.get(s.id) ?? [], settings.noticeableDeltaE)) };
 }
 
@@ -353,7 +366,7 @@ export async function listLeaders(query: LeadersQuery): Promise<{ rows: Leader[]
       : Promise.resolve([]),
     getMeasurementSettings(),
   ]);
-  const histories = historiesBySpot(sessions);
+  const histories = historiesBySpot(sessions, await voidedSessions(printIds));
 
   const ranked = spots.flatMap((spot) => {
     const history = histories.get(spot.id) ?? [];

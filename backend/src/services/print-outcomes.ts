@@ -102,7 +102,8 @@ export async function recomputeOutcomes(ids: readonly string[], t?: Transaction,
             least(m.first_on, r.first_on)::text AS first_exam_on, greatest(m.last_on, r.last_on)::text AS last_exam_on, r.last_on::text AS last_report_on,
             tf.terms AS term_first, r.good_on::text AS good_on, r.fair_on::text AS fair_on, r.poor_on::text AS poor_on, r.unacceptable_on::text AS unacceptable_on
        FROM prints p
-       LEFT JOIN LATERAL (SELECT min(s.measured_on) AS first_on, max(s.measured_on) AS last_on FROM measurement_sessions s WHERE s.print_id = p.id) m ON true
+       LEFT JOIN LATERAL (SELECT min(s.measured_on) AS first_on, max(s.measured_on) AS last_on FROM measurement_sessions s WHERE s.print_id = p.id
+         AND NOT EXISTS (SELECT 1 FROM measurement_session_voids v WHERE v.session_id = s.id)) m ON true
        LEFT JOIN LATERAL (
          SELECT min(c.examined_on) AS first_on, max(c.examined_on) AS last_on,
                 min(c.examined_on) FILTER (WHERE c.grade IN ('good','fair','poor','unacceptable')) AS good_on,

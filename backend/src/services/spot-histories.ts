@@ -59,7 +59,8 @@ export async function analysePrintSpots(ids: readonly string[], t?: Transaction)
             s.illuminant, s.observer, s.geometry, s.condition, r.mean_l::float8 AS mean_l, r.mean_a::float8 AS mean_a, r.mean_b::float8 AS mean_b,
             r.density::float8 AS density, r.density_type, r.reflectance::float8 AS reflectance
        FROM spot_readings r JOIN measurement_sessions s ON s.id = r.session_id JOIN measurement_spots sp ON sp.id = r.spot_id
-      WHERE r.print_id = ANY ($1::uuid[])`,
+      WHERE r.print_id = ANY ($1::uuid[])
+        AND NOT EXISTS (SELECT 1 FROM measurement_session_voids v WHERE v.session_id = s.id) -- a voided session is never analysed`,
     [ids], t,
   );
   const spots = new Map<string, ReadingRow[]>();

@@ -15,6 +15,7 @@ import { loansApi } from './loans';
 import { measurementSettingsApi, measurementsApi } from './measurements';
 import { preservationApi } from './preservation';
 import { printsApi } from './prints';
+import { acquisitionsApi, deaccessionsApi, entriesApi, treatmentsApi, voidsApi } from './procedures';
 import { researchApi } from './research';
 import { catalogueSettingsApi, enclosuresApi, locationsApi, makersApi, papersApi, recipesApi } from './reference';
 import { systemApi } from './system';
@@ -26,6 +27,7 @@ export const allContracts: Record<string, Contract> = {
   locationsApi, catalogueSettingsApi, imagesApi, fixityApi, iiifApi, conditionSettingsApi, conditionTermsApi, reportsApi, measurementSettingsApi,
   measurementsApi, exhibitionsApi, displaysApi, lightApi, lightSettingsApi, loansApi,
   climateApi, climateSettingsApi, scheduleApi, roundsApi, remindersApi, researchApi,
+  treatmentsApi, entriesApi, acquisitionsApi, deaccessionsApi, voidsApi,
   exportsApi,
   bulkApi, savedSearchesApi,
   preservationApi,

@@ -32,6 +32,12 @@ export const PERMISSIONS = {
   'valuation.read': ['admin', 'registrar'],
   'condition.read': ['admin', 'registrar', 'conservator', 'researcher'],
   'condition.write': ['conservator'],
+  /** Treatments: proposing, recording the work and signing (read with `condition.read`). */
+  'treatments.write': ['conservator'],
+  /** Object entries, acquisitions and accessioning (read with `catalogue.read_restricted`). */
+  'acquisitions.write': ['admin', 'registrar'],
+  /** Deaccession proposals, their approval and completion (read with `catalogue.read_restricted`). */
+  'deaccessions.write': ['admin', 'registrar'],
   'images.read': ['admin', 'registrar', 'conservator', 'researcher', 'viewer'],
   'images.write': ['admin', 'registrar', 'conservator'],
   'images.original': ['admin', 'registrar', 'conservator', 'researcher'],

@@ -44,6 +44,8 @@ export const imageSchema = z.object({
   lastFixity: fixityResultSchema.nullable(),
   uploadedAt: z.string().datetime(), uploadedBy: z.string().nullable(),
   withdrawn: z.object({ at: z.string().datetime(), by: z.string().nullable(), reason: z.string(), purgeAfter: z.string().datetime() }).nullable(),
+  /** Capture dates voided as mistaken, oldest first: each kept with its reason and shown struck through. */
+  voidedCaptureDates: z.array(z.object({ capturedOn: isoDate, at: z.string().datetime(), by: z.string(), reason: z.string() })).optional(),
   version: z.number().int(),
 });
 export type PrintImage = z.infer<typeof imageSchema>;

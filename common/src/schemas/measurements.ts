@@ -80,6 +80,8 @@ export const sessionSchema = z.object({
     density: z.number().nullable(), densityType: z.enum(DENSITY_TYPES).nullable(), reflectance: z.number().nullable(),
   })),
   createdAt: z.string().datetime(),
+  /** A session voided by a conservator: kept and shown struck through, left out of every analysis. */
+  voided: z.object({ at: z.string().datetime(), by: z.string(), reason: z.string() }).nullable().optional(),
 });
 export type MeasurementSession = z.infer<typeof sessionSchema>;
 
