@@ -5,4 +5,5 @@ export const auditKeys = {
   all: ['audit'] as const,
   lists: () => [...auditKeys.all, 'list'] as const,
   list: (query: AuditListQuery) => [...auditKeys.lists(), query] as const,
+  choices: () => [...auditKeys.all, 'choices'] as const,
 };

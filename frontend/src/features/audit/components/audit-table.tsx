@@ -6,6 +6,9 @@ import { ChangeView } from '@/features/audit/components/change-view';
 
 const column = createColumnHelper<AuditEvent>();
 
+/** A record type as words: `condition_report` → "condition report". */
+const recordTypeWords = (type: string) => type.replace(/_/g, ' ');
+
 const filterButton = 'text-left text-iron-700 underline decoration-iron-200 underline-offset-2 hover:text-iron-900 hover:decoration-iron-700';
 
 export interface AuditTableProps {
@@ -61,12 +64,15 @@ export function AuditTable({ events, query, total, busy, onFilter }: AuditTableP
         );
       },
     }),
-    column.accessor('action', {
-      header: 'Action',
-      cell: (info) => (
-        <button type="button" className={`${filterButton} mono text-xs`} title="Show only this action" onClick={() => onFilter({ action: info.getValue() })}>
-          {info.getValue()}
-        </button>
+    column.accessor('sentence', {
+      header: 'What happened',
+      cell: ({ row }) => (
+        <span className="flex flex-col gap-0.5">
+          <span className="text-ink-900">{row.original.sentence}</span>
+          <button type="button" className={`${filterButton} text-xs`} title="Show only this action" onClick={() => onFilter({ action: row.original.action })}>
+            {row.original.actionLabel}
+          </button>
+        </span>
       ),
     }),
     column.accessor('entityType', {
@@ -76,7 +82,7 @@ export function AuditTable({ events, query, total, busy, onFilter }: AuditTableP
         return (
           <span className="flex flex-col">
             <button type="button" className={filterButton} title="Show only this kind of record" onClick={() => onFilter({ entityType, entityId: undefined })}>
-              {entityType}
+              {recordTypeWords(entityType)}
             </button>
             {entityId ? (
               <button
@@ -105,7 +111,7 @@ export function AuditTable({ events, query, total, busy, onFilter }: AuditTableP
     getRowId: (event) => event.id,
     getCoreRowModel: getCoreRowModel(),
     getExpandedRowModel: getExpandedRowModel(),
-    getRowCanExpand: (row) => row.original.before != null || row.original.after != null,
+    getRowCanExpand: (row) => row.original.changes.length > 0,
     enableSorting: false,
     manualPagination: true,
     manualFiltering: true,
@@ -119,7 +125,7 @@ export function AuditTable({ events, query, total, busy, onFilter }: AuditTableP
       caption="Audit events"
       empty="No events match these filters."
       busy={busy}
-      renderExpanded={(row) => <ChangeView before={row.original.before} after={row.original.after} />}
+      renderExpanded={(row) => <ChangeView changes={row.original.changes} />}
     />
   );
 }

@@ -1,51 +1,27 @@
-function isRecord(value: unknown): value is Record<string, unknown> {
-  return typeof value === 'object' && value !== null && !Array.isArray(value);
-}
+import type { AuditEvent } from '@toneledger/common/schemas/audit';
+import { TableHead } from '@/components/ui/table-head';
 
-/** Top-level fields whose value differs between two snapshots (all fields when one side is missing). */
-export function changedFields(before: unknown, after: unknown): string[] {
-  if (!isRecord(before) && !isRecord(after)) return [];
-  const a = isRecord(before) ? before : {};
-  const b = isRecord(after) ? after : {};
-  const keys = [...new Set([...Object.keys(a), ...Object.keys(b)])];
-  return keys.filter((key) => JSON.stringify(a[key]) !== JSON.stringify(b[key])).sort();
-}
-
-function Snapshot({ title, value }: { title: string; value: unknown }) {
+/**
+ * The before and after of one audited change, field by field: each field by its label, each value as
+ * the screens show it (the server words them with fields/audit-words.ts), never raw JSON or codes.
+ */
+export function ChangeView({ changes }: { changes: AuditEvent['changes'] }) {
+  if (changes.length === 0) return <p className="text-sm text-ink-700">No field changed.</p>;
   return (
-    <div className="min-w-0 flex-1">
-      <h3 className="mb-1 font-sans text-xs font-semibold tracking-wider text-ink-700 uppercase">{title}</h3>
-      {value === null || value === undefined ? (
-        <p className="text-sm text-ink-600">Nothing recorded.</p>
-      ) : (
-        <pre className="max-h-80 overflow-auto rounded border border-paper-300 bg-white p-2.5 text-xs leading-relaxed whitespace-pre-wrap text-ink-900">
-          {JSON.stringify(value, null, 2)}
-        </pre>
-      )}
-    </div>
-  );
-}
-
-/** The before and after of one audited change, side by side, with the fields that changed named. */
-export function ChangeView({ before, after }: { before: unknown; after: unknown }) {
-  const changed = changedFields(before, after);
-  return (
-    <div className="flex flex-col gap-3">
-      {changed.length > 0 ? (
-        <p className="text-sm text-ink-800">
-          Changed:{' '}
-          {changed.map((field, index) => (
-            <span key={field}>
-              {index > 0 ? ', ' : ''}
-              <code className="mono rounded bg-sepia-50 px-1 text-sepia-800">{field}</code>
-            </span>
-          ))}
-        </p>
-      ) : null}
-      <div className="flex flex-col gap-3 lg:flex-row">
-        <Snapshot title="Before" value={before} />
-        <Snapshot title="After" value={after} />
-      </div>
-    </div>
+    <table className="w-full border-collapse text-left text-sm">
+      <caption className="sr-only">Fields changed, before and after</caption>
+      <TableHead variant="inline" columns={['Field', 'Before', 'After']} />
+      <tbody>
+        {changes.map((c) => (
+          <tr key={c.field} className="border-t border-paper-200 align-top">
+            <th scope="row" className="py-1 pr-3 font-medium text-ink-900">
+              {c.label}
+            </th>
+            <td className="py-1 pr-3 [overflow-wrap:anywhere] whitespace-pre-line text-ink-800">{c.before}</td>
+            <td className="py-1 [overflow-wrap:anywhere] whitespace-pre-line text-ink-900">{c.after}</td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
   );
 }

@@ -1,72 +1,88 @@
 import { describe, expect, it } from 'vitest';
-import { fireEvent, screen, waitFor } from '@testing-library/react';
+import { fireEvent, screen, waitFor, within } from '@testing-library/react';
 import type { AuditEvent } from '@toneledger/common/schemas/audit';
 import { json, mockFetch } from '@/test/fetch-mock';
 import { makeMe } from '@/test/fixtures';
 import { renderPage } from '@/test/render';
 import { AuditPage } from '@/features/audit/routes/audit-page';
-import { changedFields } from '@/features/audit/components/change-view';
 
 const actorId = '5d0c0f5e-8a7b-4c2d-9e1f-112233445566';
-const roleChange: AuditEvent = {
+const statusChange: AuditEvent = {
   id: 'ev-2',
   at: '2025-02-03T10:15:00.000Z',
   actorId,
   actorName: 'Iris Penhale',
-  action: 'user.role_changed',
-  entityType: 'user',
+  action: 'print.updated',
+  entityType: 'print',
   entityId: '0b7c1c8e-2f57-4b39-9d7c-3f1e5b6a7c01',
-  before: { role: 'registrar', name: 'Ada Marsh' },
-  after: { role: 'conservator', name: 'Ada Marsh' },
+  before: { status: 'in_store' },
+  after: { status: 'in_treatment' },
   requestId: 'req-77',
+  sentence: 'Iris Penhale edited print 1979.3.12.',
+  actionLabel: 'Print edited',
+  changes: [{ field: 'status', label: 'Status', before: 'In store', after: 'In treatment' }],
 };
-const signIn: AuditEvent = { ...roleChange, id: 'ev-1', action: 'session.signed_in', entityType: 'session', entityId: null, before: null, after: null };
-
-describe('changedFields', () => {
-  it('names the top-level fields that differ', () => {
-    expect(changedFields({ role: 'a', name: 'x', n: [1] }, { role: 'b', name: 'x', n: [1, 2] })).toEqual(['n', 'role']);
-    expect(changedFields(null, { role: 'b' })).toEqual(['role']);
-    expect(changedFields(null, null)).toEqual([]);
-  });
-});
+const signIn: AuditEvent = {
+  ...statusChange, id: 'ev-1', action: 'session.signed_in', entityType: 'session', entityId: null, before: null, after: null,
+  sentence: 'Iris Penhale signed in.', actionLabel: 'Signed in', changes: [],
+};
+const choices = {
+  data: {
+    people: [{ id: actorId, name: 'Iris Penhale' }, { id: '6e1d1f6f-9b8c-4d3e-8f20-223344556677', name: 'Maren Oakshott' }],
+    actions: [{ code: 'print.updated', label: 'Print edited' }, { code: 'print.steps_replaced', label: 'Process history replaced' }],
+  },
+};
 
 describe('AuditPage', () => {
-  it('opens a change to show its before and after, and only for events that have them', async () => {
-    mockFetch({ 'GET /api/audit': () => json({ data: [roleChange, signIn], pagination: { page: 1, pageSize: 50, total: 2 } }) });
+  it('shows each event as a sentence and its changes by label with readable values, never the raw snapshot', async () => {
+    mockFetch({ 'GET /api/audit': () => json({ data: [statusChange, signIn], pagination: { page: 1, pageSize: 50, total: 2 } }), 'GET /api/audit/choices': () => json(choices) });
     renderPage(<AuditPage />, { path: '/admin/audit', me: makeMe('admin') });
 
-    const toggles = await screen.findAllByRole('button', { name: 'Show changes' });
+    expect(await screen.findByText('Iris Penhale edited print 1979.3.12.')).toBeTruthy();
+    expect(screen.getByText('Iris Penhale signed in.')).toBeTruthy();
+    const toggles = screen.getAllByRole('button', { name: 'Show changes' });
     expect(toggles).toHaveLength(1);
     fireEvent.click(toggles[0]!);
-    expect(screen.getByRole('button', { name: 'Hide changes' }).getAttribute('aria-expanded')).toBe('true');
-    expect(screen.getByRole('heading', { name: 'Before' })).toBeTruthy();
-    expect(screen.getByText(/"role": "registrar"/)).toBeTruthy();
-    expect(screen.getByText(/"role": "conservator"/)).toBeTruthy();
-    expect(screen.getByText('Changed:').textContent).toContain('role');
+    const table = screen.getByRole('table', { name: 'Fields changed, before and after' });
+    expect(within(table).getByRole('rowheader', { name: 'Status' })).toBeTruthy();
+    expect(within(table).getByText('In store')).toBeTruthy();
+    expect(within(table).getByText('In treatment')).toBeTruthy();
+    expect(document.body.textContent).not.toMatch(/in_store|in_treatment|print\.updated|\{"/);
   });
 
-  it('filters by action and record through the URL and the API query', async () => {
-    const { requests } = mockFetch({ 'GET /api/audit': () => json({ data: [roleChange], pagination: { page: 1, pageSize: 50, total: 1 } }) });
+  it('filters by a picked person, a picked action and a range of days, through the URL and the API query; the export follows', async () => {
+    const { requests } = mockFetch({
+      'GET /api/audit': () => json({ data: [statusChange], pagination: { page: 1, pageSize: 50, total: 1 } }),
+      'GET /api/audit/choices': () => json(choices),
+    });
     const { router } = renderPage(<AuditPage />, { path: '/admin/audit?page=3', me: makeMe('admin') });
-    await screen.findByText('user.role_changed', { selector: 'button' });
+    await screen.findByRole('option', { name: 'Maren Oakshott' });
 
-    fireEvent.change(screen.getByLabelText('Action'), { target: { value: 'user.role_changed' } });
-    fireEvent.change(screen.getByLabelText('Record type'), { target: { value: 'user' } });
+    fireEvent.change(screen.getByLabelText('Person'), { target: { value: actorId } });
+    fireEvent.change(screen.getByLabelText('Action'), { target: { value: 'print.steps_replaced' } });
+    fireEvent.change(screen.getByLabelText('From (day)'), { target: { value: '2025-01-01' } });
+    fireEvent.change(screen.getByLabelText('To (day)'), { target: { value: '2025-01-31' } });
     fireEvent.click(screen.getByRole('button', { name: 'Filter' }));
-    await waitFor(() => expect(router.state.location.search).toBe('?action=user.role_changed&entityType=user'));
-    await waitFor(() => expect(Object.fromEntries(requests.at(-1)!.search)).toEqual({ page: '1', pageSize: '50', action: 'user.role_changed', entityType: 'user' }));
-
-    fireEvent.click(screen.getByRole('button', { name: /show only this person's events/ }));
-    await waitFor(() => expect(requests.at(-1)?.search.get('actorId')).toBe(actorId));
+    await waitFor(() => expect(router.state.location.search).toBe(`?actorId=${actorId}&action=print.steps_replaced&from=2025-01-01&to=2025-01-31`));
+    await waitFor(() =>
+      expect(Object.fromEntries(requests.filter((r) => r.path === '/api/audit').at(-1)!.search)).toEqual({
+        page: '1', pageSize: '50', actorId, action: 'print.steps_replaced', from: '2025-01-01', to: '2025-01-31',
+      }),
+    );
+    const csv = screen.getByRole('link', { name: 'Export CSV' }).getAttribute('href')!;
+    expect(csv.startsWith('/api/audit/export.csv?')).toBe(true);
+    expect(Object.fromEntries(new URL(csv, 'http://x').searchParams)).toEqual({ actorId, action: 'print.steps_replaced', from: '2025-01-01', to: '2025-01-31' });
   });
 
-  it('refuses a malformed person id before asking the server', async () => {
-    const { requests } = mockFetch({ 'GET /api/audit': () => json({ data: [], pagination: { page: 1, pageSize: 50, total: 0 } }) });
+  it('refuses a range that ends before it starts without asking the server', async () => {
+    const { requests } = mockFetch({ 'GET /api/audit': () => json({ data: [], pagination: { page: 1, pageSize: 50, total: 0 } }), 'GET /api/audit/choices': () => json(choices) });
     renderPage(<AuditPage />, { path: '/admin/audit', me: makeMe('admin') });
     await screen.findByText('No events match these filters.');
-    fireEvent.change(screen.getByLabelText('Person id'), { target: { value: 'iris' } });
+    const before = requests.filter((r) => r.path === '/api/audit').length;
+    fireEvent.change(screen.getByLabelText('From (day)'), { target: { value: '2025-02-01' } });
+    fireEvent.change(screen.getByLabelText('To (day)'), { target: { value: '2025-01-01' } });
     fireEvent.click(screen.getByRole('button', { name: 'Filter' }));
-    expect(await screen.findByText(/A person id looks like/)).toBeTruthy();
-    expect(requests).toHaveLength(1);
+    expect(await screen.findByText('The last day comes on or after the first')).toBeTruthy();
+    expect(requests.filter((r) => r.path === '/api/audit')).toHaveLength(before);
   });
 });

@@ -1,6 +1,10 @@
+import { auditApi } from '@toneledger/common/api/users';
 import { auditListQuerySchema } from '@toneledger/common/schemas/audit';
+import { exportsApi } from '@toneledger/common/api/exports';
+import { ExportLinks } from '@/components/ui/export-links';
 import { PageHeader } from '@/components/ui/page-header';
 import { PagedList } from '@/components/ui/paged-list';
+import { urlOf } from '@/lib/api-client';
 import { useSearchQuery } from '@/lib/search-query';
 import { useDocumentTitle } from '@/lib/use-document-title';
 import { useAuditEvents } from '@/features/audit/api/get-audit-events';
@@ -11,14 +15,18 @@ export function AuditPage() {
   useDocumentTitle('Audit trail');
   const [query, setQuery] = useSearchQuery(auditListQuerySchema);
   const events = useAuditEvents(query);
+  const { page: _page, pageSize: _size, ...filters } = query;
 
   return (
     <section>
       <PageHeader
         title="Audit trail"
-        description="Every sign-in, sign-out and change: who, when, and the record before and after. Select a person, action or record in the table to see only its events."
+        description="Every sign-in, sign-out and change: who did what and when, and each field before and after. Pick a person, an action or a range of days, or select one in the table to see only its events."
       />
       <AuditFilters query={query} onChange={setQuery} />
+      <div className="mb-3">
+        <ExportLinks what="the audit trail as filtered" csv={urlOf(auditApi.exportCsv, { query: filters })} dictionary={urlOf(exportsApi.dictionaryCsv, { params: { name: 'audit' } })} />
+      </div>
       <PagedList list={events} query={query} setQuery={setQuery} errorTitle="The audit trail could not be loaded." loadingLabel="Loading events…">
         {(page, busy) => (
           <AuditTable

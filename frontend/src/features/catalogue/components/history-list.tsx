@@ -1,35 +1,17 @@
 import { useId } from 'react';
 import type { HistoryEvent } from '@toneledger/common/schemas/catalogue';
+import { auditSentence, changeLabel, formatAuditValue } from '@toneledger/common/fields/audit-words';
 import { ErrorNotice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/loading';
 import { TableHead } from '@/components/ui/table-head';
 import { formatDateTime } from '@/lib/format';
 import { useHistory } from '@/features/catalogue/api/get-history';
 
-/** A readable form of a recorded value: references by their name, step lists as one line per step. */
-export function show(value: unknown): string {
-  if (value === null || value === undefined || value === '') return '—';
-  if (typeof value === 'string') return value;
-  if (typeof value === 'number' || typeof value === 'boolean') return String(value);
-  if (Array.isArray(value)) {
-    if (value.length === 0) return 'none';
-    return value.map((v, i) => `${i + 1}. ${show(describeStep(v))}`).join('\n');
-  }
-  if (typeof value === 'object') {
-    const o = value as Record<string, unknown>;
-    for (const key of ['pathLabel', 'label', 'name']) if (typeof o[key] === 'string') return o[key] as string;
-  }
-  return JSON.stringify(value);
-}
-
-function describeStep(v: unknown): unknown {
-  if (!v || typeof v !== 'object') return v;
-  const s = v as Record<string, unknown>;
-  if (typeof s.type !== 'string') return v;
-  const recipe = s.recipe && typeof s.recipe === 'object' ? (s.recipe as { name?: string }).name : null;
-  return [s.type, s.tonerClass, s.agent, recipe, s.timeSeconds != null ? `${s.timeSeconds} s` : null].filter(Boolean).join(', ').replace(/_/g, ' ');
-}
-
+/**
+ * One change as people read it: the field's label from the field tables and each value formatted the
+ * way the screens show it (labels of codes, m:ss bath times, names of references, one step a line),
+ * by the same words as the audit trail (fields/audit-words.ts). No internal code reaches the reader.
+ */
 function Changes({ changes }: { changes: HistoryEvent['changes'] }) {
   if (changes.length === 0) return null;
   return (
@@ -39,10 +21,10 @@ function Changes({ changes }: { changes: HistoryEvent['changes'] }) {
         {changes.map((c, i) => (
           <tr key={`${c.field}-${i}`} className="border-t border-paper-200 align-top">
             <th scope="row" className="py-1 pr-3 font-medium text-ink-900">
-              <code className="mono">{c.field}</code>
+              {changeLabel('print', c.field)}
             </th>
-            <td className="py-1 pr-3 [overflow-wrap:anywhere] whitespace-pre-line text-ink-800">{show(c.before)}</td>
-            <td className="py-1 [overflow-wrap:anywhere] whitespace-pre-line text-ink-900">{show(c.after)}</td>
+            <td className="py-1 pr-3 [overflow-wrap:anywhere] whitespace-pre-line text-ink-800">{formatAuditValue('print', c.field, c.before)}</td>
+            <td className="py-1 [overflow-wrap:anywhere] whitespace-pre-line text-ink-900">{formatAuditValue('print', c.field, c.after)}</td>
           </tr>
         ))}
       </tbody>
@@ -51,7 +33,7 @@ function Changes({ changes }: { changes: HistoryEvent['changes'] }) {
 }
 
 /** Every change to this print: who, when, what, with each field's before and after. */
-export function HistoryList({ printId }: { printId: string }) {
+export function HistoryList({ printId, accessionNumber }: { printId: string; accessionNumber: string }) {
   const history = useHistory(printId, true);
   const headingId = useId();
   return (
@@ -73,11 +55,10 @@ export function HistoryList({ printId }: { printId: string }) {
                     {formatDateTime(event.at)}
                   </time>
                   {' · '}
-                  <span className="font-medium">{event.actorName ?? 'System'}</span>
-                  {' · '}
-                  <code className="mono text-xs text-ink-700">{event.action}</code>
                 </p>
-                <p className="text-ink-900">{event.summary}</p>
+                <p className="text-ink-900">
+                  {auditSentence({ actorName: event.actorName, action: event.action, entityType: 'print', before: null, after: event.action === 'print.moved' ? { location: event.changes.find((c) => c.field === 'location')?.after } : null }, `print ${accessionNumber}`)}
+                </p>
                 <Changes changes={event.changes} />
               </li>
             ))}

@@ -3,10 +3,12 @@ import type { z } from 'zod';
 import { movementInputSchema, type Print } from '@toneledger/common/schemas/catalogue';
 import { SelectInput, TextInput } from '@/components/form/fields';
 import { SchemaForm } from '@/components/form/schema-form';
+import { exportsApi } from '@toneledger/common/api/exports';
 import { Button } from '@/components/ui/button';
+import { ExportLinks } from '@/components/ui/export-links';
 import { ErrorNotice, Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/loading';
-import { isApiError } from '@/lib/api-client';
+import { isApiError, urlOf } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/format';
 import { fieldIssuesOf, type FieldErrors } from '@/lib/forms/field-errors';
 import { useSchemaForm } from '@/lib/forms/use-schema-form';
@@ -128,6 +130,16 @@ export function LocationPanel({ print, mayMove }: { print: Print; mayMove: boole
             ))}
           </ol>
         )
+      ) : null}
+      {movements.data && movements.data.length > 0 ? (
+        <div className="mt-2 print:hidden">
+          <ExportLinks
+            what="this print's movements"
+            csv={urlOf(exportsApi.movementsCsv, { params: { id: print.id } })}
+            json={urlOf(exportsApi.movementsJson, { params: { id: print.id } })}
+            dictionary={urlOf(exportsApi.dictionaryCsv, { params: { name: 'movements' } })}
+          />
+        </div>
       ) : null}
       {mayMove ? <MoveForm print={print} /> : null}
     </section>

@@ -96,7 +96,8 @@ describe('PrintPage', () => {
     expect(screen.queryByText('£1,200.00')).toBeNull();
     expect(screen.queryByText('Valuation')).toBeNull();
     const history = screen.getByRole('region', { name: 'History of changes' });
-    expect(await within(history).findByText('Changed the title')).toBeTruthy();
+    expect(await within(history).findByText(/^Ada Marsh edited print \S+\.$/)).toBeTruthy();
+    expect(within(history).getByRole('rowheader', { name: 'Title' })).toBeTruthy();
     expect(await screen.findByText('Accessioned — Ada Marsh')).toBeTruthy();
     expect(screen.queryByRole('button', { name: 'Move' })).toBeNull();
     expect(screen.queryByRole('link', { name: 'Edit' })).toBeNull();

@@ -174,7 +174,7 @@ function PrintView({ print, panels }: { print: Print; panels: readonly PrintPage
           <WarningsPanel warnings={print.warnings} />
           {restricted ? <LocationPanel print={print} mayMove={mayWrite} /> : null}
           <TimelinePanel printId={print.id} />
-          {restricted ? <HistoryList printId={print.id} /> : null}
+          {restricted ? <HistoryList printId={print.id} accessionNumber={print.accessionNumber} /> : null}
         </div>
       </div>
     </article>

@@ -2,7 +2,10 @@ import { useId } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { can, type Role } from '@toneledger/common/domain/roles';
 import { CONDITION_CONTEXT_LABELS, GRADE_LABELS } from '@toneledger/common/schemas/condition';
+import { exportsApi } from '@toneledger/common/api/exports';
 import { Button } from '@/components/ui/button';
+import { ExportLinks } from '@/components/ui/export-links';
+import { urlOf } from '@/lib/api-client';
 import { ErrorNotice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/loading';
 import { TableHead } from '@/components/ui/table-head';
@@ -26,6 +29,16 @@ export function ReportsPanel({ printId, role }: { printId: string; role: Role })
           </Button>
         ) : null}
       </div>
+      {reports.data && reports.data.length > 0 ? (
+        <div className="mb-3 print:hidden">
+          <ExportLinks
+            what="this print's condition reports"
+            csv={urlOf(exportsApi.conditionReportsCsv, { params: { id: printId } })}
+            json={urlOf(exportsApi.conditionReportsJson, { params: { id: printId } })}
+            dictionary={urlOf(exportsApi.dictionaryCsv, { params: { name: 'condition-reports' } })}
+          />
+        </div>
+      ) : null}
       {reports.isPending ? <Loading label="Loading reports…" /> : null}
       {reports.isError ? <ErrorNotice error={reports.error} title="The reports could not be loaded." /> : null}
       {reports.data ? (

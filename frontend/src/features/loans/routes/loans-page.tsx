@@ -2,9 +2,12 @@ import { Link } from 'react-router-dom';
 import { can } from '@toneledger/common/domain/roles';
 import { loanListQuerySchema } from '@toneledger/common/schemas/loans';
 import { buttonClasses } from '@/components/ui/button';
+import { exportsApi } from '@toneledger/common/api/exports';
+import { ExportLinks } from '@/components/ui/export-links';
 import { PageHeader } from '@/components/ui/page-header';
 import { PagedList } from '@/components/ui/paged-list';
 import { useMe } from '@/lib/auth';
+import { urlOf } from '@/lib/api-client';
 import { useSearchQuery } from '@/lib/search-query';
 import { useDocumentTitle } from '@/lib/use-document-title';
 import { useLoans } from '@/features/loans/api/get-loans';
@@ -17,6 +20,7 @@ export function LoansPage() {
   const me = useMe();
   const [query, setQuery] = useSearchQuery(loanListQuerySchema);
   const loans = useLoans(query);
+  const { page: _page, pageSize: _size, ...filters } = query;
 
   return (
     <section>
@@ -32,6 +36,14 @@ export function LoansPage() {
         }
       />
       <LoansFilters query={query} onChange={setQuery} />
+      <div className="mb-3">
+        <ExportLinks
+          what="loans as listed"
+          csv={urlOf(exportsApi.loansCsv, { query: filters })}
+          json={urlOf(exportsApi.loansJson, { query: filters })}
+          dictionary={urlOf(exportsApi.dictionaryCsv, { params: { name: 'loans' } })}
+        />
+      </div>
       <PagedList list={loans} query={query} setQuery={setQuery} errorTitle="The loans could not be loaded." loadingLabel="Loading loans…">
         {(page, busy) => <LoansTable loans={page.data} query={query} total={page.pagination.total} busy={busy} />}
       </PagedList>

@@ -1,3 +1,4 @@
+import { useState, type ReactNode } from 'react';
 import { CartesianGrid, ComposedChart, Line, ReferenceArea, ReferenceLine, XAxis, YAxis } from 'recharts';
 import type { ChangeChartData, ChartPoint } from '@/features/measurements/utils/chart-data';
 import { yearLabel, type Axis } from '@/lib/chart-axis';
@@ -17,6 +18,43 @@ const GRID = '#ebe4d6';
 
 const CHART_MARGIN = { top: 18, right: 24, bottom: 4, left: 4 };
 
+const dayOf = (t: number) => new Date(t).toISOString().slice(0, 10);
+
+/**
+ * Values on hover and focus: pointing at a measured point shows its day and value under the chart;
+ * focusing the chart (Tab) shows every plotted value there, so a keyboard reaches them too.
+ */
+function useReadout(points: readonly ChartPoint[], format: (p: ChartPoint) => string) {
+  const [hovered, setHovered] = useState<ChartPoint | null>(null);
+  const [focused, setFocused] = useState(false);
+  const dot = (color: string, r: number) =>
+    function Dot(props: { cx?: number; cy?: number; payload?: ChartPoint; index?: number }): ReactNode {
+      if (props.cx === undefined || props.cy === undefined || !props.payload) return null;
+      const point = props.payload;
+      return (
+        <circle
+          key={`dot-${props.index}`}
+          cx={props.cx}
+          cy={props.cy}
+          r={hovered === point ? r + 2 : r}
+          fill={color}
+          stroke={color}
+          className="recharts-line-dot"
+          onMouseEnter={() => setHovered(point)}
+          onMouseLeave={() => setHovered(null)}
+        />
+      );
+    };
+  const text = hovered ? format(hovered) : focused ? points.map(format).join('; ') : '';
+  const focusProps = { tabIndex: 0, onFocus: () => setFocused(true), onBlur: () => setFocused(false) };
+  const readout = (
+    <p aria-live="polite" className="min-h-4 pl-12 text-xs text-ink-800 print:hidden">
+      {text}
+    </p>
+  );
+  return { dot, focusProps, readout };
+}
+
 export interface ChangeChartProps {
   data: ChangeChartData;
   threshold: number;
@@ -28,8 +66,9 @@ export interface ChangeChartProps {
 
 /** ΔE00 against the baseline over time, with the noticeable-change threshold, the fitted trend and its projection. */
 export function ChangeChart({ data, threshold, label, describedBy }: ChangeChartProps) {
+  const { dot, focusProps, readout } = useReadout(data.observed, (p) => `${dayOf(p.t)}: ΔE00 ${p.value.toFixed(2)}`);
   return (
-    <div role="img" aria-label={label} aria-describedby={describedBy} className="measure-chart w-full">
+    <div role="img" aria-label={label} aria-describedby={describedBy} className="measure-chart w-full focus-visible:outline-2" {...focusProps}>
       <ComposedChart responsive style={{ width: '100%', height: 260 }} margin={CHART_MARGIN} accessibilityLayer={false}>
         <CartesianGrid stroke={GRID} />
         <XAxis
@@ -83,10 +122,11 @@ export function ChangeChart({ data, threshold, label, describedBy }: ChangeChart
           dataKey="value"
           className="chart-observed"
           stroke="none"
-          dot={{ r: 3.5, fill: IRON, stroke: IRON }}
+          dot={dot(IRON, 3.5)}
           isAnimationActive={false}
         />
       </ComposedChart>
+      {readout}
       <ul aria-hidden="true" className="flex flex-wrap gap-x-4 gap-y-1 pl-12 text-xs text-ink-700">
         <li>
           <span className="text-iron-700 print:text-black">●</span> measured
@@ -102,8 +142,9 @@ export function ChangeChart({ data, threshold, label, describedBy }: ChangeChart
 
 /** Density lost since the baseline, in percent, over the same years. */
 export function DensityChart({ points, timeAxis, valueAxis, label, describedBy }: { points: ChartPoint[]; timeAxis: Axis; valueAxis: Axis; label: string; describedBy: string }) {
+  const { dot, focusProps, readout } = useReadout(points, (p) => `${dayOf(p.t)}: density loss ${p.value.toFixed(1)} %`);
   return (
-    <div role="img" aria-label={label} aria-describedby={describedBy} className="measure-chart w-full">
+    <div role="img" aria-label={label} aria-describedby={describedBy} className="measure-chart w-full focus-visible:outline-2" {...focusProps}>
       <ComposedChart responsive style={{ width: '100%', height: 150 }} margin={CHART_MARGIN} accessibilityLayer={false}>
         <CartesianGrid stroke={GRID} />
         <XAxis type="number" dataKey="t" domain={timeAxis.domain} ticks={timeAxis.ticks} tickFormatter={yearLabel} allowDataOverflow stroke={INK} fontSize={12} />
@@ -119,8 +160,9 @@ export function DensityChart({ points, timeAxis, valueAxis, label, describedBy }
           label={{ value: 'Density loss %', angle: -90, position: 'insideLeft', fontSize: 11, fill: INK, dy: 40 }}
         />
         <ReferenceLine y={0} stroke={INK} />
-        <Line data={points} dataKey="value" className="chart-density" stroke={INK} strokeWidth={1} dot={{ r: 3, fill: INK, stroke: INK }} isAnimationActive={false} />
+        <Line data={points} dataKey="value" className="chart-density" stroke={INK} strokeWidth={1} dot={dot(INK, 3)} isAnimationActive={false} />
       </ComposedChart>
+      {readout}
     </div>
   );
 }

@@ -4,6 +4,7 @@ import { Button } from '@/components/ui/button';
 import { formatDateTime } from '@/lib/format';
 import { BaselineControl } from '@/features/measurements/components/baseline-control';
 import { ChangeChart, DensityChart } from '@/features/measurements/components/change-chart';
+import { AbDriftChart } from '@/features/measurements/components/ab-drift-chart';
 import { changeChartData } from '@/features/measurements/utils/chart-data';
 import { formatDay, formatNumber, formatRange, formatSigned, projectionText, rateText, sentence } from '@/features/measurements/utils/format';
 
@@ -100,6 +101,12 @@ export function SpotCard({ analysis, threshold, sessions, mayWrite, onEdit }: Sp
             {chartSummary(analysis)}
           </p>
           {data.projectionCut ? <p className="text-xs text-ink-700">The projection runs beyond the right edge of the chart.</p> : null}
+          {analysis.points.length > 0 ? (
+            <div className="mt-3">
+              <h3 className="font-sans text-sm font-semibold">Drift in a* and b*</h3>
+              <AbDriftChart analysis={analysis} label={`Drift of a* and b* at ${spot.name}, session by session`} />
+            </div>
+          ) : null}
           {data.densityLoss.length > 0 ? (
             <div className="mt-3">
               <DensityChart points={data.densityLoss} timeAxis={data.timeAxis} valueAxis={data.densityAxis} label={`Density loss at ${spot.name} over time`} describedBy={densityId} />

@@ -1,8 +1,11 @@
 import { can } from '@toneledger/common/domain/roles';
 import { leadersQuerySchema } from '@toneledger/common/schemas/measurements';
+import { exportsApi } from '@toneledger/common/api/exports';
+import { ExportLinks } from '@/components/ui/export-links';
 import { PageHeader } from '@/components/ui/page-header';
 import { PagedList } from '@/components/ui/paged-list';
 import { useMe } from '@/lib/auth';
+import { urlOf } from '@/lib/api-client';
 import { useSearchQuery } from '@/lib/search-query';
 import { useDocumentTitle } from '@/lib/use-document-title';
 import { useLeaders } from '@/features/measurements/api/get-leaders';
@@ -28,6 +31,14 @@ export function LeadersPage() {
       <h2 className="mb-2 text-lg">Spots changing most</h2>
       <ThresholdSetting mayChange={can(me.role, 'settings.manage')} />
       <LeadersFilters query={query} onChange={setQuery} />
+      <div className="mb-3">
+        <ExportLinks
+          what="the readings of the prints this filter names"
+          csv={urlOf(exportsApi.readingsCsv, { query: { process: query.process, tonerClass: query.tonerClass } })}
+          json={urlOf(exportsApi.readingsJson, { query: { process: query.process, tonerClass: query.tonerClass } })}
+          dictionary={urlOf(exportsApi.dictionaryCsv, { params: { name: 'readings' } })}
+        />
+      </div>
       <PagedList list={leaders} query={query} setQuery={setQuery} errorTitle="The list could not be loaded." loadingLabel="Loading the spots…">
         {(page, busy) => (
           <LeadersTable

@@ -5,12 +5,14 @@ import type { Print } from '@toneledger/common/schemas/catalogue';
 import type { PrintImage } from '@toneledger/common/schemas/images';
 import { VIEW_TYPE_LABELS } from '@toneledger/common/schemas/images';
 import type { PrintMeasurements, Spot } from '@toneledger/common/schemas/measurements';
+import { exportsApi } from '@toneledger/common/api/exports';
 import { Button } from '@/components/ui/button';
+import { ExportLinks } from '@/components/ui/export-links';
 import { SelectField } from '@/components/ui/field';
 import { ErrorNotice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/loading';
 import { SidePanel } from '@/components/ui/side-panel';
-import { isApiError } from '@/lib/api-client';
+import { isApiError, urlOf } from '@/lib/api-client';
 import { useMe } from '@/lib/auth';
 import { useImages } from '@/lib/images-api';
 import { usePrint } from '@/lib/prints-api';
@@ -165,6 +167,16 @@ function MeasurementsView({ print, measurements }: { print: Print; measurements:
         <h2 id={sessionsId} className="mb-2 text-lg">
           Sessions
         </h2>
+        {measurements.sessions.length > 0 ? (
+          <div className="mb-2 print:hidden">
+            <ExportLinks
+              what="this print's readings"
+              csv={urlOf(exportsApi.readingsCsv, { query: { printId: print.id } })}
+              json={urlOf(exportsApi.readingsJson, { query: { printId: print.id } })}
+              dictionary={urlOf(exportsApi.dictionaryCsv, { params: { name: 'readings' } })}
+            />
+          </div>
+        ) : null}
         <SessionsTable sessions={measurements.sessions} />
       </section>
     </article>
