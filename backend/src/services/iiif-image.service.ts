@@ -19,7 +19,8 @@ import { MAX_IMAGE_PIXELS } from './image-ingest';
  * reaches a pixel of the original. Each answer is made once and kept in object storage under
  * `iiif/<image>/<source>/<x,y,w,h>/<w,h>/<rotation>/<quality>.<format>` (the request resolved to
  * pixels, so equal requests written differently share one object); `iiif_cache` lists them so the
- * purge of a withdrawn image removes them with it.
+ * purge of a withdrawn image removes them with it. The answers served lately are also kept in memory
+ * (64 MB, least recently used first out), in front of storage.
  */
 
 export const TILE_SIZE = 512;
@@ -34,6 +35,39 @@ const sources = new Map<string, Buffer>();
 let sourceBytes = 0;
 /** The display copies' dimensions, read once per image. */
 const screenSizes = new Map<string, { width: number; height: number }>();
+/** Answers served lately, in memory in front of object storage (a viewer asks for the same tiles again as it pans back). */
+const ANSWER_BUDGET_BYTES = 64 * 1024 * 1024;
+const answers = new Map<string, Buffer>();
+let answerBytes = 0;
+
+function keepAnswer(key: string, bytes: Buffer) {
+  if (bytes.length > ANSWER_BUDGET_BYTES / 8 || answers.has(key)) return;
+  answers.set(key, bytes);
+  answerBytes += bytes.length;
+  for (const [k, v] of answers) {
+    if (answerBytes <= ANSWER_BUDGET_BYTES) break;
+    answers.delete(k);
+    answerBytes -= v.length;
+  }
+}
+
+function answerFromMemory(key: string): Buffer | null {
+  const hit = answers.get(key);
+  if (!hit) return null;
+  answers.delete(key);
+  answers.set(key, hit);
+  return hit;
+}
+
+/** Empties the in-memory caches (the bench times reads from object storage with it). */
+export function forgetIiifMemory(): void {
+  answers.clear();
+  answerBytes = 0;
+  sources.clear();
+  sourceBytes = 0;
+  screenSizes.clear();
+}
+
 /** Answers being made now: a second identical request waits for the first. */
 const inFlight = new Map<string, Promise<Buffer>>();
 
@@ -156,19 +190,25 @@ export async function imageRequest(
   imageId: string,
   segments: IiifPathSegments,
   role: Role | null,
-): Promise<{ bytes: Buffer; contentType: string; cache: 'hit' | 'miss' }> {
+): Promise<{ bytes: Buffer; contentType: string; cache: 'memory' | 'hit' | 'miss' }> {
   const source = await iiifSourceFor(store, imageId, role);
   const resolved = resolveImageRequest(segments, source.width, source.height, source.limits);
   if (!resolved.ok) throw validationFailed([{ path: `params.${resolved.field}`, message: resolved.message, code: 'iiif' }], resolved.message);
   const r = resolved.value;
   const contentType = IIIF_MEDIA_TYPES[r.format];
   const key = cacheKeyOf(imageId, source.kind, r);
+  const recent = answerFromMemory(key);
+  if (recent) return { bytes: recent, contentType, cache: 'memory' };
   const hit = await cached(store, key);
-  if (hit) return { bytes: hit, contentType, cache: 'hit' };
+  if (hit) {
+    keepAnswer(key, hit);
+    return { bytes: hit, contentType, cache: 'hit' };
+  }
   let job = inFlight.get(key);
   if (!job) {
     job = (async () => {
       const bytes = await renderImage(await sourceBytesOf(store, source.key), r);
+      keepAnswer(key, bytes);
       await remember(store, key, imageId, bytes).catch(() => {
         // Not kept (storage refused): the next request makes it again.
       });
@@ -184,6 +224,11 @@ export async function dropIiifCache(store: ObjectStore, imageId: string): Promis
   const rows = await db().query<{ key: string }>('SELECT key FROM iiif_cache WHERE image_id = $1', { bind: [imageId], type: QueryTypes.SELECT });
   for (const { key } of rows) await store.delete(key);
   await db().query('DELETE FROM iiif_cache WHERE image_id = $1', { bind: [imageId] });
+  for (const [key, buf] of [...answers]) {
+    if (!key.startsWith(`iiif/${imageId}/`)) continue;
+    answers.delete(key);
+    answerBytes -= buf.length;
+  }
   for (const [key, buf] of [...sources]) {
     if (!key.includes(imageId)) continue;
     sources.delete(key);

@@ -7,6 +7,7 @@ import { testApp, sessionFor, type TestApp } from '../../../test/app';
 import { accession } from '../../../test/factories';
 import { db } from '../../db';
 import { Exhibition, ExhibitionObject, Image } from '../../models';
+import { forgetIiifMemory } from '../../services/iiif-image.service';
 
 /**
  * The IIIF Image API 3.0 and Presentation API 3.0 endpoints against the real app and PostgreSQL.
@@ -154,16 +155,22 @@ describe('IIIF image requests', () => {
     expect(await sharp(webp.body).metadata()).toMatchObject({ format: 'webp', width: 240, height: 160 });
   });
 
-  it('makes an answer once and serves it from storage after that', async () => {
+  it('makes an answer once and serves it from memory or storage after that', async () => {
     const path = `/api/iiif/images/${imageId}/512,512,512,512/256,/0/default.jpg`;
     const first = await binary(get(path, 'researcher'));
     const second = await binary(get(path, 'researcher'));
     expect(first.headers['x-iiif-cache']).toBe('miss');
-    expect(second.headers['x-iiif-cache']).toBe('hit');
+    expect(second.headers['x-iiif-cache']).toBe('memory');
     expect((second.body as Buffer).equals(first.body as Buffer)).toBe(true);
-    // The same pixels asked in percentages resolve to the same stored answer.
+    // With the memory emptied (as after a restart, or on another server), object storage answers.
+    forgetIiifMemory();
+    const third = await binary(get(path, 'researcher'));
+    expect(third.headers['x-iiif-cache']).toBe('hit');
+    expect((third.body as Buffer).equals(first.body as Buffer)).toBe(true);
+    // The same pixels asked in percentages resolve to the same answer.
     const pct = await binary(get(`/api/iiif/images/${imageId}/pct:21.3333,32,21.3333,32/256,/0/default.jpg`, 'researcher'));
-    expect(pct.headers['x-iiif-cache']).toBe('hit');
+    expect(pct.headers['x-iiif-cache']).toBe('memory');
+    expect((pct.body as Buffer).equals(first.body as Buffer)).toBe(true);
     const rows = await db().query<{ n: number }>('SELECT count(*)::int AS n FROM iiif_cache WHERE image_id = $1 AND key LIKE $2', {
       bind: [imageId, '%/original/512,512,512,512/256,256/0/default.jpg'], type: QueryTypes.SELECT,
     });
@@ -193,7 +200,21 @@ describe('IIIF access rules', () => {
     }
   });
 
-  it('401 without a session, 404 for an unknown or withdrawn image (viewer)', async () => {
+  it("a withdrawn image is not found for a viewer (staff still reach it), and leaves the print's manifest", async () => {
+    const up = await supertest(t.app).post(`/api/prints/${printId}/images`).set('Cookie', c.conservator!).set('Origin', t.origin)
+      .field('viewType', 'verso').field('capturedOn', '1990-01-01').attach('file', await patterned(320, 200), 'verso.png');
+    expect(up.status).toBe(201);
+    const w = await supertest(t.app).post(`/api/images/${up.body.data.id}/withdraw`).set('Cookie', c.conservator!).set('Origin', t.origin)
+      .send({ reason: 'Wrong print photographed', version: up.body.data.version });
+    expect(w.status, JSON.stringify(w.body)).toBe(200);
+    expect((await get(`/api/iiif/images/${up.body.data.id}/info.json`, 'viewer')).status).toBe(404);
+    expect((await get(`/api/iiif/images/${up.body.data.id}/full/max/0/default.jpg`, 'viewer')).status).toBe(404);
+    expect((await get(`/api/iiif/images/${up.body.data.id}/info.json`, 'researcher')).status).toBe(200);
+    const m = await get(`/api/iiif/prints/${printId}/manifest`, 'researcher');
+    expect(m.body.items.map((cv: { id: string }) => cv.id.split('/').at(-1))).not.toContain(up.body.data.id);
+  });
+
+  it('401 without a session, 404 for an unknown image or print', async () => {
     expect((await get(`/api/iiif/images/${imageId}/info.json`, null)).status).toBe(401);
     expect((await get(`/api/iiif/images/${imageId}/full/max/0/default.jpg`, null)).status).toBe(401);
     expect((await get('/api/iiif/images/6f2b1c44-2a8e-4f0e-9a55-0c1d2e3f4a5b/info.json', 'viewer')).status).toBe(404);
