@@ -39,6 +39,8 @@ export const ADMIN_AREAS: Area[] = [
     summary: 'Messages caught by the local mail sink (development only).' },
   { id: 'digests', label: 'Weekly digests', path: '/admin/digests', permission: 'digests.read', ready: true,
     summary: 'The weekly e-mail of prints due for inspection: each one sent or tried, with failures and their error.' },
+  { id: 'preservation', label: 'Preservation package', path: '/admin/preservation', permission: 'collection.export', ready: true,
+    summary: 'The whole collection out as a BagIt bag (records, CSVs, images, audit trail, data dictionary), and a bag brought into a new installation.' },
 ];
 
 export function areasFor(role: Role | null | undefined, areas: Area[] = AREAS): Area[] {

@@ -18,6 +18,7 @@ const AREA_PAGES: Record<string, PageLoader> = {
   audit: () => import('@/features/audit/routes/audit-page').then((m) => m.AuditPage),
   mail: () => import('@/features/dev-mail/routes/mail-page').then((m) => m.MailPage),
   digests: () => import('@/features/reminders/routes/digests-page').then((m) => m.DigestsPage),
+  preservation: () => import('@/features/preservation/routes/preservation-page').then((m) => m.PreservationPage),
   research: () => import('@/features/research/routes/research-page').then((m) => m.ResearchPage),
 };
 

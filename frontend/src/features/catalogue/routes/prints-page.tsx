@@ -11,6 +11,7 @@ import { useSearchQuery } from '@/lib/search-query';
 import { useDocumentTitle } from '@/lib/use-document-title';
 import { usePrints } from '@/lib/prints-api';
 import { printsCsvHref, stepsCsvHref } from '@/features/catalogue/api/exports';
+import { BagSearchButton } from '@/features/catalogue/components/bag-search-button';
 import { BulkPanel } from '@/features/catalogue/components/bulk-panel';
 import { CatalogueTable } from '@/features/catalogue/components/catalogue-table';
 import { ColumnChooser, useColumnVisibility } from '@/features/catalogue/components/column-chooser';
@@ -101,6 +102,7 @@ export function PrintsPage() {
             >
               Export steps CSV
             </a>
+            {can(me.role, 'selection.export') ? <BagSearchButton query={query} /> : null}
             {mayWrite ? (
               <Button variant="primary" onClick={() => navigate('/catalogue/prints/new')}>
                 New print
