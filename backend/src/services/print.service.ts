@@ -4,6 +4,7 @@ import type { Role } from '@toneledger/common/domain/roles';
 import { mayRead } from '@toneledger/common/fields/field';
 import { printField } from '@toneledger/common/fields/print';
 import type { PrintInput, PrintUpdate, ProcessStepInput, HistoryEvent } from '@toneledger/common/schemas/catalogue';
+import { deletionRefusal } from './print-deletion';
 import { db } from '../db';
 import { AuditEventModel, BathRecipe, EnclosureType, Location, Maker, Movement, Paper, Print, ProcessStep } from '../models';
 import { conflict, notFound, validationFailed } from '../errors';
@@ -202,18 +203,8 @@ export async function moveForLoan(
 export async function deletePrint(id: string, version: number, actor: Actor, requestId: string | null) {
   await db().transaction(async (t) => {
     const before = await lockForEdit(id, version, t, actor.role);
-    const [onLoans] = await db().query<{ n: number }>('SELECT count(*)::int AS n FROM loan_objects WHERE print_id = $1', {
-      bind: [id], type: QueryTypes.SELECT, transaction: t,
-    });
-    if (onLoans.n > 0) throw conflict('This print is on a loan, which keeps it on its checklist. Take it off the loan first (possible until the loan is in transit).');
-    const [kept] = await db().query<{ n: number }>(
-      `SELECT (SELECT count(*) FROM images WHERE print_id = $1) + (SELECT count(*) FROM condition_reports WHERE print_id = $1)
-            + (SELECT count(*) FROM measurement_sessions WHERE print_id = $1) AS n`,
-      { bind: [id], type: QueryTypes.SELECT, transaction: t },
-    );
-    if (Number(kept.n) > 0) {
-      throw conflict('This print has images, condition reports or measurements, which are kept for good. Set its status to deaccessioned instead of deleting it.');
-    }
+    const refusal = await deletionRefusal(id, t);
+    if (refusal) throw conflict(refusal);
     const movements = await Movement.findAll({ where: { printId: id }, include: [{ model: Location, as: 'from' }, { model: Location, as: 'to' }], transaction: t });
     // The whole record, steps and movements included, stays in the audit trail.
     await recordAudit(

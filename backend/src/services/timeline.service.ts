@@ -3,6 +3,7 @@ import { can, type Role } from '@toneledger/common/domain/roles';
 import type { TimelineEntry } from '@toneledger/common/schemas/images';
 import { VIEW_TYPE_LABELS } from '@toneledger/common/schemas/images';
 import { CONDITION_CONTEXT_LABELS, GRADE_LABELS } from '@toneledger/common/schemas/condition';
+import { excerpt } from '@toneledger/common/domain/excerpt';
 import { db } from '../db';
 import { Print } from '../models';
 import { notFound } from '../errors';
@@ -52,7 +53,7 @@ export async function printTimeline(printId: string, role: Role | null): Promise
       [printId],
     );
     for (const a of addenda) {
-      out.push({ at: iso(a.written_at), kind: 'addendum', title: 'Addendum to a condition report', detail: a.text.slice(0, 200), actorName: a.author_name, link: `/condition/reports/${a.report_id}` });
+      out.push({ at: iso(a.written_at), kind: 'addendum', title: 'Addendum to a condition report', detail: excerpt(a.text, 200), actorName: a.author_name, link: `/condition/reports/${a.report_id}` });
     }
   }
 

@@ -36,6 +36,11 @@ export const printsApi = {
     method: 'patch', path: '/api/prints/:id', summary: 'Edits a print; a stale version gets 409 with the current record', tags: ['prints'],
     access: 'catalogue.write', params: idParamsSchema, body: printUpdateSchema, response: { description: 'The edited print', schema: printEnvelope },
   }),
+  deletion: endpoint({
+    method: 'get', path: '/api/prints/:id/deletion', summary: 'Whether the print may be deleted now, and why not (asked before the command is offered)', tags: ['prints'],
+    access: 'catalogue.write', params: idParamsSchema,
+    response: { description: 'Whether it may be deleted', schema: dataEnvelope(z.object({ ok: z.boolean(), reason: z.string().nullable() })) },
+  }),
   remove: endpoint({
     method: 'delete', path: '/api/prints/:id', summary: 'Deletes a print; the whole record stays in the audit trail', tags: ['prints'],
     access: 'catalogue.write', params: idParamsSchema, query: versionQuerySchema, response: { description: 'Deleted', schema: dataEnvelope(deletedSchema) },

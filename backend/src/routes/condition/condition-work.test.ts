@@ -62,3 +62,41 @@ describe('GET /api/admin/fixity/alerts', () => {
     expect((await post('/api/admin/fixity/run', {}, 'conservator')).status).toBe(403);
   });
 });
+
+describe("the print's timeline", () => {
+  it('shows a long addendum cut at a word, with an ellipsis, never mid-word', async () => {
+    const print = await newPrint();
+    const draft = (await post(`/api/prints/${print.id}/condition-reports`, { examinedOn: '2025-05-02', context: 'routine', grade: 'fair' }, 'conservator')).body.data;
+    const signed = await post(`/api/condition-reports/${draft.id}/sign`, { version: draft.version }, 'conservator');
+    expect(signed.status).toBe(200);
+    // 197 characters of words, then a long word across the 200th character.
+    const text = `${'Cockling along the lower edge is more pronounced than recorded. '.repeat(3).slice(0, 197)} emulsionfracturing continues inward along the mount.`;
+    expect((await post(`/api/condition-reports/${draft.id}/addenda`, { text }, 'conservator')).status).toBe(201);
+    const timeline = await get(`/api/prints/${print.id}/timeline`, 'conservator');
+    const entry = timeline.body.data.find((e: { kind: string }) => e.kind === 'addendum');
+    expect(entry.detail.endsWith('…')).toBe(true);
+    const shown = entry.detail.slice(0, -1) as string;
+    expect(text.startsWith(shown)).toBe(true);
+    // What follows the shown text in the addendum is a space or punctuation: no word was cut.
+    expect(text.charAt(shown.length)).toMatch(/[\s.,;]/);
+    expect(shown).not.toContain('emulsionfr');
+  });
+});
+
+describe('GET /api/prints/:id/deletion', () => {
+  it('says a print with a condition report cannot be deleted, before anyone tries; a fresh print can', async () => {
+    const fresh = await newPrint();
+    expect((await get(`/api/prints/${fresh.id}/deletion`, 'registrar')).body.data).toEqual({ ok: true, reason: null });
+    const reported = await newPrint();
+    expect((await post(`/api/prints/${reported.id}/condition-reports`, { examinedOn: '2025-05-02', context: 'routine' }, 'conservator')).status).toBe(201);
+    const asked = await get(`/api/prints/${reported.id}/deletion`, 'registrar');
+    expect(asked.body.data.ok).toBe(false);
+    // The delete itself gives the same reason.
+    const version = (await get(`/api/prints/${reported.id}`, 'registrar')).body.data.version;
+    const refused = await supertest(t.app).delete(`/api/prints/${reported.id}?version=${version}`).set('Origin', t.origin).set('Cookie', c.registrar);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.message).toBe(asked.body.data.reason);
+    expect((await get(`/api/prints/${reported.id}/deletion`, 'viewer')).status).toBe(403);
+    expect((await get('/api/prints/00000000-0000-4000-8000-000000000000/deletion', 'registrar')).status).toBe(404);
+  });
+});

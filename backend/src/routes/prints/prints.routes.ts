@@ -1,3 +1,4 @@
+import { printDeletion } from '../../services/print-deletion';
 import { printsApi } from '@toneledger/common/api/prints';
 import { implement, type RouteDef } from '../../http/route';
 import {
@@ -27,6 +28,7 @@ export function printsRoutes(): RouteDef[] {
     create: async ({ body, actor, requestId }) => ({ data: await createPrint(body, actor, requestId) }),
     get: async ({ params, actor }) => ({ data: await getPrint(params.id, actor.role) }),
     update: async ({ params, body, actor, requestId }) => ({ data: await updatePrint(params.id, body, actor, requestId) }),
+    deletion: async ({ params }) => ({ data: await printDeletion(params.id) }),
     remove: async ({ params, query, actor, requestId }) => {
       await deletePrint(params.id, query.version, actor, requestId);
       return { data: { id: params.id } };

@@ -1,4 +1,4 @@
-import type { InputHTMLAttributes, ReactNode, SelectHTMLAttributes, TextareaHTMLAttributes } from 'react';
+import { useEffect, useState, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
 import { useController, useFormContext, useFormState, get } from 'react-hook-form';
 import { SelectField, TextField } from '@/components/ui/field';
 import { TextAreaField } from '@/components/ui/text-area-field';
@@ -54,9 +54,43 @@ export function NumberInput({ className = '', ...props }: TextInputProps) {
   return <TextInput inputMode="decimal" className={`num ${className}`} autoComplete="off" {...props} />;
 }
 
-/** A calendar date, as YYYY-MM-DD. */
-export function DateInput(props: TextInputProps) {
-  return <TextInput type="date" {...props} />;
+/** What a date control says when the browser holds a day the calendar does not have (typed 02/31/2024). */
+export const NOT_A_CALENDAR_DAY = 'That day does not exist (for example 31 February): check the day and the month.';
+const REAL_DATE = 'Enter a real date: day, month and year.';
+
+/**
+ * A calendar date. The browser shows it in the person's own format (mm/dd/yyyy, dd/mm/yyyy…) and
+ * sends YYYY-MM-DD; a day the calendar lacks reaches the form as empty, so the control notices the
+ * browser's "bad input" and says so in words that fit what the person sees, rather than asking for
+ * YYYY-MM-DD or "Required".
+ */
+export function DateInput({ name, id, label, hint, fieldClassName, liveError, transform: _transform, ...rest }: TextInputProps) {
+  const { onChange, props } = useBound(name, label, { id, hint, fieldClassName, liveError });
+  const { setError } = useFormContext();
+  const [badInput, setBadInput] = useState(false);
+  const own = badInput ? NOT_A_CALENDAR_DAY : props.error?.includes('YYYY-MM-DD') ? REAL_DATE : undefined;
+  // The schema's message is written for the API (YYYY-MM-DD, or "Required" for what reached it as
+  // empty); the form's state takes this control's words, so the field and the summary say the same.
+  useEffect(() => {
+    if (props.error && own && props.error !== own) setError(name, { type: 'date', message: own });
+  }, [props.error, own, name, setError]);
+  const error = own ?? props.error;
+  return (
+    <TextField
+      type="date"
+      {...rest}
+      {...props}
+      error={error}
+      onChange={(event) => {
+        setBadInput(event.target.validity?.badInput === true);
+        onChange(event.target.value);
+      }}
+      onBlur={(event) => {
+        setBadInput(event.target.validity?.badInput === true);
+        props.onBlur();
+      }}
+    />
+  );
 }
 
 export interface TextAreaInputProps extends Common, Native<TextareaHTMLAttributes<HTMLTextAreaElement>> {}

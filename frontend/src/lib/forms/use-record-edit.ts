@@ -18,6 +18,8 @@ export interface RecordEditOptions<R extends { version: number }, V extends Fiel
   comparable?: (values: V) => Record<string, unknown>;
   /** How a field's value reads to a person (names rather than ids); default: its text. */
   describe?: (key: string, values: V) => ReviewValue;
+  /** Called when the form moves onto the saved version after a stale-edit review (re-apply or discard), so the page around it can show that version too. */
+  onCurrent?: (record: R) => void;
 }
 
 export interface Conflict<R> {
@@ -95,6 +97,7 @@ export function useRecordEdit<R extends { version: number }, V extends FieldValu
       const both = staleRows({ fields, opened: start, saved, mine, comparable, describe }).filter((r) => r.theyChanged && r.youChanged);
       form.reset(rebase(fields, start, saved, mine, comparable));
       setBase(conflict.current);
+      options.onCurrent?.(conflict.current);
       setConflict(null);
       form.setFailure(null);
       form.setNotice(
@@ -107,6 +110,7 @@ export function useRecordEdit<R extends { version: number }, V extends FieldValu
       if (!conflict) return;
       form.reset(toValues(conflict.current));
       setBase(conflict.current);
+      options.onCurrent?.(conflict.current);
       setConflict(null);
       form.setFailure(null);
       form.setNotice(`The form now shows version ${conflict.current.version}. Your edits were discarded.`);

@@ -3,15 +3,25 @@ import { useNavigate } from 'react-router-dom';
 import type { Print } from '@toneledger/common/schemas/catalogue';
 import { Button } from '@/components/ui/button';
 import { ErrorNotice } from '@/components/ui/notice';
-import { useDeletePrint } from '@/features/catalogue/api/delete-print';
+import { useDeletePrint, usePrintDeletion } from '@/features/catalogue/api/delete-print';
 
 /** Deleting a print asks first, naming the accession number. */
 export function DeletePrintControl({ print }: { print: Print }) {
   const [asking, setAsking] = useState(false);
   const remove = useDeletePrint();
   const navigate = useNavigate();
+  const deletion = usePrintDeletion(print.id, print.version);
 
+  // The command is offered only when the print may be deleted; otherwise the reason is said instead.
+  if (deletion.data && !deletion.data.ok) {
+    return (
+      <p className="max-w-md text-xs text-ink-700" data-testid="delete-refused">
+        Cannot be deleted: {deletion.data.reason}
+      </p>
+    );
+  }
   if (!asking) {
+    if (!deletion.data) return null;
     return (
       <Button variant="quiet" onClick={() => setAsking(true)}>
         Delete…

@@ -1,9 +1,11 @@
+import { useQueryClient } from '@tanstack/react-query';
 import { Link } from 'react-router-dom';
 import { printInputSchema, printSchema, type Print } from '@toneledger/common/schemas/catalogue';
 import { SchemaForm } from '@/components/form/schema-form';
 import { Button, buttonClasses } from '@/components/ui/button';
 import type { FieldErrors } from '@/lib/forms/field-errors';
 import { useMe } from '@/lib/auth';
+import { printKeys } from '@/lib/prints-api';
 import { changesOnly } from '@/lib/forms/stale-edit';
 import { useRecordEdit } from '@/lib/forms/use-record-edit';
 import { NOTHING_TO_SAVE, useSchemaForm } from '@/lib/forms/use-schema-form';
@@ -72,7 +74,12 @@ export function PrintForm(props: PrintFormProps) {
     return describeCode(key as PrintField, value);
   }
 
-  const edit = useRecordEdit(form, { record: opened, recordSchema: printSchema, toValues: printToValues, fields: PRINT_FORM_FIELDS, describe });
+  const queryClient = useQueryClient();
+  const edit = useRecordEdit(form, {
+    record: opened, recordSchema: printSchema, toValues: printToValues, fields: PRINT_FORM_FIELDS, describe,
+    // The page's heading reads the print from the cache: after the review it names the version the form now edits.
+    onCurrent: (current) => queryClient.setQueryData(printKeys.detail(current.id), current),
+  });
 
   function onValid(body: Record<string, unknown>, values: PrintFormValues) {
     mutation.reset();

@@ -185,6 +185,9 @@ describe('print form: editing on top of someone else’s save', () => {
     fireEvent.click(within(notice).getByRole('button', { name: 'Re-apply my changes to the current version' }));
     expect(screen.queryByRole('alert', { name: 'Changed since you opened it' })).toBeNull();
     expect(screen.getByRole('status').textContent).toContain('Your edits are now on top of version 5. You and Bram Otley both changed: Title');
+    // The heading names the version the form now edits.
+    expect(await screen.findByText(/· version 5\./)).toBeTruthy();
+    expect(screen.queryByText(/· version 3\./)).toBeNull();
     expect((screen.getByLabelText('Title') as HTMLInputElement).value).toBe('Harbour wall, spring tide');
     expect((screen.getByLabelText('Status') as HTMLSelectElement).value).toBe('on_display');
     expect((screen.getByLabelText('Provenance') as HTMLTextAreaElement).value).toBe('Bought from the maker, 1987');
@@ -209,6 +212,7 @@ describe('print form: editing on top of someone else’s save', () => {
     expect(notice.textContent).toContain('Someone saved it');
     fireEvent.click(within(notice).getByRole('button', { name: /Discard my changes/ }));
     expect((screen.getByLabelText('Title') as HTMLInputElement).value).toBe('Harbour wall at low tide');
+    expect(await screen.findByText(/Harbour wall at low tide · version 5\./)).toBeTruthy();
   });
 });
 

@@ -20,7 +20,7 @@ const toned = makePrint({
   ],
 });
 
-function renderPrint(role: Role, print = toned) {
+function renderPrint(role: Role, print = toned, deletion: { ok: boolean; reason: string | null } = { ok: true, reason: null }) {
   const fetch = mockFetch({
     ...referenceHandlers(),
     [`GET /api/prints/${PRINT_ID}`]: () => json({ data: print }),
@@ -36,12 +36,25 @@ function renderPrint(role: Role, print = toned) {
         ],
       }),
     [`POST /api/prints/${PRINT_ID}/movements`]: () => json({ data: { ...print, version: print.version + 1, location: { id: LOCATION_ID, pathLabel: 'Store A › Cabinet 2' } } }),
+    [`GET /api/prints/${PRINT_ID}/deletion`]: () => json({ data: deletion }),
   });
   const view = renderRoutes([{ path: '/catalogue/prints/:id', element: <PrintPage /> }], { path: `/catalogue/prints/${PRINT_ID}`, me: makeMe(role) });
   return { ...fetch, ...view };
 }
 
 describe('PrintPage', () => {
+  it('offers Delete only when the print may be deleted, and says why not otherwise', async () => {
+    const reason = 'This print has images, condition reports or measurements, which are kept for good. Set its status to deaccessioned instead of deleting it.';
+    renderPrint('registrar', toned, { ok: false, reason });
+    expect(await screen.findByText(`Cannot be deleted: ${reason}`, {}, { timeout: 5000 })).toBeTruthy();
+    expect(screen.queryByRole('button', { name: 'Delete…' })).toBeNull();
+  });
+
+  it('offers Delete on a print that may be deleted', async () => {
+    renderPrint('registrar');
+    expect(await screen.findByRole('button', { name: 'Delete…' }, { timeout: 5000 })).toBeTruthy();
+  });
+
   it('shows the record, its warnings region and its process timeline', async () => {
     renderPrint('registrar');
     expect(await screen.findByRole('heading', { level: 1, name: '1987.14.3' })).toBeTruthy();

@@ -209,4 +209,20 @@ describe('new report', () => {
       examinedOn: '2024-03-12', context: 'incoming', grade: null, summary: null, recommendations: null, nextCheckOn: null, observations: [],
     });
   });
+
+  it('says a day the calendar lacks (typed 02/31/2024) does not exist, keeps the form, and sends nothing', async () => {
+    const { requests } = mockFetch({ ...conditionHandlers() });
+    renderRoutes([{ path: '/condition/prints/:id/reports/new', element: <ReportNewPage /> }], {
+      path: `/condition/prints/${PRINT_ID}/reports/new`, me: makeMe('conservator'),
+    });
+    const examined = (await screen.findByLabelText('Examined on')) as HTMLInputElement;
+    // What the browser does with 02/31/2024 in a date control: the value empties and validity.badInput is set.
+    Object.defineProperty(examined, 'validity', { configurable: true, get: () => ({ badInput: true, valid: false }) });
+    fireEvent.change(examined, { target: { value: '' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Save draft' }));
+    const message = await screen.findAllByText('That day does not exist (for example 31 February): check the day and the month.');
+    expect(message.length).toBeGreaterThan(0);
+    expect(screen.queryByText(/YYYY-MM-DD/)).toBeNull();
+    expect(requests.some((r) => r.method === 'POST')).toBe(false);
+  });
 });
