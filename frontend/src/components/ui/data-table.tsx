@@ -1,4 +1,4 @@
-import { Fragment, type ReactNode } from 'react';
+import { Fragment, useEffect, useRef, useState, type ReactNode } from 'react';
 import { flexRender, type Row, type Table } from '@tanstack/react-table';
 
 export interface DataTableProps<T> {
@@ -18,12 +18,36 @@ function sortLabel(direction: false | 'asc' | 'desc'): string {
   return '↕';
 }
 
+/** Whether a box is wider inside than on screen, watched as it and its content change size. */
+export function useScrollableRegion() {
+  const ref = useRef<HTMLDivElement>(null);
+  const [overflows, setOverflows] = useState(false);
+  useEffect(() => {
+    const el = ref.current;
+    if (!el) return;
+    const check = () => setOverflows(el.scrollWidth > el.clientWidth + 1);
+    check();
+    if (typeof ResizeObserver === 'undefined') return;
+    const observer = new ResizeObserver(check);
+    observer.observe(el);
+    if (el.firstElementChild) observer.observe(el.firstElementChild);
+    return () => observer.disconnect();
+  }, []);
+  return { ref, overflows };
+}
+
 /** The table shell every list uses: sortable headers, dense rows, optional expanded rows. */
 export function DataTable<T>({ table, caption, empty, busy = false, renderExpanded }: DataTableProps<T>) {
   const rows = table.getRowModel().rows;
   const columnCount = table.getVisibleLeafColumns().length;
+  const scroll = useScrollableRegion();
   return (
-    <div className="overflow-x-auto rounded border border-paper-300 bg-white">
+    <div
+      ref={scroll.ref}
+      className="overflow-x-auto rounded border border-paper-300 bg-white focus-visible:outline-2 focus-visible:outline-iron-700"
+      // Wider than the screen: the keyboard can reach and scroll it (WCAG 2.1, 2.1.1), and it is named.
+      {...(scroll.overflows ? { tabIndex: 0, role: 'region', 'aria-label': `${caption} (scrolls sideways)` } : {})}
+    >
       <table className="w-full border-collapse text-left text-sm" aria-busy={busy || undefined}>
         <caption className="sr-only">{caption}</caption>
         <thead className="bg-paper-100">
