@@ -188,6 +188,21 @@ function conditionRoute(area: Area): RouteObject {
           what: 'Condition reports',
         }),
       },
+      {
+        path: 'treatments',
+        lazy: page(() => import('@/features/treatments/routes/treatments-page').then((m) => m.TreatmentsPage), { permission: 'condition.read', what: 'Treatments' }),
+      },
+      {
+        path: 'treatments/:id',
+        lazy: page(() => import('@/features/treatments/routes/treatment-page').then((m) => m.TreatmentPage), { permission: 'condition.read', what: 'Treatments' }),
+      },
+      {
+        path: 'prints/:id/treatments/new',
+        lazy: page(() => import('@/features/treatments/routes/treatment-new-page').then((m) => m.TreatmentNewPage), {
+          permission: 'treatments.write',
+          what: 'Proposing treatments',
+        }),
+      },
       { path: '*', Component: NotFoundPage },
     ],
   };

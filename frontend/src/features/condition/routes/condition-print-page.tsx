@@ -27,7 +27,11 @@ export function ConditionPrintPage() {
       </nav>
       <div className="mb-5 flex flex-wrap items-end justify-between gap-3 border-b border-paper-300 pb-4">
         <PrintIdentityLine print={p} />
-        <Link to={`/catalogue/prints/${p.id}`}>Catalogue record</Link>
+        <div className="flex flex-wrap gap-4">
+          {can(me.role, 'condition.read') ? <Link to={`/condition/treatments?print=${p.id}`}>Treatments of this print</Link> : null}
+          {can(me.role, 'treatments.write') && p.status !== 'deaccessioned' ? <Link to={`/condition/prints/${p.id}/treatments/new`}>Propose a treatment</Link> : null}
+          <Link to={`/catalogue/prints/${p.id}`}>Catalogue record</Link>
+        </div>
       </div>
       <div className="flex flex-col gap-5">
         {can(me.role, 'condition.read') ? <ReportsPanel printId={p.id} role={me.role} /> : null}
