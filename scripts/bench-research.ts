@@ -4,7 +4,7 @@
  * grouping and statistics), beside the bare statement (`buildAggregateSql`'s text alone, with the
  * service's session settings: `withWorkMem`). First fills
  * `print_outcomes` for prints without a row (as the workers do at start), batch by batch, and says
- * how long that took. Medians of 5 runs after one warm-up. Run alone with `npm run bench -- --only research`.
+ * how long that took. Medians of 5 runs (`--runs N`) after one warm-up. Run alone with `npm run bench -- --only research`.
  *
  * Targets: a grouped fading-rate query and a two-group survival curve with its log-rank test under
  * 1 s each, a five-factor Cox model under 3 s.
@@ -18,6 +18,8 @@ const log = (m: string) => console.log(`[bench:research] ${m}`);
 const pgPort = DEV_PG_PORT;
 /** `--explain`: prints the plan of each scenario's statement (EXPLAIN ANALYZE) instead of timing it. */
 const EXPLAIN = process.argv.includes('--explain');
+/** `--runs N`: timed runs per scenario after the warm-up (default 5; fewer when the machine is busy). */
+const RUNS = process.argv.includes('--runs') ? Math.max(1, Number(process.argv[process.argv.indexOf('--runs') + 1]) || 5) : 5;
 const ONLY = process.argv.includes('--only') ? process.argv[process.argv.indexOf('--only') + 1] ?? '' : '';
 
 
@@ -74,7 +76,7 @@ try {
     const api: number[] = [];
     const bare: number[] = [];
     let last: Awaited<ReturnType<typeof runCohort>> | null = null;
-    for (let i = 0; i < 6; i += 1) {
+    for (let i = 0; i <= RUNS; i += 1) {
       const a = performance.now();
       last = await runCohort(q);
       const b = performance.now();

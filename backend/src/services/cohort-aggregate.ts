@@ -77,8 +77,8 @@ export function buildAggregateSql(q: CohortQuery, threshold: number, options: Ag
            row_number() OVER (PARTITION BY k0, k1 ORDER BY ${col}, id) AS rn, count(*) OVER (PARTITION BY k0, k1) AS n
       FROM k WHERE ${col} IS NOT NULL`;
   const keep = options.pointsCap === null ? 'true' : pickEvenly('rn', 'n', cap);
-  // One row per print in c unless it is grouped by toner class (a print toned twice is in both groups).
-  const perPrint = q.groupBy.includes('tonerClass') ? 'count(DISTINCT id)' : 'count(*)';
+  // Prints, not rows: grouped by toner class, a print toned twice has a row in each group (\`first\` marks one of them).
+  const perPrint = q.groupBy.includes('tonerClass') ? 'count(*) FILTER (WHERE first)' : 'count(*)';
   const cox = q.coxFactors.length
     ? `(SELECT json_agg(json_build_array(x, time, event, n)) FROM (SELECT x, time, event, ${perPrint}::int AS n FROM c WHERE time IS NOT NULL GROUP BY x, time, event) x)`
     : 'NULL::json';

@@ -148,7 +148,8 @@ export function cohortBase(q: CohortQuery, threshold: number, options: { narrow?
 
   const joins = (['paper', 'enclosure', 'outcomes', 'steps'] as Need[]).filter((n) => needs.has(n)).map((n) => JOINS[n]).join('\n');
   // Narrow: without the print's accession number and title (the figures read them for a few prints only).
-  const inner = `SELECT p.id, ${options.narrow ? '' : 'p.accession_number, p.accession_sort, p.title,'}
+  // Narrow: `first` marks one row per print (a print toned twice has a row per toner class), so counting prints needs no DISTINCT.
+  const inner = `SELECT p.id, ${options.narrow ? `${tonerGroup ? 'tc.ord = 1' : 'true'} AS first,` : 'p.accession_number, p.accession_sort, p.title,'}
                (${groupExpr(q.groupBy[0])})::text AS g0, (${groupExpr(q.groupBy[1])})::text AS g1, ${cox} AS x,
                o.de_per_year, o.density_loss_per_year,
                ${origin} AS origin_on, coalesce(ev.on_, ${censorOn}) AS end_on, ev.on_ AS event_on,
@@ -156,10 +157,10 @@ export function cohortBase(q: CohortQuery, threshold: number, options: { narrow?
                o.last_report_on IS NOT NULL AS has_report, extract(epoch FROM o.computed_at)::float8 AS computed_at
           FROM prints p
           ${joins}
-          ${tonerGroup ? "CROSS JOIN LATERAL unnest(CASE WHEN cardinality(p.toner_classes) = 0 THEN ARRAY[NULL::text] ELSE p.toner_classes END) AS tc(v)" : ''}
+          ${tonerGroup ? "CROSS JOIN LATERAL unnest(CASE WHEN cardinality(p.toner_classes) = 0 THEN ARRAY[NULL::text] ELSE p.toner_classes END) WITH ORDINALITY AS tc(v, ord)" : ''}
           LEFT JOIN LATERAL (SELECT ${eventOn} AS on_ OFFSET 0) ev ON true
          ${where.length ? `WHERE ${where.join('\n           AND ')}` : ''}`;
-  const columns = `id, ${options.narrow ? '' : 'accession_number, accession_sort, title,'} g0, g1, x, de_per_year, density_loss_per_year,
+  const columns = `id, ${options.narrow ? 'first,' : 'accession_number, accession_sort, title,'} g0, g1, x, de_per_year, density_loss_per_year,
        CASE WHEN origin_on IS NOT NULL AND end_on > origin_on THEN ((end_on - origin_on) / 365.25)::float8 END AS time,
        CASE WHEN origin_on IS NOT NULL AND end_on > origin_on THEN event_on IS NOT NULL END AS event,
        terms, has_report, computed_at`;
