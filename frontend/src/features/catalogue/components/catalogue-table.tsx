@@ -8,7 +8,8 @@ import { urlOf } from '@/lib/api-client';
 import { sortingToSort, sortToSorting, useServerTable } from '@/lib/server-table';
 import { printColumns } from '@/features/catalogue/components/prints-table';
 import { clickRow, isSelected, togglePage, type ListSelection } from '@/features/catalogue/utils/selection';
-import { lastLevels, shortTitle } from '@/features/catalogue/utils/compact';
+import { bareLabel, COMPACT_PROCESS, lastLevels, shortTitle } from '@/features/catalogue/utils/compact';
+import { PROCESS, TONER_CLASS } from '@toneledger/common/schemas/vocab';
 
 const SORTS = printSortSchema.options as readonly string[];
 const column = createColumnHelper<PrintListItem>();
@@ -32,6 +33,16 @@ function Thumb({ row, compact }: { row: PrintListItem; compact: boolean }) {
   const size = compact ? 'h-7 w-7' : 'h-12 w-12';
   if (!row.thumbImageId) return <span className={`block ${size} rounded-sm bg-paper-100`} aria-hidden="true" />;
   return <img src={urlOf(imagesApi.file, { params: { id: row.thumbImageId, variant: 'thumb' } })} alt="" loading="lazy" className={`block ${size} bg-paper-100 object-contain`} />;
+}
+
+/** One line of a compact cell: the text shortened (or given shorter) with the whole of it on hover. */
+function Short({ full, shown, max, className = '' }: { full: string; shown?: string; max: number; className?: string }) {
+  const short = shortTitle(shown ?? full, max);
+  return (
+    <span className={`whitespace-nowrap ${className}`} title={short === full ? undefined : full}>
+      {short}
+    </span>
+  );
 }
 
 /**
@@ -89,20 +100,33 @@ export function CatalogueTable(props: CatalogueTableProps) {
     const compactOverrides: ColumnDef<PrintListItem, unknown>[] = [
       column.accessor('title', {
         id: 'title', header: labelOf('title'), enableHiding: false,
+        cell: (info) => <Short full={info.getValue()} max={28} className="text-ink-900" />,
+      }) as ColumnDef<PrintListItem, unknown>,
+      column.accessor('makerName', { id: 'maker', header: labelOf('maker'), cell: (info) => (info.getValue() ? <Short full={info.getValue()!} max={16} /> : none) }) as ColumnDef<PrintListItem, unknown>,
+      column.accessor('process', {
+        id: 'process', header: labelOf('process'), enableSorting: false,
+        cell: (info) => <Short full={PROCESS.labels[info.getValue()]} shown={COMPACT_PROCESS[info.getValue()]} max={20} />,
+      }) as ColumnDef<PrintListItem, unknown>,
+      column.accessor('tonerClasses', {
+        id: 'tonerClasses', header: labelOf('tonerClasses'), enableSorting: false,
         cell: (info) => {
-          const full = info.getValue();
-          const short = shortTitle(full);
-          return <span className="whitespace-nowrap text-ink-900" title={short === full ? undefined : full}>{short}</span>;
+          const v = info.getValue();
+          if (!v.length) return none;
+          return <Short full={v.map((t) => TONER_CLASS.labels[t]).join(', ')} shown={v.map((t) => bareLabel(TONER_CLASS.labels[t])).join(', ')} max={18} />;
         },
       }) as ColumnDef<PrintListItem, unknown>,
+      column.accessor('paperLabel', { id: 'paper', header: labelOf('paper'), enableSorting: false, cell: (info) => (info.getValue() ? <Short full={info.getValue()!} max={18} /> : none) }) as ColumnDef<PrintListItem, unknown>,
+      column.accessor('enclosureName', { id: 'enclosure', header: labelOf('enclosure'), enableSorting: false, cell: (info) => (info.getValue() ? <Short full={info.getValue()!} max={16} /> : none) }) as ColumnDef<PrintListItem, unknown>,
       column.accessor((row) => row.locationLabel ?? null, {
         id: 'location', header: labelOf('location'), enableSorting: false,
         cell: (info) => {
           const full = info.getValue();
-          return full ? <span className="whitespace-nowrap" title={full}>{lastLevels(full)}</span> : none;
+          return full ? <span className="whitespace-nowrap" title={full}>{shortTitle(lastLevels(full), 22)}</span> : none;
         },
       }) as ColumnDef<PrintListItem, unknown>,
     ];
+    const accession = printColumns[0] as ColumnDef<PrintListItem, unknown>;
+    compactOverrides.push({ ...accession, header: () => <span title={labelOf('accessionNumber')}>Accession no.</span> } as ColumnDef<PrintListItem, unknown>);
     const base = (printColumns as ColumnDef<PrintListItem, unknown>[]).map((c) => (compact ? compactOverrides.find((o) => o.id === c.id) ?? c : c));
     return [select, thumb, ...base];
   }, [compact, selection, pageIds, allOnPage, onSelectionChange]);
@@ -136,7 +160,7 @@ export function CatalogueTable(props: CatalogueTableProps) {
     }
   }
 
-  const cellPad = compact ? 'px-2 py-1 whitespace-nowrap align-middle' : 'px-3 py-2 align-top';
+  const cellPad = compact ? 'px-1.5 py-1 whitespace-nowrap align-middle' : 'px-3 py-2 align-top';
   return (
     <div className="overflow-x-auto rounded border border-paper-300 bg-white" data-testid="catalogue-table">
       <table className={`w-full border-collapse text-left ${compact ? 'text-xs' : 'text-sm'}`} aria-busy={busy || undefined} data-compact={compact || undefined}>
@@ -153,10 +177,10 @@ export function CatalogueTable(props: CatalogueTableProps) {
                     key={header.id}
                     scope="col"
                     aria-sort={canSort ? (direction === 'asc' ? 'ascending' : direction === 'desc' ? 'descending' : 'none') : undefined}
-                    className={`border-b border-paper-300 ${compact ? 'px-2 py-1' : 'px-3 py-2'} text-xs font-semibold tracking-wide whitespace-nowrap text-ink-700 uppercase`}
+                    className={`border-b border-paper-300 text-xs font-semibold whitespace-nowrap text-ink-700 ${compact ? 'px-1.5 py-1' : 'px-3 py-2 tracking-wide uppercase'}`}
                   >
                     {canSort ? (
-                      <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 uppercase hover:text-iron-800">
+                      <button type="button" onClick={header.column.getToggleSortingHandler()} className={`inline-flex items-center gap-1 hover:text-iron-800 ${compact ? '' : 'uppercase'}`}>
                         {content}
                         <span aria-hidden="true" className={direction ? 'text-iron-700' : 'text-paper-400'}>
                           {direction === 'asc' ? '▲' : direction === 'desc' ? '▼' : '↕'}

@@ -16,7 +16,7 @@ export function searchHref(query: SavedSearch['query']): string {
   const params = new URLSearchParams();
   for (const [k, v] of Object.entries(query)) if (v !== undefined && v !== '' && !(k === 'holding' && v === 'collection') && !(k === 'sort' && v === 'accessionNumber')) params.set(k, String(v));
   const text = params.toString();
-  return `/catalogue/prints${text ? `?${text}` : ''}`;
+  return `/catalogue${text ? `?${text}` : ''}`;
 }
 
 function SaveForm({ query, onDone }: { query: PrintListQuery; onDone: () => void }) {

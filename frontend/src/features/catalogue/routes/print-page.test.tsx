@@ -20,6 +20,21 @@ const toned = makePrint({
   ],
 });
 
+const image = (id: string, viewType: string, capturedOn: string | null, withdrawn = false) => ({
+  id, printId: PRINT_ID, viewType, capturedOn, notes: null, fileName: `${id}.tif`, contentType: 'image/tiff', sizeBytes: 1000, width: 40, height: 30, sha256: 'a'.repeat(64),
+  exif: { capturedAt: null, make: null, model: null, lens: null, exposureTime: null, fNumber: null, iso: null, focalLength: null },
+  derivatives: 'ready', urls: { thumb: `/api/images/${id}/file/thumb`, screen: `/api/images/${id}/file/screen`, original: null },
+  lastFixity: null, uploadedAt: '2024-01-02T10:00:00.000Z', uploadedBy: 'Ada Marsh',
+  withdrawn: withdrawn ? { at: '2024-02-01T00:00:00.000Z', by: 'Ada Marsh', reason: 'Blurred', purgeAfter: '2031-02-01T00:00:00.000Z' } : null, version: 1,
+});
+// The 2019 recto is the latest usable one: the verso is later, and the 2022 recto was withdrawn.
+const RECTOS = [
+  image('a1111111-1111-4111-8111-111111111111', 'recto', '1995-05-02'),
+  image('a2222222-2222-4222-8222-222222222222', 'recto', '2019-03-10'),
+  image('a3333333-3333-4333-8333-333333333333', 'verso', '2023-01-01'),
+  image('a4444444-4444-4444-8444-444444444444', 'recto', '2022-06-01', true),
+];
+
 function renderPrint(role: Role, print = toned, deletion: { ok: boolean; reason: string | null } = { ok: true, reason: null }) {
   const fetch = mockFetch({
     ...referenceHandlers(),
@@ -37,6 +52,7 @@ function renderPrint(role: Role, print = toned, deletion: { ok: boolean; reason:
       }),
     [`POST /api/prints/${PRINT_ID}/movements`]: () => json({ data: { ...print, version: print.version + 1, location: { id: LOCATION_ID, pathLabel: 'Store A › Cabinet 2' } } }),
     [`GET /api/prints/${PRINT_ID}/deletion`]: () => json({ data: deletion }),
+    [`GET /api/prints/${PRINT_ID}/images`]: () => json({ data: RECTOS }),
   });
   const view = renderRoutes([{ path: '/catalogue/prints/:id', element: <PrintPage /> }], { path: `/catalogue/prints/${PRINT_ID}`, me: makeMe(role) });
   return { ...fetch, ...view };
@@ -83,7 +99,8 @@ describe('PrintPage', () => {
     expect(screen.queryByText('Staff notes')).toBeNull();
     expect(screen.queryByRole('link', { name: 'Edit' })).toBeNull();
     // The timeline is open to every reader (the server leaves out what a viewer may not see); nothing restricted is asked for.
-    expect(requests.map((r) => r.path)).toEqual([`/api/prints/${PRINT_ID}`, `/api/prints/${PRINT_ID}/timeline`]);
+    // Images are the viewer's to read (images.read): the latest recto is asked for beside the record.
+    expect(requests.map((r) => r.path).sort()).toEqual([`/api/prints/${PRINT_ID}`, `/api/prints/${PRINT_ID}/images`, `/api/prints/${PRINT_ID}/timeline`].sort());
   });
 
   it('shows the timeline newest first, linking condition entries to their report', async () => {
@@ -145,5 +162,20 @@ describe('PrintPage', () => {
     fireEvent.click(screen.getByRole('button', { name: 'Move' }));
     expect(await screen.findByText('Moved to Store A › Cabinet 2.')).toBeTruthy();
     expect(requests.find((r) => r.method === 'POST')?.body).toEqual({ toLocationId: LOCATION_ID, reason: 'Rehoused', version: 3 });
+  });
+
+  it('shows the latest recto, and offers a conservator to rehouse a print with an enclosure warning (a registrar too; never a viewer)', async () => {
+    renderPrint('conservator');
+    const figure = await screen.findByTestId('latest-recto');
+    expect(figure.querySelector('img')!.getAttribute('src')).toBe('/api/images/a2222222-2222-4222-8222-222222222222/file/screen');
+    expect(figure.textContent).toContain('captured 2019-03-10');
+    fireEvent.click(screen.getByRole('button', { name: 'Rehouse this print…' }));
+    expect(await screen.findByRole('dialog', { name: 'Rehouse in another enclosure' })).toBeTruthy();
+  });
+
+  it('offers no rehouse to a viewer', async () => {
+    renderPrint('viewer', { ...toned, location: undefined, staffNotes: undefined, valuationAmount: undefined, valuationCurrency: undefined });
+    await screen.findByTestId('latest-recto');
+    expect(screen.queryByRole('button', { name: 'Rehouse this print…' })).toBeNull();
   });
 });

@@ -1,9 +1,9 @@
-import { useId, type ComponentType, type ReactNode } from 'react';
+import { useId, useState, type ComponentType, type ReactNode } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { can } from '@toneledger/common/domain/roles';
 import type { Print } from '@toneledger/common/schemas/catalogue';
 import type { TimelineEntry } from '@toneledger/common/schemas/images';
-import { buttonClasses } from '@/components/ui/button';
+import { Button, buttonClasses } from '@/components/ui/button';
 import { ErrorNotice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/loading';
 import { isApiError } from '@/lib/api-client';
@@ -11,6 +11,7 @@ import { useMe } from '@/lib/auth';
 import { formatDateTime } from '@/lib/format';
 import { useDocumentTitle } from '@/lib/use-document-title';
 import { usePrint, useTimeline } from '@/lib/prints-api';
+import { useImages } from '@/lib/images-api';
 import { printJsonHref } from '@/features/catalogue/api/exports';
 import { ChemistryCaution } from '@/features/catalogue/components/chemistry-caution';
 import { DeletePrintControl } from '@/features/catalogue/components/delete-print-control';
@@ -19,6 +20,7 @@ import { LocationPanel } from '@/features/catalogue/components/location-panel';
 import { PrintIdentity } from '@/features/catalogue/components/print-identity';
 import { ProcessTimeline } from '@/features/catalogue/components/process-timeline';
 import { WarningsPanel } from '@/features/catalogue/components/warnings-panel';
+import { BulkPanel } from '@/features/catalogue/components/bulk-panel';
 
 function Panel({ title, children }: { title: string; children: ReactNode }) {
   const id = useId();
@@ -91,6 +93,48 @@ function formatMoney(amount: number, currency: string | null | undefined): strin
  */
 export type PrintPagePanel = ComponentType<{ printId: string }>;
 
+/** The print's latest recto image (captured last, then uploaded last), as the list's thumbnail shows it. */
+function LatestRecto({ printId, accessionNumber }: { printId: string; accessionNumber: string }) {
+  const me = useMe();
+  const images = useImages(printId, {}, can(me.role, 'images.read'));
+  const recto = [...(images.data ?? [])]
+    .filter((i) => i.viewType === 'recto' && !i.withdrawn && (i.urls.screen || i.urls.thumb))
+    .sort((a, b) => (b.capturedOn ?? '').localeCompare(a.capturedOn ?? '') || b.uploadedAt.localeCompare(a.uploadedAt))[0];
+  if (!recto) return null;
+  return (
+    <figure className="rounded border border-paper-300 bg-white p-2" data-testid="latest-recto">
+      <img src={recto.urls.screen ?? recto.urls.thumb!} alt={`Recto of ${accessionNumber}`} className="mx-auto max-h-80 w-auto object-contain" />
+      <figcaption className="mt-1 text-xs text-ink-700">Recto{recto.capturedOn ? `, captured ${recto.capturedOn}` : ''}</figcaption>
+    </figure>
+  );
+}
+
+const ENCLOSURE_CODES = ['prussian_blue_in_buffered_enclosure', 'enclosure_failed_pat', 'buffering_unknown_for_prussian_blue', 'enclosure_without_pat'];
+
+/** An enclosure warning offers rehousing to whoever may rehouse (conservators too): the rehouse action, with its preview, for this print. */
+function RehouseOffer({ print }: { print: Print }) {
+  const me = useMe();
+  const [open, setOpen] = useState(false);
+  if (!can(me.role, 'prints.move') || !print.warnings.some((w) => ENCLOSURE_CODES.includes(w.code))) return null;
+  if (!open) {
+    return (
+      <div>
+        <Button onClick={() => setOpen(true)}>Rehouse this print…</Button>
+      </div>
+    );
+  }
+  return (
+    <BulkPanel
+      action="rehouse"
+      selection={{ kind: 'ids', ids: [print.id] }}
+      selectionLabel={`print ${print.accessionNumber}`}
+      onClose={() => setOpen(false)}
+      onDone={() => {}}
+      onRehouse={() => {}}
+    />
+  );
+}
+
 function PrintView({ print, panels }: { print: Print; panels: readonly PrintPagePanel[] }) {
   const me = useMe();
   const mayWrite = can(me.role, 'catalogue.write');
@@ -127,6 +171,9 @@ function PrintView({ print, panels }: { print: Print; panels: readonly PrintPage
               Condition and images
             </Link>
           ) : null}
+          <Link to={`/catalogue/prints/${print.id}/sheet`} className={buttonClasses('secondary', 'md', 'no-underline')}>
+            Record sheet
+          </Link>
           <a href={printJsonHref(print.id)} download className={buttonClasses('secondary', 'md', 'no-underline')}>
             Download JSON
           </a>
@@ -171,8 +218,10 @@ function PrintView({ print, panels }: { print: Print; panels: readonly PrintPage
           ))}
         </div>
         <div className="flex min-w-0 flex-col gap-5">
+          <LatestRecto printId={print.id} accessionNumber={print.accessionNumber} />
           <WarningsPanel warnings={print.warnings} />
-          {restricted ? <LocationPanel print={print} mayMove={mayWrite} /> : null}
+          <RehouseOffer print={print} />
+          {restricted ? <LocationPanel print={print} mayMove={can(me.role, 'prints.move')} /> : null}
           <TimelinePanel printId={print.id} />
           {restricted ? <HistoryList printId={print.id} accessionNumber={print.accessionNumber} /> : null}
         </div>

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { BULK_IDS_MAX } from '@toneledger/common/schemas/bulk';
 import { printListQuerySchema } from '@toneledger/common/schemas/catalogue';
 import { clickRow, EMPTY_SELECTION, selectAllMatching, toPrintSelection, togglePage } from '@/features/catalogue/utils/selection';
-import { lastLevels, shortTitle } from '@/features/catalogue/utils/compact';
+import { bareLabel, lastLevels, shortTitle } from '@/features/catalogue/utils/compact';
 
 const page = ['a', 'b', 'c', 'd', 'e', 'f'];
 
@@ -62,9 +62,10 @@ describe('compact words', () => {
   it('shortens a long title at a word, with an ellipsis', () => {
     const t = 'Harbour wall at low tide, with the ferry slipway and the breakwater beyond';
     const s = shortTitle(t);
-    expect(s.length).toBeLessThanOrEqual(44);
+    expect(s.length).toBeLessThanOrEqual(34);
     expect(s.endsWith('…')).toBe(true);
     expect(t.startsWith(s.slice(0, -1))).toBe(true);
     expect(shortTitle('Short title')).toBe('Short title');
+    expect(bareLabel('Iron blue (Prussian blue)')).toBe('Iron blue');
   });
 });
