@@ -55,6 +55,17 @@ export async function printTimeline(printId: string, role: Role | null): Promise
     for (const a of addenda) {
       out.push({ at: iso(a.written_at), kind: 'addendum', title: 'Addendum to a condition report', detail: excerpt(a.text, 200), actorName: a.author_name, link: `/condition/reports/${a.report_id}` });
     }
+    // Treatments: the proposal, and the work once done (as the conservator dated it).
+    const treatments = await q<{ id: string; status: string; proposed_on: string; completed_on: string | null; chosen_method: string; conservator_name: string }>(
+      `SELECT id, status, to_char(proposed_on, 'YYYY-MM-DD') AS proposed_on, to_char(completed_on, 'YYYY-MM-DD') AS completed_on, chosen_method, conservator_name FROM treatments WHERE print_id = $1`,
+      [printId],
+    );
+    for (const tr of treatments) {
+      out.push({ at: dayStart(tr.proposed_on), kind: 'condition', title: 'Treatment proposed', detail: excerpt(tr.chosen_method, 200), actorName: tr.conservator_name, link: `/condition/treatments/${tr.id}` });
+      if (tr.completed_on && (tr.status === 'done' || tr.status === 'signed')) {
+        out.push({ at: dayStart(tr.completed_on), kind: 'condition', title: tr.status === 'signed' ? 'Treatment done (signed record)' : 'Treatment done', detail: null, actorName: tr.conservator_name, link: `/condition/treatments/${tr.id}` });
+      }
+    }
   }
 
   if (can(role, 'images.read')) {
