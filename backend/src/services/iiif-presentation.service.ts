@@ -3,13 +3,13 @@ import type { ObjectStore } from '@toneledger/storage/object-store';
 import type { Role } from '@toneledger/common/domain/roles';
 import { PROCESS } from '@toneledger/common/schemas/vocab';
 import { VIEW_TYPE_LABELS } from '@toneledger/common/schemas/images';
-import type { PrintListQuery } from '@toneledger/common/schemas/catalogue';
+import { printListQuerySchema, type PrintListQuery } from '@toneledger/common/schemas/catalogue';
 import {
   IIIF_COLLECTION_LIMIT, IIIF_PRESENTATION_CONTEXT, type IiifCollection, type IiifManifest, type LanguageMap,
 } from '@toneledger/common/schemas/iiif';
 import { db } from '../db';
 import { Exhibition } from '../models';
-import { notFound } from '../errors';
+import { conflict, notFound } from '../errors';
 import { getPrint } from './print.service';
 import { listImages } from './image.service';
 import { iiifSourceFor } from './iiif-image.service';
@@ -147,7 +147,13 @@ export async function exhibitionCollection(origin: string, exhibitionId: string)
 }
 
 /** A catalogue search (the list's own query) as a collection: its prints in the list's order, at most IIIF_COLLECTION_LIMIT. */
-export async function searchCollection(origin: string, query: PrintListQuery, queryString: string, role: Role | null): Promise<IiifCollection> {
+export async function searchCollection(
+  origin: string,
+  query: PrintListQuery,
+  queryString: string,
+  role: Role | null,
+  named?: { id: string; label: string },
+): Promise<IiifCollection> {
   const pageSize = 500;
   const refs: ManifestRef[] = [];
   let total = 0;
@@ -170,12 +176,24 @@ export async function searchCollection(origin: string, query: PrintListQuery, qu
   const more = total > shown.length;
   return {
     '@context': IIIF_PRESENTATION_CONTEXT,
-    id: `${origin}/api/iiif/catalogue/collection${queryString ? `?${queryString}` : ''}`,
+    id: named?.id ?? `${origin}/api/iiif/catalogue/collection${queryString ? `?${queryString}` : ''}`,
     type: 'Collection',
-    label: en(query.q ? `Catalogue search: ${query.q}` : 'Catalogue search'),
+    label: en(named?.label ?? (query.q ? `Catalogue search: ${query.q}` : 'Catalogue search')),
     summary: en(more
       ? `The first ${shown.length} of ${estimated ? 'about ' : ''}${total} prints found, in the list's order.`
       : `${shown.length} print${shown.length === 1 ? '' : 's'} found, in the list's order.`),
     items: collectionItems(origin, shown),
   };
+}
+
+/** A saved search as a collection: its owner's, or anyone's when shared (otherwise not found, as the saved search itself). */
+export async function savedSearchCollection(origin: string, id: string, actor: { id: string; role: Role }): Promise<IiifCollection> {
+  const [row] = await db().query<{ name: string; query: unknown; shared: boolean; owner_id: string }>(
+    'SELECT name, query, shared, owner_id FROM saved_searches WHERE id = $1',
+    { bind: [id], type: QueryTypes.SELECT },
+  );
+  if (!row || (!row.shared && row.owner_id !== actor.id)) throw notFound('The saved search');
+  const query = printListQuerySchema.safeParse(row.query ?? {});
+  if (!query.success) throw conflict('The saved search holds a query this version cannot read; save it again from the catalogue.');
+  return searchCollection(origin, query.data, '', actor.role, { id: `${origin}/api/iiif/saved-searches/${id}/collection`, label: row.name });
 }

@@ -32,6 +32,11 @@ export const iiifApi = {
     method: 'get', path: '/api/iiif/exhibitions/:id/collection', summary: "IIIF Presentation API 3.0 collection of an exhibition's prints", tags: ['iiif'],
     access: 'loans.read', params: idParamsSchema, response: { description: 'Collection', schema: iiifCollectionSchema },
   }),
+  savedSearchCollection: endpoint({
+    method: 'get', path: '/api/iiif/saved-searches/:id/collection',
+    summary: 'IIIF Presentation API 3.0 collection of a saved catalogue search (its owner, or anyone when shared; at most 1000 prints)', tags: ['iiif'],
+    access: 'catalogue.read', params: idParamsSchema, response: { description: 'Collection', schema: iiifCollectionSchema },
+  }),
   searchCollection: endpoint({
     method: 'get', path: '/api/iiif/catalogue/collection',
     summary: 'IIIF Presentation API 3.0 collection of a catalogue search (the list query; page ignored, at most 1000 prints)', tags: ['iiif'],

@@ -2,7 +2,9 @@ import type { Request } from 'express';
 import { iiifApi } from '@toneledger/common/api/iiif';
 import { implement, type RouteDef } from '../../http/route';
 import { imageInfo, imageRequest, iiifSourceFor } from '../../services/iiif-image.service';
-import { exhibitionCollection, imageServiceIdOf, printManifest, searchCollection } from '../../services/iiif-presentation.service';
+import {
+  exhibitionCollection, imageServiceIdOf, printManifest, savedSearchCollection, searchCollection,
+} from '../../services/iiif-presentation.service';
 import type { AppDeps } from '../../deps';
 
 /** Absolute ids come from the request's own origin (behind a proxy, `TRUST_PROXY` lets X-Forwarded-* speak). */
@@ -36,6 +38,7 @@ export function iiifRoutes(deps: AppDeps): RouteDef[] {
     },
     printManifest: async ({ params, actor, req }) => printManifest(deps.store, originOf(req), params.id, actor.role),
     exhibitionCollection: async ({ params, req }) => exhibitionCollection(originOf(req), params.id),
+    savedSearchCollection: async ({ params, actor, req }) => savedSearchCollection(originOf(req), params.id, actor),
     searchCollection: async ({ query, actor, req }) => {
       const raw = req.originalUrl.includes('?') ? req.originalUrl.slice(req.originalUrl.indexOf('?') + 1) : '';
       return searchCollection(originOf(req), query, raw, actor.role);

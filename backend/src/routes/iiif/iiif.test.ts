@@ -311,6 +311,24 @@ describe('IIIF collections', () => {
     expect((await get('/api/iiif/catalogue/collection?pageSize=0', 'viewer')).status).toBe(400);
   });
 
+  it("a saved search's collection: its owner's (or anyone's once shared), named after it", async () => {
+    const q = title.split(' ')[1]!;
+    const saved = await supertest(t.app).post('/api/saved-searches').set('Cookie', c.viewer!).set('Origin', t.origin)
+      .send({ name: 'Breakwater prints', query: { q }, shared: false });
+    expect(saved.status, JSON.stringify(saved.body)).toBe(201);
+    const path = `/api/iiif/saved-searches/${saved.body.data.id}/collection`;
+    const res = await get(path, 'viewer');
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ type: 'Collection', label: { en: ['Breakwater prints'] } });
+    expect(res.body.id).toBe(`${new URL(res.request.url).origin}${path}`);
+    expect(res.body.items.map((i: { id: string }) => new URL(i.id).pathname)).toEqual([`/api/iiif/prints/${printId}/manifest`]);
+    expect((await get(path, 'researcher')).status).toBe(404);
+    const shared = await supertest(t.app).patch(`/api/saved-searches/${saved.body.data.id}`).set('Cookie', c.viewer!).set('Origin', t.origin)
+      .send({ shared: true, version: saved.body.data.version });
+    expect(shared.status, JSON.stringify(shared.body)).toBe(200);
+    expect((await get(path, 'researcher')).status).toBe(200);
+  });
+
   it("an exhibition's collection lists its prints; 404 for an unknown exhibition", async () => {
     const e = await Exhibition.create({ title: `Tide lines ${Date.now()}`, organiser: 'Calder Reach', summary: null } as never);
     await ExhibitionObject.create({ exhibitionId: e.id, printId } as never);
