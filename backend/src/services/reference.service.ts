@@ -163,7 +163,11 @@ async function pathOf(parentId: string | null, name: string, t: Transaction): Pr
 
 export const locations: ReferenceKind<Location, ReturnType<typeof presentLocation>> = {
   entityType: 'location', noun: 'location', model: Location,
-  countSql: 'SELECT location_id AS id, count(*) AS n FROM prints WHERE location_id = ANY($1) GROUP BY location_id',
+  // Counts add up: a place's count is its own prints and those of every place inside it (drawers into cabinets, rooms, buildings).
+  // Each place's own count is carried up its chain of parents, so the walk is one row per place that holds prints, not per print.
+  countSql: `WITH RECURSIVE own AS (SELECT location_id AS id, count(*) AS n FROM prints WHERE location_id IS NOT NULL GROUP BY location_id),
+    up AS (SELECT id, n FROM own UNION ALL SELECT l.parent_id, up.n FROM up JOIN locations l ON l.id = up.id WHERE l.parent_id IS NOT NULL)
+    SELECT id, sum(n)::int AS n FROM up WHERE id = ANY($1) GROUP BY id`,
   searchColumns: ['path_label', 'code'], order: [['pathLabel', 'ASC']], present: presentLocation,
   uniqueField: 'name', uniqueMessage: 'A place with this name exists already at that level.',
   async prepare(values, existing, t) {

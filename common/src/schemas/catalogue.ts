@@ -107,6 +107,7 @@ export const locationUpdateSchema = locationInputSchema.partial().extend({ versi
 export const locationSchema = z.object({
   id, name: z.string(), kind: z.enum(LOCATION_KIND.codes), parentId: z.string().uuid().nullable(), code: z.string().nullable(),
   notes: z.string().nullable(), path: z.array(z.string()), pathLabel: z.string(), depth: z.number().int(),
+  /** Prints stored here and in every place inside (a room's count adds up its cabinets and drawers). */
   printCount: z.number().int(), version: z.number().int(),
 });
 export type Location = z.infer<typeof locationSchema>;

@@ -4,9 +4,9 @@ import { QueryTypes } from 'sequelize';
 import { ROLES, type Role } from '@toneledger/common/domain/roles';
 import { compatibilityWarnings } from '@toneledger/common/domain/compatibility';
 import { testApp, sessionFor } from '../../../test/app';
-import { accession, createEnclosure, createLocation } from '../../../test/factories';
+import { accession, createEnclosure, createImageRecord, createLocation } from '../../../test/factories';
 import { db } from '../../db';
-import { AuditEventModel, Print } from '../../models';
+import { AuditEventModel, Image, Print } from '../../models';
 import { DEMO_ACCOUNTS } from '../../seed/demo-accounts';
 
 const t = testApp();
@@ -260,5 +260,35 @@ describe('saved searches', () => {
     expect(del.status).toBe(200);
     const bad = await post('registrar', '/api/saved-searches', { name: '', query: { status: 'lost' } });
     expect(bad.status).toBe(400);
+  });
+});
+
+describe('list extras', () => {
+  it('location counts add up from drawers to rooms and buildings', async () => {
+    const building = await createLocation(`Count building ${word}`);
+    const room = await createLocation('Room 1', building);
+    const drawer = await createLocation('Drawer 1', room);
+    const other = await createLocation('Drawer 2', room);
+    for (const loc of [drawer, drawer, other, room]) {
+      const res = await post('registrar', '/api/prints', { accessionNumber: accession(), title: `Counted ${word}`, process: 'cyanotype', locationId: loc.id });
+      expect(res.status).toBe(201);
+    }
+    const list = await supertest(t.app).get(`/api/locations?q=${encodeURIComponent(`Count building ${word}`)}&pageSize=50`).set('Cookie', c.registrar);
+    const count = (id: string) => list.body.data.find((l: { id: string }) => l.id === id).printCount;
+    // Own prints: drawer 2, other 1, room 1, building 0; each place adds everything inside it.
+    expect([count(drawer.id), count(other.id), count(room.id), count(building.id)]).toEqual([2, 1, 4, 4]);
+  });
+
+  it('each list row carries its latest recto with a thumbnail (not a withdrawn one, not a verso)', async () => {
+    const p = await newPrint('Thumbnail');
+    const old = await createImageRecord(p.id);
+    const newer = await createImageRecord(p.id);
+    const verso = await createImageRecord(p.id, { viewType: 'verso' });
+    const gone = await createImageRecord(p.id, { withdrawnAt: new Date() });
+    await Image.update({ thumbKey: 'thumbs/x', capturedOn: '1990-01-01' }, { where: { id: old.id } });
+    await Image.update({ thumbKey: 'thumbs/y', capturedOn: '2001-05-01' }, { where: { id: newer.id } });
+    await Image.update({ thumbKey: 'thumbs/z', capturedOn: '2020-01-01' }, { where: { id: [verso.id, gone.id] } });
+    const list = await supertest(t.app).get(`/api/prints?q=${encodeURIComponent(`Thumbnail ${word}`)}`).set('Cookie', c.viewer);
+    expect(list.body.data.map((r: { thumbImageId: string | null }) => r.thumbImageId)).toEqual([newer.id]);
   });
 });

@@ -60,7 +60,7 @@ export function LocationsTreeTable({ roots, busy, searching, canWrite, onAddInsi
     }),
     column.accessor('kind', { header: 'Kind', cell: (info) => LOCATION_KIND.labels[info.getValue()] }),
     column.accessor('code', { header: 'Code', cell: (info) => (info.getValue() ? <code className="mono text-xs">{info.getValue()}</code> : <Empty>—</Empty>) }),
-    column.accessor('printCount', { header: 'Prints', cell: (info) => <CountCell value={info.getValue()} /> }),
+    column.accessor('printCount', { header: () => <span title="Prints here and in every place inside">Prints, inside too</span>, cell: (info) => <CountCell value={info.getValue()} /> }),
     ...(canWrite
       ? [
           column.display({
