@@ -66,6 +66,10 @@ afterAll(async () => {
 describe('the deep-zoom viewer', () => {
   it('opens from the condition page, zooms with the toolbar and the keyboard, and closes with Escape', async () => {
     const tiles: string[] = [];
+    const problems: string[] = [];
+    page.on('console', (m) => {
+      if (m.type() === 'error') problems.push(m.text());
+    });
     page.on('response', (r) => {
       if (/\/api\/iiif\/images\/[^/]+\/[^/]+\/[^/]+\/0\/default\.jpg$/.test(r.url()) && r.status() === 200) tiles.push(r.url());
     });
@@ -93,6 +97,8 @@ describe('the deep-zoom viewer', () => {
     await expect.poll(() => level(dialog), { timeout: 10_000 }).toBeLessThanOrEqual(fitted + 1);
     await page.keyboard.press('Escape');
     await dialog.waitFor({ state: 'hidden' });
+    // OpenSeadragon works under the app's Content-Security-Policy (nothing it tries is refused).
+    expect(problems).toEqual([]);
     // The manifest address is there to copy.
     const manifest = await page.getByLabel('IIIF manifest').inputValue();
     expect(manifest).toBe(`${new URL(BASE_URL).origin}/api/iiif/prints/${printId}/manifest`);

@@ -19,6 +19,18 @@ export interface DeepZoomProps {
   className?: string;
 }
 
+/**
+ * OpenSeadragon adds a <style> of its own (hiding the focus outline on touch screens) unless one
+ * marked `data-openseadragon-mobile-css` is there. The app's Content-Security-Policy refuses inline
+ * styles, and the focus outline should stay: an empty marked element keeps it from trying.
+ */
+function keepOpenSeadragonStylesOut() {
+  if (document.querySelector('style[data-openseadragon-mobile-css]')) return;
+  const marker = document.createElement('style');
+  marker.setAttribute('data-openseadragon-mobile-css', 'kept out by the app');
+  document.head.appendChild(marker);
+}
+
 /** The zoom as a share of the image's own pixels: 100 % is one image pixel per screen pixel. */
 function pixelZoom(viewer: OpenSeadragon.Viewer): number | null {
   const item = viewer.world.getItemAt(0);
@@ -38,6 +50,7 @@ export function DeepZoom({ infoUrl, label, onViewer, fullScreen = true, classNam
 
   useEffect(() => {
     if (!stage.current) return undefined;
+    keepOpenSeadragonStylesOut();
     const v = OpenSeadragon({
       element: stage.current,
       tileSources: infoUrl,
