@@ -79,6 +79,24 @@ describe('readings export', () => {
     expect(rows[0].spot_name).toBe('\'=HYPERLINK("http://x.invalid","dmax")');
   });
 
+  it('writes a voided session with its reason and leaves it out of the change against the baseline', async () => {
+    const p = await newPrint();
+    const spot = await post('conservator', `/api/prints/${p.id}/measurement-spots`, { name: 'Sky', purpose: 'dmax' });
+    const ids = [];
+    for (const [day, lab] of [['2018-01-02', { L: 50, a: 0, b: -82.7485 }], ['2021-01-02', { L: 60, a: 9, b: -60 }], ['2024-01-02', { L: 50, a: 2.6772, b: -79.7751 }]] as const) {
+      const res = await post('conservator', `/api/prints/${p.id}/measurement-sessions`, sessionBody(day, [{ spotId: spot.body.data.id, readings: [lab] }]));
+      expect(res.status, JSON.stringify(res.body)).toBe(201);
+      ids.push(res.body.data.id as string);
+    }
+    const voided = await post('conservator', `/api/measurement-sessions/${ids[1]}/void`, { reason: 'Readings taken through the glazing' });
+    expect(voided.status, JSON.stringify(voided.body)).toBe(200);
+    const rows = rowsOf((await get('conservator', `/api/exports/readings.csv?printId=${p.id}`)).body as string);
+    expect(rows.map((r) => [r.measured_on, r.voided])).toEqual([['2018-01-02', 'no'], ['2021-01-02', 'yes'], ['2024-01-02', 'no']]);
+    expect(rows[1]).toMatchObject({ void_reason: 'Readings taken through the glazing', delta_e00: '', comparable: '' });
+    // Sharma et al. (2005) pair 1 again: the later session is still measured against the first.
+    expect(Number(rows[2].delta_e00)).toBeCloseTo(2.0425, 4);
+  });
+
   it('honours the filters of the list: one print, or a process', async () => {
     const mine = rowsOf((await get('conservator', `/api/exports/readings.csv?printId=${other.id}`)).body as string);
     expect(mine.map((r) => r.spot_name)).toEqual(['Margin']);

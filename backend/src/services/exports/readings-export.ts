@@ -5,9 +5,9 @@ import { SPOT_PURPOSE_LABELS } from '@toneledger/common/schemas/measurements';
 import { printLinkedData } from '@toneledger/common/fields/linked-data';
 import type { SpotPoint } from '@toneledger/common/domain/spot-analysis';
 import { db } from '../../db';
-import { MeasurementSession, MeasurementSpot, SpotReading } from '../../models';
+import { MeasurementSpot, type MeasurementSession, type SpotReading } from '../../models';
 import { notFound } from '../../errors';
-import { analyseSpot, getMeasurementSettings } from '../measurement.service';
+import { analyseSpot, getMeasurementSettings, voidedSessions } from '../measurement.service';
 import { isoCell, streamCsv, streamJsonArray, yesNo, type ExportColumn } from './columns';
 
 /**
@@ -23,9 +23,11 @@ interface PrintHead { id: string; accession_number: string; title: string; proce
 export interface ReadingRow {
   print: PrintHead;
   spot: MeasurementSpot;
-  session: MeasurementSession;
-  reading: SpotReading;
+  session: Pick<MeasurementSession, 'id' | 'measuredOn' | 'measuredByName' | 'instrument' | 'serial' | 'illuminant' | 'observer' | 'geometry' | 'condition'>;
+  reading: Pick<SpotReading, 'meanL' | 'meanA' | 'meanB' | 'n' | 'density' | 'densityType' | 'reflectance'>;
   point: SpotPoint | undefined;
+  /** Set when the session was voided: kept in the export, left out of the analysis. */
+  voided: { at: string; by: string; reason: string } | null;
   baselineSessionId: string | null;
   baselineChosen: boolean;
 }
@@ -60,6 +62,8 @@ export const READING_COLUMNS: ExportColumn<ReadingRow>[] = [
   { name: 'density', meaning: 'Reflection density, when given or computed from reflectance.', type: 'number', unit: 'D', source: 'Spot reading: density', cell: (r) => num(r.reading.density) },
   { name: 'density_type', meaning: 'The kind of density (visual, status A).', type: 'code', source: 'Spot reading: density type', cell: (r) => r.reading.densityType },
   { name: 'reflectance', meaning: 'Reflectance factor as a fraction (0–1].', type: 'number', source: 'Spot reading: reflectance', cell: (r) => num(r.reading.reflectance) },
+  { name: 'voided', meaning: 'Yes when the session was voided (recorded by mistake): kept here, left out of every change and rate.', type: 'yes/no', source: 'Measurement session void', cell: (r) => yesNo(r.voided !== null) },
+  { name: 'void_reason', meaning: 'Why the session was voided.', type: 'text', source: 'Measurement session void: reason', cell: (r) => r.voided?.reason ?? null },
   { name: 'is_baseline', meaning: "Yes on the session that is the spot's baseline.", type: 'yes/no', source: 'Computed: the chosen baseline session, otherwise the first comparable session', cell: (r) => yesNo(r.baselineSessionId === r.session.id) },
   { name: 'baseline_chosen', meaning: 'Yes when a person chose the baseline; no when it is the first session by default.', type: 'yes/no', source: 'Measurement spot: baseline choice', cell: (r) => yesNo(r.baselineSessionId ? r.baselineChosen : null) },
   { name: 'comparable', meaning: 'Yes when measured under the same conditions as the baseline (illuminant, observer, geometry, M-condition).', type: 'yes/no', source: 'Computed (spot-analysis)', cell: (r) => yesNo(r.point ? r.point.comparable : null) },
@@ -72,19 +76,27 @@ export const READING_COLUMNS: ExportColumn<ReadingRow>[] = [
   { name: 'density_change', meaning: 'ΔD = D − D0 against the baseline density (negative while the density falls).', type: 'number', unit: 'D', source: 'Computed (spot-analysis)', cell: (r) => num(r.point?.dD) },
 ];
 
-/** The prints with spots that the query names, a chunk at a time, in accession order. */
+/**
+ * The prints with spots that the query names, a chunk at a time, in accession order. Each chunk
+ * starts after the last one's (accession_sort, id), written as a plain row comparison (no
+ * `$n IS NULL OR …`) so PostgreSQL can walk the accession index instead of sorting every print again.
+ */
 async function* printChunks(query: ReadingsExportQuery): AsyncGenerator<PrintHead[]> {
   let after: [string, string] | null = null;
   for (;;) {
+    const where = ['EXISTS (SELECT 1 FROM measurement_spots s WHERE s.print_id = p.id)'];
+    const bind: unknown[] = [];
+    const add = (sql: string, ...values: unknown[]) => {
+      where.push(sql.replace(/\$(\d)/g, (_m, n: string) => `$${bind.length + Number(n)}`));
+      bind.push(...values);
+    };
+    if (query.printId) add('p.id = $1::uuid', query.printId);
+    if (query.process) add('p.process = $1::text', query.process);
+    if (query.tonerClass) add('p.toner_classes @> ARRAY[$1::text]', query.tonerClass);
+    if (after) add('(p.accession_sort, p.id) > ($1::text, $2::uuid)', after[0], after[1]);
     const rows: PrintHead[] = await db().query<PrintHead>(
-      `SELECT p.id, p.accession_number, p.title, p.process, p.accession_sort FROM prints p
-        WHERE EXISTS (SELECT 1 FROM measurement_spots s WHERE s.print_id = p.id)
-          AND ($1::uuid IS NULL OR p.id = $1::uuid)
-          AND ($2::text IS NULL OR p.process = $2::text)
-          AND ($3::text IS NULL OR p.toner_classes @> ARRAY[$3::text])
-          AND ($4::text IS NULL OR (p.accession_sort, p.id) > ($4::text, $5::uuid))
-        ORDER BY p.accession_sort, p.id LIMIT ${CHUNK}`,
-      { bind: [query.printId ?? null, query.process ?? null, query.tonerClass ?? null, after?.[0] ?? null, after?.[1] ?? null], type: QueryTypes.SELECT },
+      `SELECT p.id, p.accession_number, p.title, p.process, p.accession_sort FROM prints p WHERE ${where.join(' AND ')} ORDER BY p.accession_sort, p.id LIMIT ${CHUNK}`,
+      { bind, type: QueryTypes.SELECT },
     );
     if (!rows.length) return;
     yield rows;
@@ -96,24 +108,52 @@ async function* printChunks(query: ReadingsExportQuery): AsyncGenerator<PrintHea
 
 interface PrintReadings { print: PrintHead; spots: { spot: MeasurementSpot; rows: ReadingRow[] }[] }
 
-/** One chunk of prints with every reading analysed against its spot's baseline. */
+/** A session as the export and the analysis read it (the columns `analyseSpot` uses, and what the CSV writes). */
+type SessionRow = Pick<MeasurementSession, 'id' | 'printId' | 'measuredOn' | 'measuredByName' | 'instrument' | 'serial' | 'illuminant' | 'observer' | 'geometry' | 'condition' | 'createdAt'>;
+type ReadingRowDb = Pick<SpotReading, 'sessionId' | 'spotId' | 'meanL' | 'meanA' | 'meanB' | 'n' | 'density' | 'densityType' | 'reflectance'>;
+
+/**
+ * One chunk of prints with every reading analysed against its spot's baseline. Sessions and readings
+ * are read with plain SQL (only the columns used; Sequelize's nested include cost more than the
+ * analysis). A voided session is written with its reason and left out of the analysis, as on the
+ * measurements page.
+ */
 async function analyseChunk(prints: PrintHead[], threshold: number): Promise<PrintReadings[]> {
   const ids = prints.map((p) => p.id);
   const spots = await MeasurementSpot.findAll({ where: { printId: ids }, order: [['createdAt', 'ASC'], ['name', 'ASC']] });
-  const sessions = (await MeasurementSession.findAll({ where: { printId: ids }, include: [{ model: SpotReading, as: 'readings' }] })) as (MeasurementSession & { readings?: SpotReading[] })[];
-  sessions.sort((a, b) => a.measuredOn.localeCompare(b.measuredOn) || a.createdAt.getTime() - b.createdAt.getTime());
-  const bySpot = new Map<string, { session: MeasurementSession; reading: SpotReading }[]>();
-  for (const session of sessions) for (const reading of session.readings ?? []) bySpot.set(reading.spotId, [...(bySpot.get(reading.spotId) ?? []), { session, reading }]);
+  const sessions = await db().query<SessionRow>(
+    `SELECT id, print_id AS "printId", measured_on::text AS "measuredOn", measured_by_name AS "measuredByName", instrument, serial,
+            illuminant, observer, geometry, condition, created_at AS "createdAt"
+       FROM measurement_sessions WHERE print_id = ANY($1::uuid[]) ORDER BY measured_on, created_at`,
+    { bind: [ids], type: QueryTypes.SELECT },
+  );
+  const readings = await db().query<ReadingRowDb>(
+    `SELECT session_id AS "sessionId", spot_id AS "spotId", mean_l::float8 AS "meanL", mean_a::float8 AS "meanA", mean_b::float8 AS "meanB", n,
+            density::float8 AS density, density_type AS "densityType", reflectance::float8 AS reflectance
+       FROM spot_readings WHERE print_id = ANY($1::uuid[])`,
+    { bind: [ids], type: QueryTypes.SELECT },
+  );
+  const voided = await voidedSessions(ids);
+  const sessionById = new Map(sessions.map((x) => [x.id, x]));
+  const order = new Map(sessions.map((x, i) => [x.id, i]));
+  readings.sort((x, y) => order.get(x.sessionId)! - order.get(y.sessionId)!);
+  const bySpot = new Map<string, { session: SessionRow; reading: ReadingRowDb }[]>();
+  for (const reading of readings) {
+    const list = bySpot.get(reading.spotId) ?? [];
+    list.push({ session: sessionById.get(reading.sessionId)!, reading });
+    bySpot.set(reading.spotId, list);
+  }
   return prints.map((print) => ({
     print,
     spots: spots.filter((s) => s.printId === print.id).map((spot) => {
       const history = bySpot.get(spot.id) ?? [];
-      const analysis = analyseSpot(spot, history, threshold);
+      const analysed = history.filter((h) => !voided.has(h.session.id));
+      const analysis = analyseSpot(spot, analysed as unknown as Parameters<typeof analyseSpot>[1], threshold);
       const points = new Map(analysis.points.map((p) => [p.sessionId, p]));
       return {
         spot,
         rows: history.map(({ session, reading }) => ({
-          print, spot, session, reading, point: points.get(session.id),
+          print, spot, session, reading, point: points.get(session.id), voided: voided.get(session.id) ?? null,
           baselineSessionId: analysis.baseline?.sessionId ?? null, baselineChosen: analysis.baseline?.chosen ?? false,
         })),
       };
@@ -154,7 +194,7 @@ export async function writeReadingsJson(query: ReadingsExportQuery, out: Writabl
             illuminant: r.session.illuminant, observer: r.session.observer, geometry: r.session.geometry, condition: r.session.condition,
             lab: { L: r.reading.meanL, a: r.reading.meanA, b: r.reading.meanB }, n: r.reading.n,
             density: r.reading.density, densityType: r.reading.densityType, reflectance: r.reading.reflectance,
-            comparable: r.point?.comparable ?? null, reason: r.point?.reason ?? null,
+            voided: r.voided, comparable: r.point?.comparable ?? null, reason: r.point?.reason ?? null,
             deltaE00: r.point?.dE00 ?? null, deltaLPrime: prime(r.point, 'dLPrime'), deltaCPrime: prime(r.point, 'dCPrime'), deltaHPrime: prime(r.point, 'dHPrime'),
             deltaEab: r.point?.dE76 ?? null, densityChange: r.point?.dD ?? null,
           })),
