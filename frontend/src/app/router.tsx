@@ -84,9 +84,10 @@ function catalogueRoute(area: Area): RouteObject {
             import('@/features/catalogue/routes/print-page'),
             import('@/features/light/components/light-panel'),
             import('@/features/inspections/components/print-schedule-panel'),
+            import('@/features/deaccessions/deaccession-panel'),
           ]).then(
-            ([{ PrintPage }, { LightPanel }, { PrintSchedulePanel }]) =>
-              () => <PrintPage panels={[PrintSchedulePanel, LightPanel]} />,
+            ([{ PrintPage }, { LightPanel }, { PrintSchedulePanel }, { DeaccessionPanel }]) =>
+              () => <PrintPage panels={[PrintSchedulePanel, LightPanel, DeaccessionPanel]} />,
           ),
         ),
       },
