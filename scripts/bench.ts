@@ -55,7 +55,10 @@ const SCHEDULE_ONLY = ONLY !== '' && SCHEDULE_SCENARIO.includes(ONLY);
 /** The longevity-research scenarios run in their own process (scripts/bench-research.ts); `--only research` runs them alone. */
 const RESEARCH_SCENARIO = 'research, fading rates, survival with log-rank, Cox on five factors';
 const RESEARCH_ONLY = ONLY !== '' && RESEARCH_SCENARIO.includes(ONLY);
-const IMAGES = !process.argv.includes('--no-images') && !CLIMATE_ONLY && !SCHEDULE_ONLY && !RESEARCH_ONLY;
+/** The preservation package of the scale catalogue runs in its own process (scripts/bench-preservation.ts); `--only preservation` runs it alone. */
+const PRESERVATION_SCENARIO = 'preservation, bag of the catalogue without images';
+const PRESERVATION_ONLY = ONLY !== '' && PRESERVATION_SCENARIO.includes(ONLY);
+const IMAGES = !process.argv.includes('--no-images') && !CLIMATE_ONLY && !SCHEDULE_ONLY && !RESEARCH_ONLY && !PRESERVATION_ONLY;
 
 interface Scenario {
   name: string;
@@ -97,7 +100,7 @@ let sqlPool: pg.Pool | null = null;
 let code = 0;
 
 try {
-  if (CLIMATE_ONLY || SCHEDULE_ONLY || RESEARCH_ONLY) throw Object.assign(new Error('list skipped'), { skip: true });
+  if (CLIMATE_ONLY || SCHEDULE_ONLY || RESEARCH_ONLY || PRESERVATION_ONLY) throw Object.assign(new Error('list skipped'), { skip: true });
   if (!(await reachable(pgPort))) {
     cluster = await startPostgres({
       baseDir: path.resolve(ROOT, process.env.TONELEDGER_DATA_DIR ?? '.data', 'pg'), port: pgPort, database: 'postgres', log, fallbackKey: 'dev',
@@ -317,4 +320,6 @@ if (research.status !== 0 && code === 0) code = research.status ?? 1;
 // The readings export at scale (scripts/bench-exports.ts): with the full bench only; alone: `npx tsx scripts/bench-exports.ts [--process cyanotype]`.
 const exportsRun = ONLY ? { status: 0 } : spawnSync(path.join(ROOT, 'node_modules', '.bin', 'tsx'), [path.join(ROOT, 'scripts', 'bench-exports.ts'), '--process', 'cyanotype'], { stdio: 'inherit', cwd: ROOT });
 if (exportsRun.status !== 0 && code === 0) code = exportsRun.status ?? 1;
+const preservation = ONLY && !PRESERVATION_ONLY ? { status: 0 } : spawnSync(path.join(ROOT, 'node_modules', '.bin', 'tsx'), [path.join(ROOT, 'scripts', 'bench-preservation.ts')], { stdio: 'inherit', cwd: ROOT });
+if (preservation.status !== 0 && code === 0) code = preservation.status ?? 1;
 process.exit(code);

@@ -14,6 +14,8 @@ export interface BagTable {
   parentColumn: string;
   /** The parent's column it matches (the primary key `id` unless named). */
   parentKey?: string;
+  /** Only the rows this SQL condition over alias `t` keeps (when a table's rows have two kinds of parent). */
+  where?: string;
   /** Order of the rows in the file (and of their insertion): SQL over the table's alias `t`. */
   orderBy: string;
   /** What the rows are, for the data dictionary. */

@@ -29,6 +29,8 @@ export const COLLECTION_TABLES: readonly CollectionTable[] = [
       SELECT to_jsonb(t) AS j FROM locations t JOIN d USING (id) ORDER BY d.depth, t.id`,
   },
   { table: 'condition_terms', description: 'The condition vocabulary: codes, labels, definitions.', orderBy: 't.code', onConflict: 'update' },
+  { table: 'object_entries', description: 'Objects received (object entry): from whom, why, when, the entry number.' },
+  { table: 'acquisitions', description: 'Acquisitions and accessioning: method, source, approval, credit line (the prints of each are in the prints\' files).' },
   { table: 'exhibitions', description: 'Exhibitions (the prints in each are in the prints\' files).' },
   { table: 'exhibition_venues', description: 'Each venue of an exhibition, with its dates.' },
   { table: 'loans', description: 'Loans in and out: borrower or lender, dates, conditions (the prints on each are in the prints\' files).' },

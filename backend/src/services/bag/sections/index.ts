@@ -1,4 +1,5 @@
 import type { PrintSection } from '../section';
+import { acquisitionPrints, deaccessions } from './acquisitions';
 import { conditionReports } from './condition-reports';
 import { displayPeriods, exhibitionObjects } from './displays';
 import { images } from './images';
@@ -8,6 +9,7 @@ import { movements } from './movements';
 import { printOutcomes } from './outcomes';
 import { processSteps } from './process-steps';
 import { printSchedules, roundItems } from './schedule';
+import { treatments } from './treatments';
 
 /**
  * The sections of a print's file, in the order an import writes them: a table comes after the
@@ -19,6 +21,7 @@ export const PRINT_SECTIONS: readonly PrintSection[] = [
   processSteps,
   images,
   conditionReports,
+  treatments,
   measurementSessions,
   measurementSpots,
   movements,
@@ -28,4 +31,6 @@ export const PRINT_SECTIONS: readonly PrintSection[] = [
   roundItems,
   printSchedules,
   printOutcomes,
+  acquisitionPrints,
+  deaccessions,
 ];

@@ -4,6 +4,7 @@ import type { PrintSection } from '../section';
 export const measurementSessions: PrintSection = {
   key: 'measurementSessions', table: 'measurement_sessions', parentColumn: 'print_id', orderBy: 't.measured_on, t.created_at, t.id',
   description: 'Measurement sessions: when, with which instrument and conditions, by whom.',
+  children: [{ key: 'void', table: 'measurement_session_voids', parentColumn: 'session_id', orderBy: 't.voided_at', description: 'A session set aside from every analysis, with the reason (its readings stay on record).' }],
 };
 
 export const measurementSpots: PrintSection = {
