@@ -10,6 +10,7 @@ import { imageUploadFieldsSchema } from '@toneledger/common/schemas/images';
 import { db } from '../db';
 import { Addendum, ConditionReport, Image } from '../models';
 import { addAddendum, createReport, signReport, type Actor } from '../services/condition.service';
+import { copySetupFor, signedAtFor } from './demo-times';
 import { storeImage } from '../services/image.service';
 import type { ReceivedFile } from '../services/image-ingest';
 import { DEMO_INSTITUTION } from './demo-accounts';
@@ -774,12 +775,6 @@ function renderVerso(p: DemoPrint, l: Layout, year: number): Sharp {
 
 // ── Copy photographs at each sitting ────────────────────────────────────────
 
-/** Invented copy set-ups of the Trust's photographers, by period. */
-const CAMERAS = [
-  { until: 2002, make: 'Corran Imaging', model: 'Vista 6 scanning back', lens: 'Corran Copy 120 mm', exposure: '1/4', f: '11', iso: '50', focal: '120' },
-  { until: 2016, make: 'Keswick Optical', model: 'KX-22 copy camera', lens: 'Keswick Macro 90 mm f/4', exposure: '1/30', f: '8', iso: '100', focal: '90' },
-  { until: 9999, make: 'Tallon Camera Works', model: 'TC-61 reproduction camera', lens: 'Tallon Apo 100 mm f/4', exposure: '1/60', f: '8', iso: '64', focal: '100' },
-];
 
 type ViewType = 'recto' | 'raking_light' | 'verso';
 
@@ -797,13 +792,15 @@ interface StoredCapture extends Capture {
 
 /** Encodes a rendered photograph as the camera would have written it, and stores it as an upload would be. */
 async function storeRendered(store: ObjectStore, p: DemoPrint, c: Capture, picture: Sharp, actor: Actor): Promise<string> {
-  const camera = CAMERAS.find((k) => yearOf(c.date) <= k.until)!;
+  const camera = copySetupFor(c.date);
   const r = rngFor(p.accessionNumber, `time:${c.date}:${c.view}`);
   const when = `${c.date.replace(/-/g, ':')} ${pad2(r.int(9, 16))}:${pad2(r.int(0, 59))}:${pad2(r.int(0, 59))}`;
   const withExif = await picture
     .withExif({
-      IFD0: { Make: camera.make, Model: camera.model, DateTime: when },
-      IFD2: { DateTimeOriginal: when, ExposureTime: camera.exposure, FNumber: camera.f, ISOSpeedRatings: camera.iso, FocalLength: camera.focal, LensModel: camera.lens },
+      IFD0: { Make: camera.make, Model: camera.model, DateTime: when, ...(camera.description ? { ImageDescription: camera.description } : {}) },
+      IFD2: camera.lens
+        ? { DateTimeOriginal: when, ExposureTime: camera.exposure!, FNumber: camera.f!, ISOSpeedRatings: camera.iso!, FocalLength: camera.focal!, LensModel: camera.lens }
+        : { DateTimeOriginal: when },
     })
     .jpeg({ quality: 88 })
     .toBuffer();
@@ -1324,7 +1321,8 @@ export async function seedDemoCondition(
       if (!d.sign) continue;
       if (report.status !== 'signed') {
         signal?.throwIfAborted();
-        await signReport(report.id, report.version, actor, 'seed');
+        const r = rngFor(plan.story.print.accessionNumber, `signed:${d.input.examinedOn}`);
+        await signReport(report.id, report.version, actor, 'seed', signedAtFor(d.input.examinedOn, (min, max) => r.int(min, max)));
         signed += 1;
       }
       if (d.addendum && (await Addendum.count({ where: { reportId: report.id } })) === 0) {

@@ -287,12 +287,15 @@ export async function discardReport(id: string, version: number, actor: Actor, r
   });
 }
 
-/** Signs a draft: from here on the report and its observations are locked; corrections go in addenda. */
-export async function signReport(id: string, version: number, actor: Actor, requestId: string | null) {
+/**
+ * Signs a draft: from here on the report and its observations are locked; corrections go in addenda.
+ * `signedAt` is now, except for the demo seed, which signs its invented past reports when they were.
+ */
+export async function signReport(id: string, version: number, actor: Actor, requestId: string | null, signedAt: Date = new Date()) {
   return db().transaction(async (t) => {
     const before = await lockDraft(id, version, actor, t);
     if (!before.grade) throw validationFailed([{ path: 'grade', message: 'Give an overall grade before signing', code: 'required' }], 'A report needs an overall grade to be signed.');
-    await ConditionReport.update({ status: 'signed', signedAt: new Date(), version: before.version + 1 }, { where: { id }, transaction: t });
+    await ConditionReport.update({ status: 'signed', signedAt, version: before.version + 1 }, { where: { id }, transaction: t });
     const after = await loadReport(id, t);
     await checkOffRounds(after, t);
     await markScheduleStale(t, { printIds: [before.printId] });
