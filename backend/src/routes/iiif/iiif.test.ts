@@ -8,6 +8,7 @@ import { accession } from '../../../test/factories';
 import { db } from '../../db';
 import { Exhibition, ExhibitionObject, Image } from '../../models';
 import { forgetIiifMemory } from '../../services/iiif-image.service';
+import { purgeWithdrawn } from '../../services/image.service';
 
 /**
  * The IIIF Image API 3.0 and Presentation API 3.0 endpoints against the real app and PostgreSQL.
@@ -200,7 +201,7 @@ describe('IIIF access rules', () => {
     }
   });
 
-  it("a withdrawn image is not found for a viewer (staff still reach it), and leaves the print's manifest", async () => {
+  it("a withdrawn image is not found for a viewer (staff still reach it), leaves the print's manifest, and its IIIF answers are purged with it", async () => {
     const up = await supertest(t.app).post(`/api/prints/${printId}/images`).set('Cookie', c.conservator!).set('Origin', t.origin)
       .field('viewType', 'verso').field('capturedOn', '1990-01-01').attach('file', await patterned(320, 200), 'verso.png');
     expect(up.status).toBe(201);
@@ -212,6 +213,16 @@ describe('IIIF access rules', () => {
     expect((await get(`/api/iiif/images/${up.body.data.id}/info.json`, 'researcher')).status).toBe(200);
     const m = await get(`/api/iiif/prints/${printId}/manifest`, 'researcher');
     expect(m.body.items.map((cv: { id: string }) => cv.id.split('/').at(-1))).not.toContain(up.body.data.id);
+    // Its IIIF answers go with its files when the retention ends.
+    expect((await binary(get(`/api/iiif/images/${up.body.data.id}/full/100,/0/default.jpg`, 'researcher'))).status).toBe(200);
+    const keys = await db().query<{ key: string }>('SELECT key FROM iiif_cache WHERE image_id = $1', { bind: [up.body.data.id], type: QueryTypes.SELECT });
+    expect(keys).toHaveLength(1);
+    expect(await t.deps.store.head(keys[0]!.key)).not.toBeNull();
+    await Image.update({ purgeAfter: new Date(Date.now() - 1000) }, { where: { id: up.body.data.id } });
+    await purgeWithdrawn(t.deps.store, 90);
+    expect(await t.deps.store.head(keys[0]!.key)).toBeNull();
+    expect(await db().query('SELECT key FROM iiif_cache WHERE image_id = $1', { bind: [up.body.data.id], type: QueryTypes.SELECT })).toHaveLength(0);
+    expect((await get(`/api/iiif/images/${up.body.data.id}/full/100,/0/default.jpg`, 'researcher')).status).toBe(404);
   });
 
   it('401 without a session, 404 for an unknown image or print', async () => {
