@@ -18,6 +18,15 @@ function renderCompare(role: Role, saved: unknown = null, path = `/condition/pri
 }
 
 describe('ComparePage', () => {
+  it('warns when the earlier image was made after the later one, and swaps them on request', async () => {
+    const { router } = renderCompare('viewer', null, `/condition/prints/${PRINT_ID}/compare?a=${IMAGE_NEW}&b=${IMAGE_OLD}`);
+    const warning = await screen.findByRole('alert');
+    expect(warning.textContent).toMatch(/earlier image \(2024-03-11\) was made after the later one \(1995-05-02\)/);
+    fireEvent.click(screen.getByRole('button', { name: 'Swap them' }));
+    await waitFor(() => expect(router.state.location.search).toBe(`?a=${IMAGE_OLD}&b=${IMAGE_NEW}`));
+    await waitFor(() => expect(screen.queryByRole('alert')).toBeNull());
+  });
+
   it('shows the two images side by side with their dates', async () => {
     renderCompare('viewer');
     expect(await screen.findByRole('img', { name: 'Earlier: Recto · 2 May 1995' })).toBeTruthy();

@@ -13,7 +13,8 @@ import { useAlignment } from '@/features/condition/api/alignment';
 import { LinkedDeepZoom } from '@/features/condition/components/linked-deep-zoom';
 import { OverlayCompare } from '@/features/condition/components/overlay-compare';
 import { imageLabel } from '@/features/condition/components/region-drawer';
-import { byCapture, defaultPair } from '@/features/condition/utils/compare';
+import { byCapture, choosePair, defaultPair, orderWarning } from '@/features/condition/utils/compare';
+import { Button } from '@/components/ui/button';
 import { NotLoaded } from '@/features/condition/routes/print-not-loaded';
 
 type Mode = 'side' | 'zoom' | 'overlay';
@@ -59,12 +60,15 @@ export function ComparePage() {
   if (print.isError) return <NotLoaded error={print.error} what="print" />;
   if (images.isError) return <ErrorNotice error={images.error} title="The images could not be loaded." />;
 
-  function choose(which: 'a' | 'b', value: string) {
+  function setPair([nextA, nextB]: [string, string]) {
     const next = new URLSearchParams(params);
-    next.set('a', which === 'a' ? value : aId);
-    next.set('b', which === 'b' ? value : bId);
+    next.set('a', nextA);
+    next.set('b', nextB);
     setParams(next, { replace: true });
   }
+  // Both sides stay of one view: an earlier image of another view brings the later side along.
+  const choose = (which: 'a' | 'b', value: string) => setPair(choosePair(usable, which, value, [aId, bId]));
+  const backwards = orderWarning(a, b);
 
   const sameView = a ? usable.filter((i) => i.viewType === a.viewType) : usable;
 
@@ -105,6 +109,14 @@ export function ComparePage() {
                 </option>
               ))}
             </SelectField>
+            {backwards ? (
+              <div role="alert" className="flex items-center gap-2 rounded border border-sepia-300 bg-sepia-50 px-2.5 py-1.5 text-sm text-sepia-800">
+                <span>{backwards}</span>
+                <Button size="sm" onClick={() => setPair([bId, aId])}>
+                  Swap them
+                </Button>
+              </div>
+            ) : null}
             <fieldset className="flex items-center gap-3 text-sm">
               <legend className="mb-1 text-xs font-semibold tracking-wide text-ink-700 uppercase">Display</legend>
               <label className="flex items-center gap-1.5">
