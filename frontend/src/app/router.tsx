@@ -126,6 +126,14 @@ function catalogueRoute(area: Area): RouteObject {
       },
       { path: 'enclosures', lazy: page(() => import('@/features/reference/routes/enclosures-page').then((m) => m.EnclosuresPage)) },
       {
+        path: 'entries',
+        lazy: page(() => import('@/features/acquisitions/entries-page').then((m) => m.EntriesPage), { permission: 'catalogue.read_restricted', what: 'Entries and acquisitions' }),
+      },
+      {
+        path: 'entries/:id',
+        lazy: page(() => import('@/features/acquisitions/entry-page').then((m) => m.EntryPage), { permission: 'catalogue.read_restricted', what: 'Entries and acquisitions' }),
+      },
+      {
         path: 'settings',
         lazy: page(() => import('@/features/reference/routes/catalogue-settings-page').then((m) => m.CatalogueSettingsPage), {
           permission: 'settings.manage',

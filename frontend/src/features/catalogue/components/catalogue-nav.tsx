@@ -13,6 +13,7 @@ interface Item {
 export const CATALOGUE_SECTIONS: Item[] = [
   { to: '/catalogue', label: 'Prints', end: true },
   { to: '/catalogue/import', label: 'Import', permission: 'catalogue.write' },
+  { to: '/catalogue/entries', label: 'Entries and acquisitions', permission: 'catalogue.read_restricted' },
   { to: '/catalogue/makers', label: 'Makers' },
   { to: '/catalogue/papers', label: 'Papers' },
   { to: '/catalogue/recipes', label: 'Bath recipes' },

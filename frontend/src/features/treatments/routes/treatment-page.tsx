@@ -105,7 +105,7 @@ export function TreatmentPage() {
               <dl className="mb-3 grid gap-3 sm:grid-cols-3">
                 <Field label={procedureLabelOf('startedOn')} value={t.startedOn} />
                 <Field label={procedureLabelOf('completedOn')} value={t.completedOn} />
-                <Field label={procedureLabelOf('hoursSpent')} value={t.hoursSpent === null ? null : `${t.hoursSpent} h`} />
+                <Field label={procedureLabelOf('hoursSpent')} value={t.hoursSpent} />
               </dl>
               <h3 className="font-medium">Steps</h3>
               <ol className="mb-3 list-decimal pl-6">
