@@ -77,9 +77,9 @@ describe('accessibility: axe-core WCAG 2.1 A and AA on every main screen, per ro
       await signInAs(page, role);
       for (const path of screensFor(role)) {
         await page.goto(new URL(path, BASE_URL).toString());
-        const opened = await page.getByRole('heading', { level: 1 }).first().waitFor({ timeout: 20_000 }).then(() => true, () => false);
+        const opened = await page.getByRole('heading', { level: 1 }).first().waitFor({ timeout: 45_000 }).then(() => true, () => false);
         if (!opened) {
-          found.push(`${role} ${path}: the screen showed no level-1 heading within 20 s`);
+          found.push(`${role} ${path}: the screen showed no level-1 heading within 45 s`);
           await screenshot(page, `axe-${role}-${path.replace(/[^a-z0-9]+/gi, '-')}-no-heading`);
           continue;
         }
@@ -96,5 +96,5 @@ describe('accessibility: axe-core WCAG 2.1 A and AA on every main screen, per ro
       await page.close();
     }
     expect(found.join('\n'), found.join('\n')).toBe('');
-  }, 240_000);
+  }, 420_000);
 });

@@ -92,6 +92,10 @@ function catalogueRoute(area: Area): RouteObject {
         ),
       },
       {
+        path: 'prints/:id/sheet',
+        lazy: page(() => import('@/features/catalogue/routes/print-sheet-page').then((m) => m.PrintSheetPage)),
+      },
+      {
         path: 'prints/:id/edit',
         lazy: page(() => import('@/features/catalogue/routes/print-edit-page').then((m) => m.PrintEditPage), {
           permission: WRITE,

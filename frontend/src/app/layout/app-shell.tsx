@@ -44,7 +44,7 @@ export function AppShell({ me }: { me: Me }) {
   return (
     <div className="flex min-h-screen flex-col">
       <SkipLink />
-      <header className="on-dark bg-iron-900 text-paper-50">
+      <header className="on-dark bg-iron-900 text-paper-50 print:hidden">
         <div className="flex flex-wrap items-center justify-between gap-3 px-4 py-2.5 sm:px-6">
           <div className="flex items-center gap-3">
             <Link to="/" className="text-paper-50 no-underline hover:text-white">
@@ -59,10 +59,10 @@ export function AppShell({ me }: { me: Me }) {
         </div>
       </header>
       <div className="flex flex-1 flex-col md:flex-row">
-        <aside className="border-b border-paper-300 bg-paper-100 px-3 py-4 md:w-56 md:shrink-0 md:border-r md:border-b-0">
+        <aside className="border-b border-paper-300 bg-paper-100 px-3 py-4 md:w-56 md:shrink-0 md:border-r md:border-b-0 print:hidden">
           <MainNav me={me} />
         </aside>
-        <main id="main" ref={mainRef} tabIndex={-1} className="min-w-0 flex-1 px-4 py-5 outline-none sm:px-6 lg:px-8">
+        <main id="main" ref={mainRef} tabIndex={-1} className="min-w-0 flex-1 px-4 py-5 outline-none sm:px-6 lg:px-8 print:p-0">
           {navigation.state === 'loading' ? (
             <p role="status" className="sr-only">
               Loading page…

@@ -34,7 +34,7 @@ function classes({ isActive }: { isActive: boolean }) {
 export function CatalogueNav({ role, printsActive = false }: { role: Role; printsActive?: boolean }) {
   const items = CATALOGUE_SECTIONS.filter((item) => !item.permission || can(role, item.permission));
   return (
-    <nav aria-label="Catalogue" className="mb-5 border-b border-paper-300">
+    <nav aria-label="Catalogue" className="mb-5 border-b border-paper-300 print:hidden">
       <ul className="-mb-px flex flex-wrap gap-1">
         {items.map((item) => (
           <li key={item.to}>

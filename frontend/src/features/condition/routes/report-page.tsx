@@ -6,6 +6,7 @@ import { Loading } from '@/components/ui/loading';
 import { Notice } from '@/components/ui/notice';
 import { PrintArea } from '@/components/ui/print-area';
 import { useMe } from '@/lib/auth';
+import { PrintFooter } from '@/lib/print-footer';
 import { useDocumentTitle } from '@/lib/use-document-title';
 import { useImages } from '@/lib/images-api';
 import { usePrint } from '@/lib/prints-api';
@@ -52,6 +53,7 @@ function ReportView({ report }: { report: ConditionReport }) {
 
   return (
     <article>
+      <PrintFooter accessionNumber={report.accessionNumber} />
       <nav aria-label="Breadcrumb" className="mb-2 text-sm print:hidden">
         <Link to="/condition">Condition</Link> <span aria-hidden="true">›</span>{' '}
         <Link to={`/condition/prints/${report.printId}`} className="mono">
