@@ -134,10 +134,12 @@ export async function printFading(ids: readonly string[], t?: Transaction, spots
     for (const { analysis: a } of byPrint.get(id) ?? []) {
       if (!a.rate?.ok || !(a.rate.slopePerYear > 0)) continue;
       const p = a.projection;
+      // A very slow rate projects past the last day a Date can hold (year 275760): never noticeable, for the model.
+      const on = p?.reached === true && !p.alreadyReached && Number.isFinite(p.date.getTime()) ? p.date.toISOString().slice(0, 10) : null;
       const fading = {
         ratePerYear: a.rate.slopePerYear,
         alreadyNoticeable: p?.reached === true && p.alreadyReached,
-        noticeableOn: p?.reached === true && !p.alreadyReached ? p.date.toISOString().slice(0, 10) : null,
+        noticeableOn: on,
       };
       const seen = out.get(id);
       if (!seen || fading.ratePerYear > seen.ratePerYear) out.set(id, fading);
