@@ -1,3 +1,4 @@
+import { VoidCaptureDate } from '@/features/condition/components/void-capture-date';
 import { useId, useState, type ReactNode } from 'react';
 import { can, type Role } from '@toneledger/common/domain/roles';
 import { VIEW_TYPES, VIEW_TYPE_LABELS, imageDeleteSchema, imageUpdateSchema, type PrintImage } from '@toneledger/common/schemas/images';
@@ -147,6 +148,11 @@ export function ImageDetails({ image, role, onWithdrawn }: { image: PrintImage; 
         {image.exif.lens ? <Row term="Lens">{image.exif.lens}</Row> : null}
         <Row term="Exposure">{exposure ?? 'Not in the file'}</Row>
         {image.exif.capturedAt ? <Row term="Taken (EXIF)">{image.exif.capturedAt}</Row> : null}
+        {image.voidedCaptureDates?.length || (image.capturedOn && can(role, 'measurements.write')) ? (
+          <Row term="Capture date">
+            <VoidCaptureDate image={image} role={role} />
+          </Row>
+        ) : null}
         {image.notes ? <Row term="Notes">{image.notes}</Row> : null}
         <Row term="SHA-256">
           <code className="mono text-xs select-all">{image.sha256}</code>

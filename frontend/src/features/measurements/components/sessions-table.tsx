@@ -3,6 +3,7 @@ import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/re
 import type { MeasurementSession } from '@toneledger/common/schemas/measurements';
 import { DataTable } from '@/components/ui/data-table';
 import { formatDay, formatNumber } from '@/features/measurements/utils/format';
+import { VoidSession } from '@/features/measurements/components/void-session';
 
 const column = createColumnHelper<MeasurementSession>();
 const none = <span className="text-ink-600">—</span>;
@@ -11,7 +12,7 @@ const sessionColumns = [
   column.accessor('measuredOn', {
     header: 'Date',
     cell: (info) => (
-      <time dateTime={info.getValue()} className="whitespace-nowrap">
+      <time dateTime={info.getValue()} className={`whitespace-nowrap ${info.row.original.voided ? 'line-through' : ''}`}>
         {formatDay(info.getValue())}
       </time>
     ),
@@ -43,7 +44,7 @@ const sessionColumns = [
     // a* and b* keep their lower case inside the upper-case header row.
     header: () => <span className="normal-case">Readings: mean L* a* b*, n, sd</span>,
     cell: (info) => (
-      <ul className="num flex flex-col gap-1">
+      <ul className={`num flex flex-col gap-1 ${info.row.original.voided ? 'line-through' : ''}`}>
         {info.row.original.readings.map((r) => (
           <li key={r.spotId} className="whitespace-nowrap">
             <span className="font-medium">{r.spotName}</span>: {formatNumber(r.mean.L)} {formatNumber(r.mean.a)} {formatNumber(r.mean.b)}
@@ -58,6 +59,7 @@ const sessionColumns = [
       </ul>
     ),
   }),
+  column.display({ id: 'void', header: 'Void', cell: (info) => <VoidSession session={info.row.original} /> }),
 ];
 
 /** Every session at this print, newest first, with each spot's mean reading and spread. */
