@@ -205,9 +205,23 @@ class Writer {
       byTable.set(t.table, list);
     };
     for (const s of PRINT_SECTIONS) for (const d of docs) collect(s, (d.sections as Record<string, unknown>)[s.key]);
+    const later: { table: string; columns: string[]; rows: Row[] }[] = [];
     for (const t of PRINT_SECTIONS.flatMap(tablesOf)) {
-      const rows = byTable.get(t.table) ?? [];
+      let rows = byTable.get(t.table) ?? [];
+      if (t.writeAfter?.length && rows.length) {
+        later.push({ table: t.table, columns: t.writeAfter, rows });
+        rows = rows.map((r) => Object.fromEntries(Object.entries(r).filter(([k]) => !t.writeAfter!.includes(k))));
+      }
       for (let i = 0; i < rows.length; i += ROWS_PER_WRITE) await this.insert(t.table, rows.slice(i, i + ROWS_PER_WRITE));
+    }
+    // Columns that refer to rows written after their own (a spot's baseline reading), once those are in.
+    for (const { table, columns, rows } of later) {
+      for (let i = 0; i < rows.length; i += ROWS_PER_WRITE) {
+        await this.c.query(
+          `UPDATE ${table} t SET ${columns.map((c) => `"${c}" = r."${c}"`).join(', ')} FROM jsonb_populate_recordset(NULL::${table}, $1::jsonb) r WHERE t.id = r.id`,
+          [JSON.stringify(rows.slice(i, i + ROWS_PER_WRITE).map((r) => Object.fromEntries([['id', r.id], ...columns.map((c) => [c, r[c] ?? null])])))],
+        );
+      }
     }
   }
 }

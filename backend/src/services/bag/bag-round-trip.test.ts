@@ -189,7 +189,7 @@ describe('the preservation package of the demo collection', () => {
   it('lists each image original in the manifest with the SHA-256 the product keeps as its fixity value', async () => {
     const manifest = execFileSync('tar', ['-xOf', bagFile, 'calder-reach-bag/manifest-sha256.txt'], { maxBuffer: 64 * 1024 * 1024 }).toString();
     const byPath = new Map(manifest.trim().split('\n').map((l) => { const [sha, p] = l.split(/\s+/, 2); return [p, sha]; }));
-    expect(images.length).toBeGreaterThan(10);
+    expect(images.length).toBe(3);
     for (const image of images) expect(byPath.get(`data/images/${image.original_key}`)).toBe(image.sha256.trim());
   });
 
@@ -216,7 +216,7 @@ describe('the preservation package of the demo collection', () => {
     // The new installation's administrator signed in once before the import: same email, another id.
     const admin = JSON.parse(before.users.find((u) => u.includes(adminA))!) as { email: string; name: string };
     await m.db().query(`INSERT INTO users (id, email, name, role) VALUES ($1, $2, $3, 'admin')`, { bind: [adminB, admin.email, admin.name] });
-    await m.db().query(`INSERT INTO audit_events (actor_id, actor_name, action, entity_type, entity_id) VALUES ($1, $2, 'user.signed_in', 'user', $1)`, { bind: [adminB, admin.name] });
+    await m.db().query(`INSERT INTO audit_events (actor_id, actor_name, action, entity_type, entity_id) VALUES ($1::uuid, $2, 'user.signed_in', 'user', $3)`, { bind: [adminB, admin.name, adminB] });
     const check = await m.check.checkBag(createReadStream(bagFile));
     const started = performance.now();
     const counts = await m.conn.withConnection((c) => m.imp.importBag(c, createReadStream(bagFile), check.root, storeOf(buckets.b), async () => {}));

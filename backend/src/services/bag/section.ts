@@ -20,6 +20,11 @@ export interface BagTable {
   orderBy: string;
   /** What the rows are, for the data dictionary. */
   description: string;
+  /**
+   * Columns an import writes only once the whole batch is in, because they refer to rows that refer
+   * back (a spot's baseline names one of its own readings).
+   */
+  writeAfter?: string[];
   /** Rows nested inside each row, written after it. */
   children?: BagTable[];
 }

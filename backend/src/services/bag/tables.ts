@@ -9,7 +9,7 @@ export interface CollectionTable {
   description: string;
   /** Order of the rows (SQL over alias `t`); the primary key when absent. */
   orderBy?: string;
-  /** A statement giving the rows in a different order, when parents must come before children. */
+  /** A statement giving the rows (as text, column `j`) in a different order, when parents must come before children. */
   fromSql?: string;
   /** What an import does when the empty installation already holds a row with the same key. */
   onConflict?: 'update';
@@ -26,7 +26,7 @@ export const COLLECTION_TABLES: readonly CollectionTable[] = [
     table: 'locations', description: 'Stores, cabinets, drawers, boxes: a tree (parent_id), parents first.',
     fromSql: `WITH RECURSIVE d AS (SELECT id, 0 AS depth FROM locations WHERE parent_id IS NULL
       UNION ALL SELECT l.id, d.depth + 1 FROM locations l JOIN d ON l.parent_id = d.id)
-      SELECT to_jsonb(t) AS j FROM locations t JOIN d USING (id) ORDER BY d.depth, t.id`,
+      SELECT to_jsonb(t)::text AS j FROM locations t JOIN d USING (id) ORDER BY d.depth, t.id`,
   },
   { table: 'condition_terms', description: 'The condition vocabulary: codes, labels, definitions.', orderBy: 't.code', onConflict: 'update' },
   { table: 'object_entries', description: 'Objects received (object entry): from whom, why, when, the entry number.' },

@@ -10,5 +10,6 @@ export const measurementSessions: PrintSection = {
 export const measurementSpots: PrintSection = {
   key: 'measurementSpots', table: 'measurement_spots', parentColumn: 'print_id', orderBy: 't.id',
   description: 'The spots measured on the print, each with its readings (colour and density) per session.',
+  writeAfter: ['baseline_session_id'],
   children: [{ key: 'readings', table: 'spot_readings', parentColumn: 'spot_id', orderBy: 't.session_id', description: 'One spot\'s reading in one session.' }],
 };
