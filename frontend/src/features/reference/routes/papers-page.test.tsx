@@ -20,7 +20,8 @@ describe('PapersPage', () => {
       'POST /api/papers': (request) => json({ data: { ...paper, ...(request.body as object), id: '99999999-9999-4999-8999-999999999999' } }, 201),
     });
     renderPage(<PapersPage />, { path: '/catalogue/papers', me: makeMe('registrar') });
-    expect(await screen.findByText('1955 to 1968')).toBeTruthy();
+    // The dates as a registrar writes them, the EDTF value in the tooltip.
+    expect((await screen.findByText('1955–1968')).getAttribute('title')).toBe('EDTF 1955/1968');
     fireEvent.click(screen.getByRole('button', { name: 'New paper' }));
     fireEvent.change(screen.getByLabelText('Manufacturer'), { target: { value: 'Halden' } });
     fireEvent.change(screen.getByLabelText('Product'), { target: { value: 'Portrait Matt' } });
