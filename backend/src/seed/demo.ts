@@ -4,6 +4,7 @@ import { env } from '../config/env';
 import { Setting, User } from '../models';
 import { recordAudit } from '../services/audit.service';
 import { DEMO_ACCOUNTS } from './demo-accounts';
+import { seedDemoProceduresIfEmpty } from './demo-procedures';
 import { seedDemoCatalogue } from './demo-catalogue';
 import { seedDemoClimate } from './demo-climate';
 import { seedDemoCondition } from './demo-condition';
@@ -77,7 +78,8 @@ export async function seedDemoIfEmpty(sequelize: Sequelize, options: SeedDemoOpt
   const seededLoans = await seedLoansIfEmpty(sequelize, log, signal);
   const seededClimate = await seedClimateIfEmpty(sequelize, log, signal);
   const seededSchedules = await seedSchedulesIfNew(sequelize, log, signal);
-  return seededUsers || seededCatalogue || seededHistories || seededLoans || seededClimate || seededSchedules;
+  const seededProcedures = await seedDemoProceduresIfEmpty(sequelize, log);
+  return seededUsers || seededCatalogue || seededHistories || seededLoans || seededClimate || seededSchedules || seededProcedures;
 }
 
 /**
