@@ -165,9 +165,7 @@ class Writer {
   async insert(table: string, rows: Row[]): Promise<void> {
     if (!this.schema.has(table) || !rows.length) return;
     if (table === 'users') rows = await this.matchUsers(rows);
-    for (const col of this.schema.userColumns(table)) {
-      for (const r of rows) if (typeof r[col] === 'string' && this.sameUser.has(r[col] as string)) r[col] = this.sameUser.get(r[col] as string);
-    }
+    this.mapUsers(table, rows);
     const present = new Set(rows.flatMap((r) => Object.keys(r)));
     const cols = this.schema.columns(table).filter((col) => present.has(col));
     if (!cols.length) return;
@@ -176,6 +174,13 @@ class Writer {
       ? ` ON CONFLICT (${this.schema.primaryKey(table).join(', ')}) DO UPDATE SET ${cols.map((col) => `"${col}" = EXCLUDED."${col}"`).join(', ')}`
       : '';
     await this.c.query(`INSERT INTO ${table} (${list}) SELECT ${list} FROM jsonb_populate_recordset(NULL::${table}, $1::jsonb)${conflict}`, [JSON.stringify(rows)]);
+  }
+
+  /** References to a person the installation already has under another id take that id. */
+  mapUsers(table: string, rows: Row[]): void {
+    for (const col of this.schema.userColumns(table)) {
+      for (const r of rows) if (typeof r[col] === 'string' && this.sameUser.has(r[col] as string)) r[col] = this.sameUser.get(r[col] as string);
+    }
   }
 
   /** People already here (same issuer and subject, or same email) keep their account; the others arrive with their ids. */
@@ -216,6 +221,7 @@ class Writer {
     }
     // Columns that refer to rows written after their own (a spot's baseline reading), once those are in.
     for (const { table, columns, rows } of later) {
+      this.mapUsers(table, rows);
       for (let i = 0; i < rows.length; i += ROWS_PER_WRITE) {
         await this.c.query(
           `UPDATE ${table} t SET ${columns.map((c) => `"${c}" = r."${c}"`).join(', ')} FROM jsonb_populate_recordset(NULL::${table}, $1::jsonb) r WHERE t.id = r.id`,

@@ -10,6 +10,7 @@ export const measurementSessions: PrintSection = {
 export const measurementSpots: PrintSection = {
   key: 'measurementSpots', table: 'measurement_spots', parentColumn: 'print_id', orderBy: 't.id',
   description: 'The spots measured on the print, each with its readings (colour and density) per session.',
-  writeAfter: ['baseline_session_id'],
+  // The baseline columns go together (a check constraint), written once the readings are in.
+  writeAfter: ['baseline_session_id', 'baseline_chosen_at', 'baseline_reason', 'baseline_chosen_by'],
   children: [{ key: 'readings', table: 'spot_readings', parentColumn: 'spot_id', orderBy: 't.session_id', description: 'One spot\'s reading in one session.' }],
 };
