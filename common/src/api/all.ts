@@ -27,8 +27,8 @@ export const allContracts: Record<string, Contract> = {
   locationsApi, catalogueSettingsApi, imagesApi, fixityApi, iiifApi, conditionSettingsApi, conditionTermsApi, reportsApi, measurementSettingsApi,
   measurementsApi, exhibitionsApi, displaysApi, lightApi, lightSettingsApi, loansApi,
   climateApi, climateSettingsApi, scheduleApi, roundsApi, remindersApi, researchApi,
-  treatmentsApi, entriesApi, acquisitionsApi, deaccessionsApi, voidsApi,
   exportsApi,
   bulkApi, savedSearchesApi,
+  treatmentsApi, entriesApi, acquisitionsApi, deaccessionsApi, voidsApi,
   preservationApi,
 };

@@ -41,14 +41,14 @@ export const PERMISSIONS = {
   'images.read': ['admin', 'registrar', 'conservator', 'researcher', 'viewer'],
   'images.write': ['admin', 'registrar', 'conservator'],
   'images.original': ['admin', 'registrar', 'conservator', 'researcher'],
+  /** Reading fixity alerts (images whose check failed): conservators care for the images too. */
+  'fixity.read': ['admin', 'conservator'],
   'fixity.manage': ['admin'],
   'measurements.read': ['admin', 'registrar', 'conservator', 'researcher'],
   'measurements.write': ['conservator'],
   /** Loans and exhibitions: everyone reads them (values need `valuation.read`); registrars manage them. */
   'loans.read': ['admin', 'registrar', 'conservator', 'researcher', 'viewer'],
   'loans.write': ['admin', 'registrar'],
-  /** Reading fixity alerts (images whose check failed): conservators care for the images too. */
-  'fixity.read': ['admin', 'conservator'],
   /** Display periods (dates, illuminance, hours): registrars plan them, conservators record the conditions. */
   'displays.write': ['admin', 'registrar', 'conservator'],
   /** Approving or refusing a print for display, with a reason. */

@@ -103,10 +103,10 @@ export const spotAnalysisSchema = z.object({
   points: z.array(z.object({
     sessionId: id, measuredOn: isoDate, lab: labReadingSchema, comparable: z.boolean(), reason: z.string().nullable(),
     dE00: z.number().nullable(), dE76: z.number().nullable(), dL: z.number().nullable(), dC: z.number().nullable(), dH: z.number().nullable(),
-    dominant: z.string().nullable(), density: z.number().nullable(), dD: z.number().nullable(), densityLossPercent: z.number().nullable(),
-  })),
     /** CIEDE2000's ΔL′, ΔC′, ΔH′ (dL, dC, dH are CIELAB's ΔL*, ΔC*ab, ΔH*ab). */
     dLPrime: z.number().nullable(), dCPrime: z.number().nullable(), dHPrime: z.number().nullable(),
+    dominant: z.string().nullable(), density: z.number().nullable(), dD: z.number().nullable(), densityLossPercent: z.number().nullable(),
+  })),
   /** ΔE00 per year. */
   rate: rateSchema.nullable(),
   /** Density change in D per year (ΔD = D − D0 fitted; negative while the density falls). */
