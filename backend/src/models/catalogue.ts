@@ -101,6 +101,7 @@ export class Print extends Model<Attrs<Print>, Create<Print>> {
   declare inscriptions: string | null;
   declare provenance: string | null;
   declare creditLine: string | null;
+  declare rights: string | null;
   declare status: string;
   declare locationId: string | null;
   declare enclosureId: string | null;
@@ -272,6 +273,7 @@ export function initCatalogueModels(sequelize: Sequelize): void {
       inscriptions: DataTypes.TEXT,
       provenance: DataTypes.TEXT,
       creditLine: DataTypes.TEXT,
+      rights: DataTypes.TEXT,
       status: { type: DataTypes.TEXT, allowNull: false },
       locationId: DataTypes.UUID,
       enclosureId: DataTypes.UUID,

@@ -2,6 +2,7 @@ import { QueryTypes } from 'sequelize';
 import type { ObjectStore } from '@toneledger/storage/object-store';
 import type { Role } from '@toneledger/common/domain/roles';
 import { PROCESS } from '@toneledger/common/schemas/vocab';
+import { canonicalRights, rightsLabel } from '@toneledger/common/domain/rights';
 import { VIEW_TYPE_LABELS } from '@toneledger/common/schemas/images';
 import { printListQuerySchema, type PrintListQuery } from '@toneledger/common/schemas/catalogue';
 import {
@@ -26,23 +27,17 @@ import { listPrints } from './print-list.service';
 const en = (text: string): LanguageMap => ({ en: [text] });
 const none = (text: string): LanguageMap => ({ none: [text] });
 
-/** Where rights may be given as a URI (§3.3.2 `rights`, recalled from memory): Creative Commons licences and RightsStatements.org statements. */
-const RIGHTS_HOSTS = ['creativecommons.org', 'rightsstatements.org'];
-
 /**
- * A rights text as IIIF takes it: a Creative Commons or RightsStatements.org URI goes in `rights`;
- * anything else (a sentence, another URI) is shown as a metadata entry instead.
+ * A rights value as IIIF takes it (§3.3.2 `rights`): a Creative Commons or RightsStatements.org URI,
+ * in its canonical http form (`domain/rights.ts`), goes in `rights`; anything else (a sentence, another
+ * site's address, written before the contract checked the field) is shown as a metadata entry instead.
  */
 export function rightsOf(text: string | null | undefined): { rights?: string; metadata?: { label: LanguageMap; value: LanguageMap } } {
   const value = text?.trim();
   if (!value) return {};
-  try {
-    const url = new URL(value);
-    const host = url.hostname.replace(/^www\./, '');
-    if ((url.protocol === 'http:' || url.protocol === 'https:') && RIGHTS_HOSTS.includes(host)) return { rights: `http://${host}${url.pathname}` };
-  } catch {
-    // Not a URI: shown as text.
-  }
+  const uri = canonicalRights(value);
+  // `rights` is for machines (a viewer may show an icon); the statement's words go in metadata for people (§3.3.2).
+  if (uri) return { rights: uri, metadata: { label: en('Rights statement'), value: en(rightsLabel(uri)!) } };
   return { metadata: { label: en('Rights'), value: en(value) } };
 }
 
@@ -95,7 +90,7 @@ export async function printManifest(store: ObjectStore, origin: string, printId:
     ...(print.dateDisplay ? [{ label: en('Date made'), value: en(print.dateDisplay) }] : []),
     ...(process ? [{ label: en('Process'), value: en(process) }] : []),
   ];
-  const rights = rightsOf((print as { rights?: string | null }).rights);
+  const rights = rightsOf(print.rights);
   if (rights.metadata) metadata.push(rights.metadata);
   const summary = [maker ?? 'Maker unknown', print.dateDisplay, process].filter(Boolean).join(', ');
   const first = canvases[0]?.thumbnail;

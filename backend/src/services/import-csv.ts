@@ -3,6 +3,7 @@ import { readersOf, typeLabel, type FieldSpec } from '@toneledger/common/fields/
 import { PRINT_FIELDS } from '@toneledger/common/fields/print';
 import { STEP_FIELDS } from '@toneledger/common/fields/step';
 import { ROLE_LABELS } from '@toneledger/common/domain/roles';
+import { RIGHTS_CHOICES } from '@toneledger/common/domain/rights';
 import { validationFailed } from '../errors';
 import { fromCsvCell, toCsv, type CsvCell } from './csv-cells';
 
@@ -98,6 +99,7 @@ const plain = (text: string) => text.replace(/\s+/g, ' ').trim();
 function noteFor(f: FieldSpec): string {
   const parts = [`# ${f.column}: ${f.label}${f.unit ? ` (${f.unit})` : ''}.`, f.required ? 'Required.' : 'Optional.', `${typeLabel(f.type)}.`];
   if (f.type.kind === 'code' || f.type.kind === 'codes') parts.push(`Codes: ${f.type.codes.join(' | ')}.`);
+  if (f.type.kind === 'rights') parts.push(`Common choices: ${RIGHTS_CHOICES.map((c) => c.uri).join(' | ')}.`);
   if (f.default) parts.push(`Empty: ${f.default}.`);
   if (f.read !== 'catalogue.read') parts.push(`Read only by: ${readersOf(f).map((r) => ROLE_LABELS[r]).join(' | ')}.`);
   parts.push(plain(f.description));

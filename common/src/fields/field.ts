@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { CURRENCY_CODES } from '../domain/currencies';
+import { canonicalRights, RIGHTS_MESSAGE } from '../domain/rights';
 import { can, rolesWith, type Role } from '../domain/roles';
 import { id } from '../schemas/primitives';
 
@@ -28,6 +29,7 @@ export type FieldType =
   | { kind: 'codes'; vocabulary: string; codes: readonly string[]; labels: Record<string, string> }
   | { kind: 'reference'; to: ReferenceTo; matchedBy: string }
   | { kind: 'currency' }
+  | { kind: 'rights' }
   | { kind: 'yes_no' }
   | { kind: 'duration' }
   | { kind: 'id' }
@@ -137,6 +139,23 @@ export function currency() {
     input: z.preprocess(
       (v) => (typeof v === 'string' ? (v.trim() === '' ? null : v.trim().toUpperCase()) : v),
       z.enum(CURRENCY_CODES, { error: (issue) => `${JSON.stringify(issue.input)} is not an ISO 4217 currency code (such as GBP, EUR or USD)` }).nullable(),
+    ).optional(),
+    output: z.string().nullable(),
+  };
+}
+
+/**
+ * A rights statement as IIIF Presentation 3.0 takes it in `rights`: one URI of a Creative Commons
+ * licence or public-domain tool, or a RightsStatements.org statement (`domain/rights.ts`), optional.
+ * A value is kept in its canonical form (http, closing slash: an https address or a deed page is the
+ * same licence); anything else, a sentence or another site's address, is refused, never guessed at.
+ */
+export function rights() {
+  return {
+    type: { kind: 'rights' } as const, required: false, default: null,
+    input: z.preprocess(
+      (v) => (typeof v === 'string' ? (v.trim() === '' ? null : canonicalRights(v) ?? v.trim()) : v),
+      z.string().max(200, 'At most 200 characters').refine((v) => canonicalRights(v) === v, RIGHTS_MESSAGE).nullable(),
     ).optional(),
     output: z.string().nullable(),
   };
@@ -304,6 +323,7 @@ export function typeLabel(type: FieldType): string {
     case 'codes': return `Codes from ${type.vocabulary}, separated by ;`;
     case 'reference': return `A ${type.to} in the catalogue, by ${type.matchedBy}`;
     case 'currency': return 'Currency code (ISO 4217, three letters, e.g. GBP, EUR, USD)';
+    case 'rights': return 'A rights statement URI (a Creative Commons licence or public-domain tool, or a RightsStatements.org statement)';
     case 'yes_no': return 'yes, no, or empty for unknown';
     case 'duration': return 'Seconds, or minutes and seconds as m:ss';
     case 'id': return 'Record id (UUID)';

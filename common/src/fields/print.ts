@@ -3,7 +3,7 @@ import type { CompatibilityCode } from '../domain/compatibility';
 import { id } from '../schemas/primitives';
 import { LIGHT_RESPONSIVITY, PAT_RESULT, PROCESS, STATUS, SUPPORT, TONER_CLASS } from '../schemas/vocab';
 import {
-  amount, code, enteredFields, codeAsked, codeWithDefault, codes, currency, edtf, labeller, longText, millimetres, reference, requiredText, text,
+  amount, code, enteredFields, rights, codeAsked, codeWithDefault, codes, currency, edtf, labeller, longText, millimetres, reference, requiredText, text,
   type FieldSpec,
 } from './field';
 
@@ -130,6 +130,15 @@ export const PRINT_FIELDS = [
   {
     key: 'creditLine', inputKey: 'creditLine', label: 'Credit line', column: 'credit_line', read: R, origin: 'entered',
     ...text(500), example: 'Gift of Wenna Trask, 1987', description: 'The wording to use when the print is shown or reproduced.',
+  },
+  {
+    key: 'rights', inputKey: 'rights', label: 'Rights statement', column: 'rights', read: R, origin: 'entered',
+    ...rights(), example: 'http://rightsstatements.org/vocab/InC/1.0/',
+    description:
+      'The copyright status of the print and what others may do with its images, as the URI of a Creative Commons licence or public-domain tool ' +
+      '(http://creativecommons.org/licenses/by-nc/4.0/) or a RightsStatements.org statement (http://rightsstatements.org/vocab/InC-RUU/1.0/). ' +
+      "IIIF manifests carry it as `rights`; the credit line goes with it as the manifest's required statement.",
+    importNote: 'An https address, a missing closing slash or a licence\'s deed page is read as the licence; any other text is refused.',
   },
   {
     key: 'staffNotes', inputKey: 'staffNotes', label: 'Staff notes', column: 'staff_notes', read: RESTRICTED, origin: 'entered',

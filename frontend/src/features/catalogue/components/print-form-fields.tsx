@@ -2,6 +2,7 @@ import { useMemo } from 'react';
 import { useFormContext, useWatch } from 'react-hook-form';
 import { accessionRule, checkAccession } from '@toneledger/common/domain/accession';
 import { CURRENCIES } from '@toneledger/common/domain/currencies';
+import { RIGHTS_CHOICES, RIGHTS_GROUP_LABELS, rightsLabel, type RightsGroup } from '@toneledger/common/domain/rights';
 import { can } from '@toneledger/common/domain/roles';
 import { parseEdtf } from '@toneledger/common/domain/edtf';
 import type { Enclosure, Print } from '@toneledger/common/schemas/catalogue';
@@ -23,6 +24,32 @@ const legend = 'px-1 font-serif text-lg font-semibold';
 
 function bufferingText(value: boolean | null): string {
   return value === true ? 'alkaline-buffered' : value === false ? 'unbuffered' : 'buffering unknown';
+}
+
+const RIGHTS_GROUPS = Object.keys(RIGHTS_GROUP_LABELS) as RightsGroup[];
+
+/**
+ * The rights statement: the Creative Commons licences and public-domain tools and the
+ * RightsStatements.org statements, by their plain labels (the value is the URI the manifest carries).
+ * A saved URI that is not one of the choices (an older licence from an import) stays offered as it is.
+ */
+function RightsSelect() {
+  const value = (useWatch({ name: 'rights' }) as string | undefined) ?? '';
+  const listed = value === '' || RIGHTS_CHOICES.some((c) => c.uri === value);
+  return (
+    <SelectInput name="rights" label={L.rights} empty={NOT_RECORDED} hint="Shown to IIIF viewers with the credit line">
+      {listed ? null : <option value={value}>{rightsLabel(value)}</option>}
+      {RIGHTS_GROUPS.map((group) => (
+        <optgroup key={group} label={RIGHTS_GROUP_LABELS[group]}>
+          {RIGHTS_CHOICES.filter((c) => c.group === group).map((c) => (
+            <option key={c.uri} value={c.uri}>
+              {c.label}
+            </option>
+          ))}
+        </optgroup>
+      ))}
+    </SelectInput>
+  );
 }
 
 /** The accession number against the pattern from the settings, as typed (only when it differs from the saved one). */
@@ -176,6 +203,7 @@ export function PrintFormFields({ creating, print, pattern }: { creating: boolea
         <TextAreaInput name="inscriptions" label={L.inscriptions} />
         <TextAreaInput name="provenance" label={L.provenance} />
         <TextInput name="creditLine" label={L.creditLine} />
+        <RightsSelect />
       </fieldset>
       <fieldset className={`${box} sm:grid-cols-2`}>
         <legend className={legend}>Staff only</legend>

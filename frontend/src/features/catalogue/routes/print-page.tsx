@@ -1,5 +1,6 @@
 import { useId, useState, type ComponentType, type ReactNode } from 'react';
 import { Link, useParams } from 'react-router-dom';
+import { rightsLabel } from '@toneledger/common/domain/rights';
 import { can } from '@toneledger/common/domain/roles';
 import type { Print } from '@toneledger/common/schemas/catalogue';
 import type { TimelineEntry } from '@toneledger/common/schemas/images';
@@ -197,6 +198,7 @@ function PrintView({ print, panels }: { print: Print; panels: readonly PrintPage
               <TextBlock term="Inscriptions" value={print.inscriptions} />
               <TextBlock term="Provenance" value={print.provenance} />
               <TextBlock term="Credit line" value={print.creditLine} />
+              <TextBlock term="Rights statement" value={rightsLabel(print.rights)} />
             </div>
           </Panel>
           {restricted && (print.staffNotes !== undefined || print.valuationAmount !== undefined) ? (

@@ -1,5 +1,6 @@
 import { useId, type ReactNode } from 'react';
 import { Link, useParams } from 'react-router-dom';
+import { rightsLabel } from '@toneledger/common/domain/rights';
 import { can } from '@toneledger/common/domain/roles';
 import { edtfAsWritten } from '@toneledger/common/domain/edtf-words';
 import { PROCESS, STATUS, SUPPORT, TONER_CLASS } from '@toneledger/common/schemas/vocab';
@@ -89,6 +90,7 @@ export function PrintSheetPage() {
             <Row term="Date made">{p.dateMade ? `${edtfAsWritten(p.dateMade)} (EDTF ${p.dateMade})` : none}</Row>
             <Row term="Status">{STATUS.labels[p.status]}</Row>
             <Row term="Credit line">{p.creditLine ?? none}</Row>
+            <Row term="Rights statement">{p.rights ? <>{rightsLabel(p.rights)} <span className="mono">{p.rights}</span></> : none}</Row>
           </dl>
         </Section>
 
