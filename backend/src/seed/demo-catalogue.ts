@@ -8,7 +8,9 @@ import { db } from '../db';
 import { BathRecipe, EnclosureType, Location, Maker, Paper, Print, ProcessStep } from '../models';
 import { createReference, enclosures, locations, makers, papers, recipes } from '../services/reference.service';
 import { createPrint, movePrint, replaceSteps } from '../services/print.service';
+import { placedAtFor } from './demo-times';
 import { putCatalogueSettings } from '../services/settings.service';
+import { recordAudit } from '../services/audit.service';
 import { DEMO_INSTITUTION } from './demo-accounts';
 import { inPool } from './pool';
 
@@ -529,6 +531,25 @@ interface Lot {
   size: number;
   provenance: string;
   credit: string;
+  how: 'gift' | 'purchase' | 'bequest';
+  donor: string;
+}
+
+const RS = (code: string) => `http://rightsstatements.org/vocab/${code}/1.0/`;
+
+/**
+ * The rights statement of a lot's prints (invented, and drawn without the random sequence, so the rest
+ * of the demo is unchanged): a living photographer's own gift under CC BY-NC 4.0, other work of living
+ * photographers and of estates in copyright (InC), a maker whose heirs were never traced InC-RUU, early
+ * purchases whose rights were never settled UND; the latest lots are not assessed yet (none).
+ */
+function rightsFor(lot: Lot): string | null {
+  const living = lot.maker.lifeDates.endsWith('/..');
+  if (lot.year >= 2022) return null;
+  if (living && lot.how === 'gift' && lot.donor === 'the photographer') return 'http://creativecommons.org/licenses/by-nc/4.0/';
+  if (lot.maker.lifeDates.includes('?')) return RS('InC-RUU');
+  if (!living && lot.how === 'purchase' && lot.year < 1990) return RS('UND');
+  return RS('InC');
 }
 
 function planLots(r: Rng, target: number): Lot[] {
@@ -551,7 +572,7 @@ function planLots(r: Rng, target: number): Lot[] {
       how === 'gift' ? `${DEMO_INSTITUTION}. Gift of ${donor}, ${year}`
         : how === 'purchase' ? `${DEMO_INSTITUTION}. Purchased with the support of the ${r.pick(FUNDS)}, ${year}`
           : `${DEMO_INSTITUTION}. Bequest of ${donor}, ${year}`;
-    lots.push({ year, number, maker, size, provenance, credit });
+    lots.push({ year, number, maker, size, provenance, credit, how, donor });
     total += size;
   }
   return lots;
@@ -641,6 +662,7 @@ function planPrints(r: Rng, ids: Ids, target: number): PlannedPrint[] {
         inscriptions: inscriptionFor(r, m, year, toning),
         provenance: lot.provenance,
         creditLine: lot.credit,
+        rights: rightsFor(lot),
         status,
         enclosureId: enc(enclosure),
         staffNotes,
@@ -698,6 +720,16 @@ function hashOf(text: string): number {
 async function existingOr(find: () => Promise<{ id: string } | null>, create: () => Promise<{ id: string }>, signal?: AbortSignal): Promise<string> {
   signal?.throwIfAborted();
   return (await find())?.id ?? (await create()).id;
+}
+
+/** Marks a demo print deaccessioned (the day, if any, comes with its deaccession record in demo-procedures.ts). */
+async function markDeaccessioned(id: string, actor: SeedActor & { role: 'registrar' }, requestId: string): Promise<void> {
+  await db().transaction(async (t) => {
+    const [row] = await db().query<{ status: string }>('SELECT status FROM prints WHERE id = $1 FOR UPDATE', { bind: [id], type: QueryTypes.SELECT, transaction: t });
+    if (row.status === 'deaccessioned') return;
+    await db().query("UPDATE prints SET status = 'deaccessioned', version = version + 1 WHERE id = $1", { bind: [id], transaction: t });
+    await recordAudit({ actor, action: 'print.updated', entityType: 'print', entityId: id, before: { status: row.status }, after: { status: 'deaccessioned' }, requestId }, t);
+  });
 }
 
 /** Builds the invented collection through the real services. Returns how many prints it wrote. */
@@ -762,14 +794,19 @@ export async function seedDemoCatalogue(actor: SeedActor, log: (m: string) => vo
     // A print an interrupted seed wrote is completed (its steps, its move), not written again.
     const earlier = await Print.findOne({ where: { accessionNumber: p.input.accessionNumber }, attributes: ['id', 'version', 'locationId'] });
     signal?.throwIfAborted();
+    // A deaccessioned print is catalogued first and marked deaccessioned once its history is written
+    // (the record of a deaccessioned print is read-only).
+    const gone = p.input.status === 'deaccessioned';
+    const placedAt = placedAtFor(p.input.accessionNumber, prng(hashOf(`placed:${p.input.accessionNumber}`)).int);
     const created = earlier
       ? { id: earlier.id, version: earlier.version, locationId: earlier.locationId, hasSteps: (await ProcessStep.count({ where: { printId: earlier.id } })) > 0 }
-      : await createPrint(p.input, who, requestId).then((c) => ({ id: c.id, version: c.version, locationId: c.location?.id ?? null, hasSteps: false }));
+      : await createPrint(gone ? { ...p.input, status: 'in_store' } : p.input, who, requestId, { placedAt }).then((c) => ({ id: c.id, version: c.version, locationId: c.location?.id ?? null, hasSteps: false }));
     let version = created.version;
     if (p.steps.length && !created.hasSteps) {
       signal?.throwIfAborted();
       version = (await replaceSteps(created.id, { version, steps: p.steps }, who, requestId)).version;
     }
+    if (gone) await markDeaccessioned(created.id, who, requestId);
     if (p.move && ids.locations.get(p.move.to) !== created.locationId) {
       signal?.throwIfAborted();
       await movePrint(created.id, { toLocationId: ids.locations.get(p.move.to)!, reason: p.move.reason, version }, who, requestId);

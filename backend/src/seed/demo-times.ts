@@ -39,3 +39,15 @@ export function copySetupFor(date: string): CopySetup {
   const year = Number(date.slice(0, 4));
   return COPY_SETUPS.find((k) => year <= k.until)!;
 }
+
+/**
+ * When a demo print was first put in its place: on a day of the December of the year in its accession
+ * number (the year the Trust accessioned it), after that year's entries and acquisitions (the demo's
+ * 2019 gift was acquired in June), at 11:00 UTC; never after `now`. `pick` chooses the day (1–20).
+ */
+export function placedAtFor(accessionNumber: string, pick: (min: number, max: number) => number, now = new Date()): Date | undefined {
+  const year = /^(\d{4})\./.exec(accessionNumber)?.[1];
+  if (!year) return undefined;
+  const at = new Date(`${year}-12-${String(pick(1, 20)).padStart(2, '0')}T11:00:00Z`);
+  return at > now ? now : at;
+}

@@ -93,9 +93,13 @@ export async function storeWarnings(p: LoadedPrint, t: Transaction) {
   await storeLightDerived(p.id, t);
 }
 
-export async function createPrint(input: PrintInput, actor: Actor, requestId: string | null) {
+/**
+ * `options.placedAt` dates the first placement; only the demo seed gives it (an invented print
+ * accessioned long ago was placed then). The API never passes it: a print created today is placed now.
+ */
+export async function createPrint(input: PrintInput, actor: Actor, requestId: string | null, options: { placedAt?: Date } = {}) {
   const accessionNumber = await checkAccessionNumber(input.accessionNumber);
-  return db().transaction((t) => insertPrint({ ...input, accessionNumber }, actor, requestId, t));
+  return db().transaction((t) => insertPrint({ ...input, accessionNumber }, actor, requestId, t, { placedAt: options.placedAt }));
 }
 
 /**
@@ -103,7 +107,7 @@ export async function createPrint(input: PrintInput, actor: Actor, requestId: st
  * the `print.created` audit row. The accession number is taken as given (`createPrint` checks it
  * against the pattern first; a borrowed print keeps its lender's number unchecked).
  */
-export async function insertPrint(input: PrintInput, actor: Actor, requestId: string | null, t: Transaction, options: { borrowed?: boolean } = {}) {
+export async function insertPrint(input: PrintInput, actor: Actor, requestId: string | null, t: Transaction, options: { borrowed?: boolean; placedAt?: Date } = {}) {
   const accessionNumber = input.accessionNumber;
   await checkReferences(input, t);
   const { locationId, ...fields } = input;
@@ -115,7 +119,7 @@ export async function insertPrint(input: PrintInput, actor: Actor, requestId: st
     rethrowUnique(err, 'accessionNumber', DUPLICATE);
   }
   if (locationId) {
-    await Movement.create({ printId: print.id, fromLocationId: null, toLocationId: locationId, movedBy: actor.id, movedByName: actor.name, reason: 'First placement at cataloguing' }, { transaction: t });
+    await Movement.create({ printId: print.id, fromLocationId: null, toLocationId: locationId, ...(options.placedAt ? { movedAt: options.placedAt } : {}), movedBy: actor.id, movedByName: actor.name, reason: 'First placement at cataloguing' }, { transaction: t });
   }
   const loaded = await loadPrint(print.id, t);
   await storeWarnings(loaded, t);
