@@ -22,3 +22,5 @@ export async function printIdByAccession(accessionNumber: string): Promise<strin
   const hit = (page as unknown as { id: string; accessionNumber: string }[]).find((p) => p.accessionNumber === accessionNumber);
   return hit?.id ?? null;
 }
+export const useUpdateEntry = () => useRefresh(({ id, body }: { id: string; body: BodyIn<typeof entriesApi.update> }) => callData(entriesApi.update, { params: { id }, body }));
+export const useUpdateAcquisition = () => useRefresh(({ id, body }: { id: string; body: BodyIn<typeof acquisitionsApi.update> }) => callData(acquisitionsApi.update, { params: { id }, body }));

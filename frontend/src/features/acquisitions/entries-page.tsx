@@ -14,6 +14,7 @@ import { useMe } from '@/lib/auth';
 import { useSchemaForm } from '@/lib/forms/use-schema-form';
 import { useDocumentTitle } from '@/lib/use-document-title';
 import { useAcquisitions, useCreateEntry, useEntries } from '@/features/acquisitions/api';
+import { AcquisitionEditForm } from '@/features/acquisitions/edit-forms';
 
 const today = () => new Date().toISOString().slice(0, 10);
 
@@ -51,6 +52,7 @@ export function EntriesPage() {
   const entries = useEntries();
   const acquisitions = useAcquisitions();
   const [adding, setAdding] = useState(false);
+  const [editing, setEditing] = useState<string | null>(null);
   const writer = can(me.role, 'acquisitions.write');
   return (
     <section>
@@ -78,18 +80,28 @@ export function EntriesPage() {
       <h2 className="mb-2 text-lg">Acquisitions</h2>
       {acquisitions.isPending ? <Loading label="Loading…" /> : acquisitions.isError ? <ErrorNotice error={acquisitions.error} /> : (
         <table className="w-full text-sm">
-          <thead><tr className="text-left"><th>Acquired</th><th>Source</th><th>Method</th><th>Title document</th><th>Entry</th><th>Prints</th></tr></thead>
+          <thead><tr className="text-left"><th>Acquired</th><th>Source</th><th>Method</th><th>Title document</th><th>Entry</th><th>Prints</th>{writer ? <th><span className="sr-only">Actions</span></th> : null}</tr></thead>
           <tbody>
             {acquisitions.data.map((a) => (
               <tr key={a.id} className="border-t border-paper-300">
                 <td>{a.acquiredOn}</td><td>{a.source}</td><td>{ACQUISITION_METHOD.labels[a.method]}</td><td>{a.titleDocument ?? '—'}</td>
                 <td>{a.entryId ? <Link to={`/catalogue/entries/${a.entryId}`} className="mono">{a.entryNumber}</Link> : '—'}</td>
                 <td>{a.prints.map((p, i) => <span key={p.id}>{i ? ', ' : ''}<Link to={`/catalogue/prints/${p.id}`} className="mono">{p.accessionNumber}</Link></span>)}</td>
+                {writer ? <td><Button size="sm" onClick={() => setEditing(a.id)} aria-label={`Edit the acquisition from ${a.source}, ${a.acquiredOn}`}>Edit</Button></td> : null}
               </tr>
             ))}
           </tbody>
         </table>
       )}
+      {(() => {
+        const a = editing ? acquisitions.data?.find((x) => x.id === editing) : undefined;
+        return a ? (
+          <div className="mt-3 max-w-3xl rounded border border-paper-300 bg-white p-4">
+            <h2 className="text-lg">Edit the acquisition from {a.source}</h2>
+            <AcquisitionEditForm acquisition={a} onDone={() => setEditing(null)} />
+          </div>
+        ) : null;
+      })()}
     </section>
   );
 }

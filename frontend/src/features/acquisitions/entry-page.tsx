@@ -13,6 +13,7 @@ import { useMe } from '@/lib/auth';
 import { useSchemaForm } from '@/lib/forms/use-schema-form';
 import { useDocumentTitle } from '@/lib/use-document-title';
 import { printIdByAccession, useAcquisitions, useCreateAcquisition, useEntry, useLinkPrints } from '@/features/acquisitions/api';
+import { AcquisitionEditForm, EntryEditForm } from '@/features/acquisitions/edit-forms';
 
 const today = () => new Date().toISOString().slice(0, 10);
 
@@ -64,6 +65,7 @@ export function EntryPage() {
   const me = useMe();
   const q = useEntry(id);
   const acquisitions = useAcquisitions();
+  const [editing, setEditing] = useState<string | null>(null);
   useDocumentTitle(q.data ? `Object entry ${q.data.entryNumber}` : 'Object entry');
   if (q.isPending) return <Loading label="Loading…" />;
   if (q.isError) return <ErrorNotice error={q.error} title="The entry could not be loaded." />;
@@ -92,7 +94,11 @@ export function EntryPage() {
           <p className="border-t border-ink-700 pt-1">Signed by the depositor</p>
         </div>
       </section>
-      <div className="my-3 print:hidden"><Button onClick={() => window.print()}>Print the receipt</Button></div>
+      <div className="my-3 flex gap-2 print:hidden">
+        <Button onClick={() => window.print()}>Print the receipt</Button>
+        {writer && editing !== e.id ? <Button onClick={() => setEditing(e.id)}>Edit entry</Button> : null}
+      </div>
+      {writer && editing === e.id ? <EntryEditForm key={e.version} entry={e} onDone={() => setEditing(null)} /> : null}
       <section aria-label="Acquisitions" className="mt-4 print:hidden">
         <h2 className="mb-2 text-lg">Acquisitions from this entry</h2>
         {mine.length === 0 ? <p className="mb-3">None yet.</p> : mine.map((a) => (
@@ -100,6 +106,8 @@ export function EntryPage() {
             <p className="font-medium">{ACQUISITION_METHOD.labels[a.method]} from {a.source}, acquired {a.acquiredOn}{a.approvedOn ? ` (approved ${a.approvedOn})` : ''}</p>
             <p>{procedureLabelOf('titleDocument')}: {a.titleDocument ?? '—'} · {procedureLabelOf('funds')}: {a.funds ?? '—'}</p>
             <p>Accessioned prints: {a.prints.length ? a.prints.map((p, i) => <span key={p.id}>{i ? ', ' : ''}<Link to={`/catalogue/prints/${p.id}`} className="mono">{p.accessionNumber}</Link></span>) : 'none yet'}</p>
+            {writer && editing !== a.id ? <Button size="sm" className="mt-2" onClick={() => setEditing(a.id)}>Edit acquisition</Button> : null}
+            {writer && editing === a.id ? <AcquisitionEditForm acquisition={a} onDone={() => setEditing(null)} /> : null}
             {writer ? <LinkPrint acquisition={a} /> : null}
           </div>
         ))}
