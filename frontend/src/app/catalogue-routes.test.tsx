@@ -26,12 +26,12 @@ describe('catalogue area', () => {
   it('opens the print list with the sub-navigation a registrar may use', async () => {
     signedIn('registrar', '/catalogue');
     expect(await screen.findByRole('heading', { level: 1, name: 'Prints' })).toBeTruthy();
-    expect(await sections()).toEqual(['Prints', 'Import', 'Makers', 'Papers', 'Bath recipes', 'Locations', 'Enclosures', 'Data dictionary', 'Light budgets']);
+    expect(await sections()).toEqual(['Prints', 'Import', 'Entries and acquisitions', 'Makers', 'Papers', 'Bath recipes', 'Locations', 'Enclosures', 'Data dictionary', 'Light budgets']);
   });
 
   it('shows an administrator the settings as well', async () => {
     signedIn('admin', '/catalogue');
-    expect(await sections()).toEqual(['Prints', 'Import', 'Makers', 'Papers', 'Bath recipes', 'Locations', 'Enclosures', 'Data dictionary', 'Light budgets', 'Settings']);
+    expect(await sections()).toEqual(['Prints', 'Import', 'Entries and acquisitions', 'Makers', 'Papers', 'Bath recipes', 'Locations', 'Enclosures', 'Data dictionary', 'Light budgets', 'Settings']);
   });
 
   it('gives a viewer neither Import nor Locations', async () => {

@@ -19,7 +19,7 @@ function navLinks(role: Role, environment: 'development' | 'test' | 'production'
 describe('MainNav', () => {
   // Written out by hand from the product's role table, so a change to the permissions shows up here.
   const expected: Record<Role, string[]> = {
-    admin: ['Catalogue', 'Condition', 'Measurements', 'Loans', 'Exhibitions', 'Climate', 'Inspections', 'Research', 'People and roles', 'Audit trail', 'Outgoing mail', 'Weekly digests'],
+    admin: ['Catalogue', 'Condition', 'Measurements', 'Loans', 'Exhibitions', 'Climate', 'Inspections', 'Research', 'People and roles', 'Audit trail', 'Outgoing mail', 'Weekly digests', 'Preservation package'],
     registrar: ['Catalogue', 'Condition', 'Measurements', 'Loans', 'Exhibitions', 'Climate', 'Inspections'],
     conservator: ['Catalogue', 'Condition', 'Measurements', 'Loans', 'Exhibitions', 'Climate', 'Inspections', 'Research'],
     researcher: ['Catalogue', 'Condition', 'Measurements', 'Loans', 'Exhibitions', 'Climate', 'Inspections', 'Research'],
@@ -33,7 +33,7 @@ describe('MainNav', () => {
   it('groups the administration areas under their own heading, for administrators only', () => {
     navLinks('admin');
     const group = screen.getByRole('list', { name: 'Administration' });
-    expect(within(group).getAllByRole('link').map((link) => link.textContent)).toEqual(['People and roles', 'Audit trail', 'Outgoing mail', 'Weekly digests']);
+    expect(within(group).getAllByRole('link').map((link) => link.textContent)).toEqual(['People and roles', 'Audit trail', 'Outgoing mail', 'Weekly digests', 'Preservation package']);
   });
 
   it('has no administration group for other roles', () => {
