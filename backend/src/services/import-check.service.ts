@@ -109,6 +109,15 @@ function toningFrom(cell: string, state: RowState): ProcessStepInput[] {
  * Checks both files against the catalogue (`existing`: the prints with the file's accession
  * numbers) and plans every good row.
  */
+/** ' on YYYY-MM-DD' for a deaccession day as the driver reads it (a date column: text, or a Date at local midnight). */
+function dayText(value: unknown): string {
+  if (typeof value === 'string' && /^\d{4}-\d{2}-\d{2}/.test(value)) return ` on ${value.slice(0, 10)}`;
+  if (value instanceof Date && !Number.isNaN(value.getTime())) {
+    return ` on ${value.getFullYear()}-${String(value.getMonth() + 1).padStart(2, '0')}-${String(value.getDate()).padStart(2, '0')}`;
+  }
+  return '';
+}
+
 export function checkImport(prints: ReadFile, stepsFile: ReadFile | null, l: Lookups, existing: Map<string, Existing>): Plan {
   const issues: CsvIssue[] = [...prints.issues, ...(stepsFile?.issues ?? [])];
   const stepsByPrint = stepsFile ? readSteps(stepsFile, l, issues) : new Map<string, PrintSteps>();
@@ -216,6 +225,10 @@ export function checkImport(prints: ReadFile, stepsFile: ReadFile | null, l: Loo
         changes.push(...stepChanged);
         steps = fileSteps.steps.map((x) => x.input);
       }
+    }
+    if (changes.length && current.row.status === 'deaccessioned') {
+      state.add('accession_number', `This print was deaccessioned${dayText(current.row.deaccessioned_on)} (deaccessioned: read-only); leave its row out or as the print stands`);
+      continue;
     }
     rows.push({
       row, accessionNumber: accession, action: changes.length ? 'update' : 'unchanged', changes, newMaker: state.newMaker, steps, values,
