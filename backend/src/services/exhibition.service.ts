@@ -1,4 +1,4 @@
-import { QueryTypes, type Transaction } from 'sequelize';
+import { QueryTypes, Transaction } from 'sequelize';
 import type { z } from 'zod';
 import type {
   Exhibition as ExhibitionDto, ExhibitionDetail, approvalInputSchema, exhibitionInputSchema, exhibitionListQuerySchema, exhibitionObjectInputSchema,
@@ -43,24 +43,26 @@ export async function listExhibitions(query: ListQuery): Promise<{ rows: Exhibit
   }
   const from = `FROM exhibitions e JOIN LATERAL (SELECT min(opens_on) AS opens, max(closes_on) AS closes FROM exhibition_venues v WHERE v.exhibition_id = e.id) s ON true
     ${where.length ? `WHERE ${where.join(' AND ')}` : ''}`;
-  const [{ n }] = await db().query<{ n: number }>(`SELECT count(*)::int AS n ${from}`, { bind, type: QueryTypes.SELECT });
+  // One snapshot for the count, the page and its venues: an exhibition deleted by someone else between
+  // two of these reads would otherwise come back without its venues (and without dates).
+  return db().transaction({ isolationLevel: Transaction.ISOLATION_LEVELS.REPEATABLE_READ }, async (t) => {
+  const [{ n }] = await db().query<{ n: number }>(`SELECT count(*)::int AS n ${from}`, { bind, type: QueryTypes.SELECT, transaction: t });
   bind.push(query.pageSize, (query.page - 1) * query.pageSize);
   const ids = (await db().query<{ id: string }>(
     `SELECT e.id ${from} ORDER BY s.opens DESC NULLS LAST, e.title, e.id LIMIT $${bind.length - 1} OFFSET $${bind.length}`,
-    { bind, type: QueryTypes.SELECT },
+    { bind, type: QueryTypes.SELECT, transaction: t },
   )).map((r) => r.id);
   if (!ids.length) return { rows: [], total: n };
-  const [exhibitions, venues, counts] = await Promise.all([
-    Exhibition.findAll({ where: { id: ids } }),
-    ExhibitionVenue.findAll({ where: { exhibitionId: ids } }),
-    db().query<{ id: string; n: number }>(
-      `SELECT exhibition_id AS id, count(*)::int AS n FROM exhibition_objects WHERE exhibition_id = ANY ($1::uuid[]) GROUP BY exhibition_id`,
-      { bind: [ids], type: QueryTypes.SELECT },
-    ),
-  ]);
+  const exhibitions = await Exhibition.findAll({ where: { id: ids }, transaction: t });
+  const venues = await ExhibitionVenue.findAll({ where: { exhibitionId: ids }, transaction: t });
+  const counts = await db().query<{ id: string; n: number }>(
+    `SELECT exhibition_id AS id, count(*)::int AS n FROM exhibition_objects WHERE exhibition_id = ANY ($1::uuid[]) GROUP BY exhibition_id`,
+    { bind: [ids], type: QueryTypes.SELECT, transaction: t },
+  );
   const byId = new Map(exhibitions.map((e) => [e.id, e]));
   const count = new Map(counts.map((c) => [c.id, c.n]));
   return { rows: ids.map((id) => presentExhibition(byId.get(id)!, venues.filter((v) => v.exhibitionId === id), count.get(id) ?? 0)), total: n };
+  });
 }
 
 // ── Create, edit, delete ──

@@ -66,6 +66,23 @@ describe('exhibitions', () => {
     expect((await h.as('registrar').get(`/api/exhibitions/${e.id}`)).status).toBe(404);
   });
 
+  it('the list read while exhibitions are being deleted answers 200 with whole exhibitions (one snapshot), never an exhibition without its venues', async () => {
+    const statuses: number[] = [];
+    const bad: unknown[] = [];
+    for (let round = 0; round < 10; round += 1) {
+      const made = await Promise.all(Array.from({ length: 8 }, () => h.newExhibition(TOUR, 'Snapshot race')));
+      const lists = Array.from({ length: 8 }, () => h.as('viewer').get('/api/exhibitions?q=Snapshot%20race&pageSize=100'));
+      const deletes = made.map((e) => h.as('registrar').delete(`/api/exhibitions/${e.id}?version=${e.version}`));
+      for (const res of await Promise.all(lists)) {
+        statuses.push(res.status);
+        for (const x of res.body.data ?? []) if (!x.venues?.length || !x.opensOn) bad.push(x);
+      }
+      expect((await Promise.all(deletes)).map((r) => r.status)).toEqual(made.map(() => 200));
+    }
+    expect(statuses.filter((s) => s !== 200)).toEqual([]);
+    expect(bad).toEqual([]);
+  });
+
   it('the object list CSV has one row per display period with its lux-hours', async () => {
     const e = await h.newExhibition(TOUR, '=Checklist show');
     const p = await h.newPrint();
