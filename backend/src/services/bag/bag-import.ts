@@ -181,6 +181,10 @@ class Writer {
     for (const col of this.schema.userColumns(table)) {
       for (const r of rows) if (typeof r[col] === 'string' && this.sameUser.has(r[col] as string)) r[col] = this.sameUser.get(r[col] as string);
     }
+    // An event about a person (provisioned, role changed) names them by id too.
+    if (table === AUDIT_TABLE) {
+      for (const r of rows) if (r.entity_type === 'user' && typeof r.entity_id === 'string' && this.sameUser.has(r.entity_id)) r.entity_id = this.sameUser.get(r.entity_id);
+    }
   }
 
   /** People already here (same issuer and subject, or same email) keep their account; the others arrive with their ids. */
@@ -199,20 +203,22 @@ class Writer {
   /** A batch of print files: the prints, then each section's table (parents before their nested rows). */
   async insertPrints(docs: Row[]): Promise<void> {
     await this.insert('prints', docs.map((d) => d.print as Row));
-    const byTable = new Map<string, Row[]>();
+    // Rows are kept by the section or nested list they came from, not by table: one table can be nested
+    // in two places (addenda of a report and of a treatment), and each place is written in its turn.
+    const byPlace = new Map<BagTable, Row[]>();
     const collect = (t: BagTable, rows: unknown) => {
       if (!Array.isArray(rows)) return;
-      const list = byTable.get(t.table) ?? [];
+      const list = byPlace.get(t) ?? [];
       for (const row of rows as Row[]) {
         list.push(row);
         for (const child of t.children ?? []) collect(child, row[child.key]);
       }
-      byTable.set(t.table, list);
+      byPlace.set(t, list);
     };
     for (const s of PRINT_SECTIONS) for (const d of docs) collect(s, (d.sections as Record<string, unknown>)[s.key]);
     const later: { table: string; columns: string[]; rows: Row[] }[] = [];
     for (const t of PRINT_SECTIONS.flatMap(tablesOf)) {
-      let rows = byTable.get(t.table) ?? [];
+      let rows = byPlace.get(t) ?? [];
       if (t.writeAfter?.length && rows.length) {
         later.push({ table: t.table, columns: t.writeAfter, rows });
         rows = rows.map((r) => Object.fromEntries(Object.entries(r).filter(([k]) => !t.writeAfter!.includes(k))));
