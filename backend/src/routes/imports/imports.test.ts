@@ -143,6 +143,25 @@ describe('CSV import of prints', () => {
     expect(job).toMatchObject({ status: 'ready', totalRows: 1, toCreate: 1 });
   });
 
+  it('a rights column: a licence\'s deed page is kept as the licence URI, a sentence is refused by row and column; the template lists the choices', async () => {
+    const b = base();
+    const deed = 'https://creativecommons.org/licenses/by-nc/4.0/deed.en';
+    const bad = await upload(`accession_number,title,rights\n${b}.1,Pier lamps,${deed}\n${b}.2,Pier lamps at dusk,Copyright the Trust\n`);
+    const refused = await finished(bad.body.data.id);
+    expect(refused.status).toBe('invalid');
+    expect(refused.errors.map((e: { row: number; column: string }) => `${e.row}:${e.column}`)).toEqual(['3:rights']);
+    expect(refused.errors[0].message).toMatch(/Creative Commons licence or a RightsStatements\.org statement/);
+    const res = await upload(`accession_number,title,rights\n${b}.1,Pier lamps,${deed}\n${b}.2,Pier lamps at dusk,http://rightsstatements.org/vocab/InC-RUU/1.0/\n`);
+    const job = await finished(res.body.data.id);
+    expect(job.errors).toEqual([]);
+    expect((await supertest(t.app).post(`/api/imports/${job.id}/commit`).set('Cookie', registrar).set('Origin', t.origin).send({ mode: 'create_only' })).status).toBe(202);
+    expect(await finished(job.id)).toMatchObject({ status: 'committed', createdPrints: 2 });
+    expect((await Print.findOne({ where: { accessionNumber: `${b}.1` } }))!.rights).toBe('http://creativecommons.org/licenses/by-nc/4.0/');
+    expect((await Print.findOne({ where: { accessionNumber: `${b}.2` } }))!.rights).toBe('http://rightsstatements.org/vocab/InC-RUU/1.0/');
+    const template = (await supertest(t.app).get('/api/imports/template.csv').set('Cookie', registrar)).text;
+    expect(template).toMatch(/# rights: Rights statement\. Optional\. A rights statement URI .*http:\/\/rightsstatements\.org\/vocab\/UND\/1\.0\//);
+  });
+
   it('accession number and title alone import: every other field takes its default', async () => {
     const b = base();
     const res = await upload(`accession_number,title\n${b}.1,Only the essentials\n`);

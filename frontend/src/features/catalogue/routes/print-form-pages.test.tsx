@@ -265,3 +265,38 @@ describe('print form: valuation', () => {
     expect(body).not.toHaveProperty('valuationCurrency');
   });
 });
+
+describe('print form: rights statement', () => {
+  it('offers the licences and statements by plain labels in three groups, and sends the chosen URI', async () => {
+    const { requests } = renderCreate({ 'POST /api/prints': () => json({ data: makePrint() }, 201) });
+    const rights = (await screen.findByLabelText('Rights statement')) as HTMLSelectElement;
+    expect(rights.tagName).toBe('SELECT');
+    expect([...rights.querySelectorAll('optgroup')].map((g) => g.label)).toEqual(['Creative Commons licences', 'Public domain', 'RightsStatements.org statements']);
+    const options = within(rights).getAllByRole('option');
+    expect(options[0]!.textContent).toBe('Not recorded');
+    // 6 CC 4.0 licences + CC0 + Public Domain Mark + the 12 RightsStatements.org statements, and "Not recorded".
+    expect(options).toHaveLength(21);
+    expect(options.map((o) => o.textContent)).toContain('In copyright: rights-holder(s) unlocatable or unidentifiable');
+    fireEvent.change(screen.getByLabelText('Accession number'), { target: { value: '2001.4.2' } });
+    fireEvent.change(screen.getByLabelText('Title'), { target: { value: 'Pier lamps' } });
+    fireEvent.change(rights, { target: { value: 'http://rightsstatements.org/vocab/InC-RUU/1.0/' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Save' }));
+    await waitFor(() => expect(requests.some((r) => r.method === 'POST')).toBe(true));
+    expect(requests.find((r) => r.method === 'POST')?.body).toMatchObject({ rights: 'http://rightsstatements.org/vocab/InC-RUU/1.0/' });
+  });
+
+  it('keeps a saved licence that is not among the choices, by its name, and does not send it unchanged', async () => {
+    const saved = 'http://creativecommons.org/licenses/by-sa/3.0/de/';
+    const { requests, router } = renderEdit({
+      [`GET /api/prints/${PRINT_ID}`]: () => json({ data: makePrint({ rights: saved }) }),
+      [`PATCH /api/prints/${PRINT_ID}`]: () => json({ data: makePrint({ rights: saved, title: 'Pier lamps', version: 4 }) }),
+    });
+    const rights = (await screen.findByLabelText('Rights statement')) as HTMLSelectElement;
+    await waitFor(() => expect(rights.value).toBe(saved));
+    expect(rights.selectedOptions[0]!.textContent).toBe('Creative Commons Attribution-ShareAlike 3.0 (de) (CC BY-SA 3.0)');
+    fireEvent.change(screen.getByLabelText('Title'), { target: { value: 'Pier lamps' } });
+    fireEvent.click(screen.getByRole('button', { name: 'Save' }));
+    await waitFor(() => expect(router.state.location.pathname).toBe(`/catalogue/prints/${PRINT_ID}`));
+    expect(requests.find((r) => r.method === 'PATCH')?.body).toEqual({ version: 3, title: 'Pier lamps' });
+  });
+});
