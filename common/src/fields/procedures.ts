@@ -89,3 +89,7 @@ export const procedureLabelOf = labeller([
   ...TREATMENT_PROPOSAL_FIELDS, ...TREATMENT_APPROVAL_FIELDS, ...TREATMENT_RECORD_FIELDS, ...ENTRY_FIELDS, ...ACQUISITION_FIELDS,
   ...DEACCESSION_PROPOSAL_FIELDS, ...DEACCESSION_APPROVAL_FIELDS, ...DEACCESSION_COMPLETION_FIELDS,
 ]);
+
+/** Labels of one record's fields (keys such as `reason`, `method` and `approvedOn` are shared between records, with different labels). */
+export const entryLabelOf = labeller(ENTRY_FIELDS);
+export const acquisitionLabelOf = labeller(ACQUISITION_FIELDS);

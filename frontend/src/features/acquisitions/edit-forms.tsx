@@ -1,4 +1,4 @@
-import { ACQUISITION_FIELDS, ENTRY_FIELDS, procedureLabelOf } from '@toneledger/common/fields/procedures';
+import { ACQUISITION_FIELDS, ENTRY_FIELDS, acquisitionLabelOf, entryLabelOf } from '@toneledger/common/fields/procedures';
 import {
   acquisitionInputSchema, acquisitionSchema, entryInputSchema, entrySchema, type Acquisition, type ObjectEntry,
 } from '@toneledger/common/schemas/acquisitions';
@@ -60,14 +60,14 @@ export function EntryEditForm({ entry, onDone }: { entry: ObjectEntry; onDone: (
     >
       <h2 className="text-lg">Edit entry {entry.entryNumber}</h2>
       <p className="text-sm text-ink-700">The entry number stays; the date of entry stays in its year.</p>
-      <DateInput name="enteredOn" label={procedureLabelOf('enteredOn')} />
-      <TextInput name="depositor" label={procedureLabelOf('depositor')} />
-      <TextAreaInput name="depositorContact" label={procedureLabelOf('depositorContact')} rows={2} />
-      <SelectInput name="reason" label={procedureLabelOf('reason')} options={ENTRY_REASON.options} />
-      <NumberInput name="objectCount" label={procedureLabelOf('objectCount')} inputMode="numeric" />
-      <TextAreaInput name="objectsDescription" label={procedureLabelOf('objectsDescription')} rows={3} />
-      <DateInput name="returnBy" label={procedureLabelOf('returnBy')} />
-      <TextAreaInput name="notes" label={procedureLabelOf('notes')} rows={2} />
+      <DateInput name="enteredOn" label={entryLabelOf('enteredOn')} />
+      <TextInput name="depositor" label={entryLabelOf('depositor')} />
+      <TextAreaInput name="depositorContact" label={entryLabelOf('depositorContact')} rows={2} />
+      <SelectInput name="reason" label={entryLabelOf('reason')} options={ENTRY_REASON.options} />
+      <NumberInput name="objectCount" label={entryLabelOf('objectCount')} inputMode="numeric" />
+      <TextAreaInput name="objectsDescription" label={entryLabelOf('objectsDescription')} rows={3} />
+      <DateInput name="returnBy" label={entryLabelOf('returnBy')} />
+      <TextAreaInput name="notes" label={entryLabelOf('notes')} rows={2} />
       <SubmitCancel label="Save the entry" busy={save.isPending} busyLabel="Saving…" onCancel={onDone} />
     </SchemaForm>
   );
@@ -96,13 +96,13 @@ export function AcquisitionEditForm({ acquisition, onDone }: { acquisition: Acqu
         save.mutate({ id: acquisition.id, body: changesOnly(body, changed, base.version) as never }, { onSuccess: (saved) => { edit.saved(saved); onDone(); }, onError: edit.failed });
       }}
     >
-      <TextInput name="source" label={procedureLabelOf('source')} />
-      <SelectInput name="method" label={procedureLabelOf('method')} options={ACQUISITION_METHOD.options} />
-      <DateInput name="approvedOn" label={procedureLabelOf('approvedOn')} />
-      <DateInput name="acquiredOn" label={procedureLabelOf('acquiredOn')} />
-      <TextInput name="titleDocument" label={procedureLabelOf('titleDocument')} />
-      <TextInput name="funds" label={procedureLabelOf('funds')} />
-      <TextAreaInput name="notes" label={procedureLabelOf('notes')} rows={2} />
+      <TextInput name="source" label={acquisitionLabelOf('source')} />
+      <SelectInput name="method" label={acquisitionLabelOf('method')} options={ACQUISITION_METHOD.options} />
+      <DateInput name="approvedOn" label={acquisitionLabelOf('approvedOn')} />
+      <DateInput name="acquiredOn" label={acquisitionLabelOf('acquiredOn')} />
+      <TextInput name="titleDocument" label={acquisitionLabelOf('titleDocument')} />
+      <TextInput name="funds" label={acquisitionLabelOf('funds')} />
+      <TextAreaInput name="notes" label={acquisitionLabelOf('notes')} rows={2} />
       <SubmitCancel label="Save the acquisition" busy={save.isPending} busyLabel="Saving…" onCancel={onDone} size="sm" />
     </SchemaForm>
   );

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { can } from '@toneledger/common/domain/roles';
-import { procedureLabelOf } from '@toneledger/common/fields/procedures';
+import { entryLabelOf } from '@toneledger/common/fields/procedures';
 import { entryInputSchema } from '@toneledger/common/schemas/acquisitions';
 import { ACQUISITION_METHOD, ENTRY_REASON } from '@toneledger/common/schemas/procedure-vocab';
 import { DateInput, NumberInput, SelectInput, TextAreaInput, TextInput } from '@/components/form/fields';
@@ -29,14 +29,14 @@ function EntryForm({ onCancel }: { onCancel: () => void }) {
     <SchemaForm form={form} onValid={(body) => create.mutate(body, { onSuccess: (e) => navigate(`/catalogue/entries/${e.id}`), onError: form.serverError })} failureTitle="The entry was not saved." className="mb-6 max-w-3xl gap-3 rounded border border-paper-300 bg-white p-4">
       <h2 className="text-lg">New object entry</h2>
       <p className="text-sm text-ink-700">The entry number is given when it is saved (E, the year of entry, then the next number).</p>
-      <DateInput name="enteredOn" label={procedureLabelOf('enteredOn')} />
-      <TextInput name="depositor" label={procedureLabelOf('depositor')} />
-      <TextAreaInput name="depositorContact" label={procedureLabelOf('depositorContact')} rows={2} />
-      <SelectInput name="reason" label={procedureLabelOf('reason')} options={ENTRY_REASON.options} />
-      <NumberInput name="objectCount" label={procedureLabelOf('objectCount')} inputMode="numeric" />
-      <TextAreaInput name="objectsDescription" label={procedureLabelOf('objectsDescription')} rows={3} />
-      <DateInput name="returnBy" label={procedureLabelOf('returnBy')} />
-      <TextAreaInput name="notes" label={procedureLabelOf('notes')} rows={2} />
+      <DateInput name="enteredOn" label={entryLabelOf('enteredOn')} />
+      <TextInput name="depositor" label={entryLabelOf('depositor')} />
+      <TextAreaInput name="depositorContact" label={entryLabelOf('depositorContact')} rows={2} />
+      <SelectInput name="reason" label={entryLabelOf('reason')} options={ENTRY_REASON.options} />
+      <NumberInput name="objectCount" label={entryLabelOf('objectCount')} inputMode="numeric" />
+      <TextAreaInput name="objectsDescription" label={entryLabelOf('objectsDescription')} rows={3} />
+      <DateInput name="returnBy" label={entryLabelOf('returnBy')} />
+      <TextAreaInput name="notes" label={entryLabelOf('notes')} rows={2} />
       <div className="flex gap-2">
         <Button type="submit" variant="primary" disabled={create.isPending}>Save and open the receipt</Button>
         <Button onClick={onCancel}>Cancel</Button>

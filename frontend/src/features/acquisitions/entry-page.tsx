@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { can } from '@toneledger/common/domain/roles';
-import { procedureLabelOf } from '@toneledger/common/fields/procedures';
+import { acquisitionLabelOf, entryLabelOf } from '@toneledger/common/fields/procedures';
 import { acquisitionInputSchema } from '@toneledger/common/schemas/acquisitions';
 import { ACQUISITION_METHOD, ENTRY_REASON } from '@toneledger/common/schemas/procedure-vocab';
 import { DateInput, SelectInput, TextAreaInput, TextInput } from '@/components/form/fields';
@@ -25,13 +25,13 @@ function AcquisitionForm({ entryId, depositor }: { entryId: string; depositor: s
   });
   return (
     <SchemaForm form={form} onValid={(body) => create.mutate(body, { onSuccess: () => form.reset(), onError: form.serverError })} failureTitle="The acquisition was not saved." className="gap-3">
-      <TextInput name="source" label={procedureLabelOf('source')} />
-      <SelectInput name="method" label={procedureLabelOf('method')} options={ACQUISITION_METHOD.options} />
-      <DateInput name="approvedOn" label={procedureLabelOf('approvedOn')} />
-      <DateInput name="acquiredOn" label={procedureLabelOf('acquiredOn')} />
-      <TextInput name="titleDocument" label={procedureLabelOf('titleDocument')} />
-      <TextInput name="funds" label={procedureLabelOf('funds')} />
-      <TextAreaInput name="notes" label={procedureLabelOf('notes')} rows={2} />
+      <TextInput name="source" label={acquisitionLabelOf('source')} />
+      <SelectInput name="method" label={acquisitionLabelOf('method')} options={ACQUISITION_METHOD.options} />
+      <DateInput name="approvedOn" label={acquisitionLabelOf('approvedOn')} />
+      <DateInput name="acquiredOn" label={acquisitionLabelOf('acquiredOn')} />
+      <TextInput name="titleDocument" label={acquisitionLabelOf('titleDocument')} />
+      <TextInput name="funds" label={acquisitionLabelOf('funds')} />
+      <TextAreaInput name="notes" label={acquisitionLabelOf('notes')} rows={2} />
       <div><Button type="submit" variant="primary" disabled={create.isPending}>Record the acquisition</Button></div>
     </SchemaForm>
   );
@@ -79,14 +79,14 @@ export function EntryPage() {
         <h1 className="text-xl">Receipt for objects left with the collection</h1>
         <p className="mono mb-3 text-lg">{e.entryNumber}</p>
         <dl className="grid gap-2 sm:grid-cols-2">
-          <div><dt className="text-sm text-ink-700">{procedureLabelOf('enteredOn')}</dt><dd>{e.enteredOn}</dd></div>
-          <div><dt className="text-sm text-ink-700">{procedureLabelOf('reason')}</dt><dd>{ENTRY_REASON.labels[e.reason]}</dd></div>
-          <div><dt className="text-sm text-ink-700">{procedureLabelOf('depositor')}</dt><dd>{e.depositor}</dd></div>
-          <div><dt className="text-sm text-ink-700">{procedureLabelOf('depositorContact')}</dt><dd className="whitespace-pre-wrap">{e.depositorContact ?? '—'}</dd></div>
-          <div><dt className="text-sm text-ink-700">{procedureLabelOf('objectCount')}</dt><dd>{e.objectCount}</dd></div>
-          <div><dt className="text-sm text-ink-700">{procedureLabelOf('returnBy')}</dt><dd>{e.returnBy ?? '—'}</dd></div>
+          <div><dt className="text-sm text-ink-700">{entryLabelOf('enteredOn')}</dt><dd>{e.enteredOn}</dd></div>
+          <div><dt className="text-sm text-ink-700">{entryLabelOf('reason')}</dt><dd>{ENTRY_REASON.labels[e.reason]}</dd></div>
+          <div><dt className="text-sm text-ink-700">{entryLabelOf('depositor')}</dt><dd>{e.depositor}</dd></div>
+          <div><dt className="text-sm text-ink-700">{entryLabelOf('depositorContact')}</dt><dd className="whitespace-pre-wrap">{e.depositorContact ?? '—'}</dd></div>
+          <div><dt className="text-sm text-ink-700">{entryLabelOf('objectCount')}</dt><dd>{e.objectCount}</dd></div>
+          <div><dt className="text-sm text-ink-700">{entryLabelOf('returnBy')}</dt><dd>{e.returnBy ?? '—'}</dd></div>
         </dl>
-        <h2 className="mt-3 font-medium">{procedureLabelOf('objectsDescription')}</h2>
+        <h2 className="mt-3 font-medium">{entryLabelOf('objectsDescription')}</h2>
         <p className="whitespace-pre-wrap">{e.objectsDescription}</p>
         <p className="mt-4 text-sm">Received by {e.receivedBy}. The objects are held for the reason above and remain the depositor&rsquo;s property until title passes in writing.</p>
         <div className="mt-8 grid grid-cols-2 gap-8 text-sm">
@@ -98,20 +98,20 @@ export function EntryPage() {
         <Button onClick={() => window.print()}>Print the receipt</Button>
         {writer && editing !== e.id ? <Button onClick={() => setEditing(e.id)}>Edit entry</Button> : null}
       </div>
-      {writer && editing === e.id ? <EntryEditForm key={e.version} entry={e} onDone={() => setEditing(null)} /> : null}
+      {writer && editing === e.id ? <EntryEditForm entry={e} onDone={() => setEditing(null)} /> : null}
       <section aria-label="Acquisitions" className="mt-4 print:hidden">
         <h2 className="mb-2 text-lg">Acquisitions from this entry</h2>
         {mine.length === 0 ? <p className="mb-3">None yet.</p> : mine.map((a) => (
           <div key={a.id} className="mb-3 rounded border border-paper-300 bg-white p-3 text-sm">
             <p className="font-medium">{ACQUISITION_METHOD.labels[a.method]} from {a.source}, acquired {a.acquiredOn}{a.approvedOn ? ` (approved ${a.approvedOn})` : ''}</p>
-            <p>{procedureLabelOf('titleDocument')}: {a.titleDocument ?? '—'} · {procedureLabelOf('funds')}: {a.funds ?? '—'}</p>
+            <p>{acquisitionLabelOf('titleDocument')}: {a.titleDocument ?? '—'} · {acquisitionLabelOf('funds')}: {a.funds ?? '—'}</p>
             <p>Accessioned prints: {a.prints.length ? a.prints.map((p, i) => <span key={p.id}>{i ? ', ' : ''}<Link to={`/catalogue/prints/${p.id}`} className="mono">{p.accessionNumber}</Link></span>) : 'none yet'}</p>
             {writer && editing !== a.id ? <Button size="sm" className="mt-2" onClick={() => setEditing(a.id)}>Edit acquisition</Button> : null}
             {writer && editing === a.id ? <AcquisitionEditForm acquisition={a} onDone={() => setEditing(null)} /> : null}
             {writer ? <LinkPrint acquisition={a} /> : null}
           </div>
         ))}
-        {writer ? <details className="rounded border border-paper-300 bg-white p-3"><summary>Record an acquisition</summary><AcquisitionForm entryId={e.id} depositor={e.depositor} /></details> : null}
+        {writer ? <details className="rounded border border-paper-300 bg-white p-3"><summary>Record an acquisition</summary><AcquisitionForm key={e.depositor} entryId={e.id} depositor={e.depositor} /></details> : null}
       </section>
     </article>
   );

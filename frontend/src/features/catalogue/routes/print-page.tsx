@@ -138,7 +138,8 @@ function RehouseOffer({ print }: { print: Print }) {
 
 function PrintView({ print, panels }: { print: Print; panels: readonly PrintPagePanel[] }) {
   const me = useMe();
-  const mayWrite = can(me.role, 'catalogue.write');
+  // A deaccessioned print's record is read-only (the server refuses every change): no edit is offered.
+  const mayWrite = can(me.role, 'catalogue.write') && print.status !== 'deaccessioned';
   const restricted = can(me.role, 'catalogue.read_restricted');
   const valuation = can(me.role, 'valuation.read');
   const chemistry = print.steps.some((s) => s.type === 'toning' || s.type === 'after_bath' || s.recipe);
@@ -222,8 +223,8 @@ function PrintView({ print, panels }: { print: Print; panels: readonly PrintPage
         <div className="flex min-w-0 flex-col gap-5">
           <LatestRecto printId={print.id} accessionNumber={print.accessionNumber} />
           <WarningsPanel warnings={print.warnings} />
-          <RehouseOffer print={print} />
-          {restricted ? <LocationPanel print={print} mayMove={can(me.role, 'prints.move')} /> : null}
+          {print.status !== 'deaccessioned' ? <RehouseOffer print={print} /> : null}
+          {restricted ? <LocationPanel print={print} mayMove={can(me.role, 'prints.move') && print.status !== 'deaccessioned'} /> : null}
           <TimelinePanel printId={print.id} />
           {restricted ? <HistoryList printId={print.id} accessionNumber={print.accessionNumber} /> : null}
         </div>
