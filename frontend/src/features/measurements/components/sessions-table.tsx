@@ -46,13 +46,14 @@ const sessionColumns = [
     cell: (info) => (
       <ul className={`num flex flex-col gap-1 ${info.row.original.voided ? 'line-through' : ''}`}>
         {info.row.original.readings.map((r) => (
-          <li key={r.spotId} className="whitespace-nowrap">
-            <span className="font-medium">{r.spotName}</span>: {formatNumber(r.mean.L)} {formatNumber(r.mean.a)} {formatNumber(r.mean.b)}
-            <span className="text-ink-700">
-              {' '}
-              · n = {r.n}
-              {r.sd ? ` · sd ${formatNumber(r.sd.L)} / ${formatNumber(r.sd.a)} / ${formatNumber(r.sd.b)}` : ''}
-              {r.density !== null ? ` · D ${formatNumber(r.density)}${r.densityType === 'status_a' ? ' (Status A)' : r.densityType === 'visual' ? ' (visual)' : ''}` : ''}
+          // The spot's name may wrap, each figure keeps together and the spread and density wrap between
+          // figures, so the table fits a 1440 px screen with four spots of long names (e2e/measurements-width.e2e.ts).
+          <li key={r.spotId}>
+            <span className="font-medium">{r.spotName}</span>: <span className="whitespace-nowrap">{formatNumber(r.mean.L)} {formatNumber(r.mean.a)} {formatNumber(r.mean.b)}</span>
+            <span className="block text-ink-700">
+              <span className="whitespace-nowrap">n = {r.n}</span>
+              {r.sd ? <> · <span className="whitespace-nowrap">sd {formatNumber(r.sd.L)} / {formatNumber(r.sd.a)} / {formatNumber(r.sd.b)}</span></> : null}
+              {r.density !== null ? <> · <span className="whitespace-nowrap">D {formatNumber(r.density)}{r.densityType === 'status_a' ? ' (Status A)' : r.densityType === 'visual' ? ' (visual)' : ''}</span></> : null}
             </span>
           </li>
         ))}
