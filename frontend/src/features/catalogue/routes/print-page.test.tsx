@@ -91,6 +91,19 @@ describe('PrintPage', () => {
     expect(screen.getByRole('link', { name: 'Download JSON' }).getAttribute('href')).toBe(`/api/prints/${PRINT_ID}/export.json`);
   });
 
+  it('shows the rights statement by its words beside the credit line', async () => {
+    renderPrint('viewer', { ...toned, location: undefined, staffNotes: undefined, valuationAmount: undefined, valuationCurrency: undefined, creditLine: 'Calder Reach Photographic Trust. Gift of the maker', rights: 'http://rightsstatements.org/vocab/InC-RUU/1.0/' });
+    const rights = (await screen.findByRole('heading', { level: 3, name: 'Rights statement' })).parentElement!;
+    expect(rights.textContent).toBe('Rights statementIn copyright: rights-holder(s) unlocatable or unidentifiable');
+    expect(screen.getByText('Calder Reach Photographic Trust. Gift of the maker')).toBeTruthy();
+  });
+
+  it('says "Not recorded" for a print without a rights statement', async () => {
+    renderPrint('viewer', { ...toned, location: undefined, staffNotes: undefined, valuationAmount: undefined, valuationCurrency: undefined, rights: null });
+    const rights = (await screen.findByRole('heading', { level: 3, name: 'Rights statement' })).parentElement!;
+    expect(rights.textContent).toBe('Rights statementNot recorded');
+  });
+
   it('hides location, movements, history, staff notes, valuation and editing from a viewer', async () => {
     const { requests } = renderPrint('viewer', { ...toned, location: undefined, staffNotes: undefined, valuationAmount: undefined, valuationCurrency: undefined });
     await screen.findByRole('heading', { level: 1, name: '1987.14.3' });
