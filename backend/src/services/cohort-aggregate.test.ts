@@ -1,7 +1,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { describe as summarise } from '@toneledger/common/domain/distribution';
 import { testApp } from '../../test/app';
-import { QUARTILES, pickEvenly } from './cohort-aggregate';
+import { QUARTILES, keptRanks, pickEvenly } from './cohort-aggregate';
 import { pgRows } from './print-list.service';
 
 // The aggregated cohort statement computes quartiles with PostgreSQL's percentile_cont and picks the
@@ -36,15 +36,15 @@ describe('percentile_cont', () => {
   });
 });
 
-describe('the quartiles from the ranks', () => {
+describe('the quartiles from the sorted values', () => {
   it('equal percentile_cont exactly (same float8 operations), ties, small n and two groups included', async () => {
-    // The figures' statement ranks each rate once and reads the quartiles from the ranks (QUARTILES);
+    // The figures' statement sorts each rate once and reads the quartiles from the sorted array (QUARTILES);
     // percentile_cont, checked above against describe, is the reference, to the last bit.
     const lists = [[7], [1, 2], [3, 1, 2, 4], [1, 1, 1, 5, 9, 9], [0.1, 0.2, 0.3], values(11), values(12), values(1001), values(2000).map((v) => v / 7)];
     for (const list of lists) {
       const [row] = await pgRows<{ mine: number[]; pg: number[]; other: number[] }>(
         `WITH x AS (SELECT g, v FROM unnest($1::float8[]) WITH ORDINALITY AS u(v, i) CROSS JOIN (VALUES ('a'), ('b')) AS gs(g) WHERE g = 'a' OR i % 2 = 0),
-              r AS (SELECT g AS k0, NULL::text AS k1, 'de'::text AS metric, v, row_number() OVER (PARTITION BY g ORDER BY v) AS rn, count(*) OVER (PARTITION BY g) AS n FROM x)
+              s AS (SELECT g AS k0, NULL::text AS k1, 'de'::text AS metric, array_agg(v ORDER BY v) AS vs FROM x GROUP BY g)
          SELECT (SELECT qs FROM (${QUARTILES}) q WHERE k0 = 'a') AS mine,
                 (SELECT percentile_cont(ARRAY[0.25, 0.5, 0.75]) WITHIN GROUP (ORDER BY v) FROM x WHERE g = 'a') AS pg,
                 (SELECT json_build_array((SELECT qs FROM (${QUARTILES}) q WHERE k0 = 'b'), (SELECT to_json(percentile_cont(ARRAY[0.25, 0.5, 0.75]) WITHIN GROUP (ORDER BY v)) FROM x WHERE g = 'b'))) AS other`,
@@ -79,5 +79,15 @@ describe('the strip-plot points', () => {
         expect(ranks[i]! - ranks[i - 1]!).toBeLessThanOrEqual(Math.ceil(step));
       }
     }
+  });
+
+  it('are the ranks keptRanks lists without testing every rank', async () => {
+    // keptRanks tests only 1 + round(j·(n − 1)/(cap − 1)) ± 1; the reference is pickEvenly over every rank.
+    for (const [n, cap] of [[7, 10], [10, 10], [11, 5], [1001, 500], [200000, 500], [501, 500], [1000, 2], [12345, 37]] as const) {
+      const listed = (await pgRows<{ rn: number }>(`SELECT rn FROM (SELECT $1::int AS n) x CROSS JOIN LATERAL (${keptRanks('$2::int')}) k ORDER BY rn`, [n, cap])).map((r) => Number(r.rn));
+      expect(listed, `${n} of ${cap}`).toEqual(await picked(n, cap));
+    }
+    // No cap (the export): every rank.
+    expect((await pgRows<{ rn: number }>(`SELECT rn FROM (SELECT 4 AS n) x CROSS JOIN LATERAL (${keptRanks('NULL')}) k ORDER BY rn`, [])).map((r) => Number(r.rn))).toEqual([1, 2, 3, 4]);
   });
 });

@@ -13,7 +13,7 @@ import { cohortBase, type CohortSql } from './cohort-sql';
  *   so a strip plot of 200,000 prints keeps its shape; every print when the cap is null (the export);
  * - `survival`: (group, time, event, count) rows for the Kaplan–Meier curves and the log-rank test;
  * - `terms`: per group and term the prints with a signed report showing it;
- * - `cox`: (Cox values, time, event, count) per covariate pattern, one per print;
+ * - `cox`: the Cox values' distinct patterns, and per print (as columns) its pattern, time and event;
  * - `total`, `asOf` (the oldest `computed_at`) and the medians of number factors split at the median.
  *
  * A group's code comes from the raw value the same way `makeGrouping` labels it: bands by
@@ -26,20 +26,33 @@ export const pickEvenly = (rn: string, n: string, cap: string) =>
   `(${n} <= ${cap} OR (${rn} - 1) = round(round((${rn} - 1) * (${cap} - 1)::numeric / (${n} - 1)) * (${n} - 1) / (${cap} - 1)::numeric))`;
 
 /**
- * The quartiles of each group's rate from its ranked rows (`r`: rank `rn` of `n` by value), as
- * `percentile_cont(ARRAY[0.25, 0.5, 0.75])` computes them, without a sort of its own: for each p,
- * h = p·(n − 1) in float8, the values at ranks 1 + floor(h) and 1 + ceil(h), and lo + (h − floor(h))·(hi − lo)
- * (PostgreSQL's float8 interpolation, operation for operation), or lo when h is whole; R's type 7, the rule of
- * `describe`. `cohort-aggregate.test.ts` checks it equals `percentile_cont` exactly.
+ * The quartiles of each group's rate from its sorted values (`s`: the array `vs` of the group's
+ * values in ascending order, one row per group and rate), as `percentile_cont(ARRAY[0.25, 0.5, 0.75])`
+ * computes them, without a sort of its own: for each p, h = p·(n − 1) in float8, the values at ranks
+ * 1 + floor(h) and 1 + ceil(h), and lo + (h − floor(h))·(hi − lo) (PostgreSQL's float8 interpolation,
+ * operation for operation), or lo when h is whole; R's type 7, the rule of `describe`.
+ * `cohort-aggregate.test.ts` checks it equals `percentile_cont` exactly.
  */
 export const QUARTILES = `SELECT k0, k1, metric, json_build_array(${[0.25, 0.5, 0.75].map((p) => {
-  const h = `${p}::float8 * (n - 1)::float8`;
-  const lo = `min(v) FILTER (WHERE rn = 1 + floor(${h}))`;
-  const hi = `min(v) FILTER (WHERE rn = 1 + ceil(${h}))`;
+  const h = `${p}::float8 * (cardinality(vs) - 1)::float8`;
+  const lo = `vs[(1 + floor(${h}))::int]`;
+  const hi = `vs[(1 + ceil(${h}))::int]`;
   return `CASE WHEN ceil(${h}) > floor(${h}) THEN ${lo} + ((${h} - floor(${h})) * (${hi} - ${lo})) ELSE ${lo} END`;
 }).join(', ')}) AS qs
-    FROM r WHERE ${[0.25, 0.5, 0.75].map((p) => `rn IN (1 + floor(${p}::float8 * (n - 1)::float8), 1 + ceil(${p}::float8 * (n - 1)::float8))`).join(' OR ')}
-   GROUP BY k0, k1, metric, n`;
+    FROM s`;
+
+/**
+ * The ranks `pickEvenly` keeps of `n` (the column `n` of the row), as rows `rn`, without testing every
+ * rank: every kept rank is 1 + round(j·(n − 1)/(cap − 1)) for some j in 0..cap − 1 (the j the test
+ * itself rounds to), so these candidates, with their neighbours, are tested and the rest are not.
+ * Every rank when `cap` is NULL (the export) or n ≤ cap. `cohort-aggregate.test.ts` compares the two.
+ */
+export const keptRanks = (cap: string) => `SELECT rn FROM generate_series(1, CASE WHEN ${cap}::int IS NULL OR n <= ${cap}::int THEN n ELSE 0 END) AS rn
+    UNION
+    SELECT c.rn FROM generate_series(0, ${cap}::int - 1) AS j
+      CROSS JOIN LATERAL (VALUES (-1), (0), (1)) AS d(d)
+      CROSS JOIN LATERAL (SELECT (1 + round(j * (n - 1)::numeric / (${cap}::int - 1)) + d.d)::int AS rn) c
+     WHERE n > ${cap}::int AND c.rn BETWEEN 1 AND n AND ${pickEvenly('c.rn', 'n', `${cap}::int`)}`;
 
 export interface AggregateOptions {
   /** Location id → the name of the place under the filter it lies in (`placeGroups`). */
@@ -71,26 +84,33 @@ export function buildAggregateSql(q: CohortQuery, threshold: number, options: Ag
   const k1 = code(1, q.groupBy[1]);
   const med = `m AS (SELECT ${q.groupBy.map((f, i) => (COHORT_FACTORS[f].kind === 'number' && !q.bands?.[f] ? `(SELECT percentile_cont(0.5) WITHIN GROUP (ORDER BY g${i}::float8) FROM c)` : 'NULL::float8') + ` AS g${i}`).concat(q.groupBy.length < 1 ? ['NULL::float8 AS g0'] : [], q.groupBy.length < 2 ? ['NULL::float8 AS g1'] : []).join(', ')})`;
   const cap = options.pointsCap === null ? 'NULL' : bind(options.pointsCap, 'int');
-  // Each rate ranked once per group (one sort): the ranks give both the quartiles (`QUARTILES`) and
-  // the strip-plot points; the accession numbers are read for the kept points only.
-  const ranked = (col: string, metric: string) => `SELECT k0, k1, '${metric}'::text AS metric, id, ${col} AS v,
-           row_number() OVER (PARTITION BY k0, k1 ORDER BY ${col}, id) AS rn, count(*) OVER (PARTITION BY k0, k1) AS n
-      FROM k WHERE ${col} IS NOT NULL`;
-  const keep = options.pointsCap === null ? 'true' : pickEvenly('rn', 'n', cap);
+  // Each rate sorted per group: the values alone (a sort of plain numbers) for the quartiles
+  // (`QUARTILES`), the print ids by value then id for the strip-plot points by rank (the value at a
+  // rank is the same in both orders); the accession numbers are read for the kept points only.
+  const sorted = (col: string, metric: string) => `SELECT k0, k1, '${metric}'::text AS metric,
+           array_agg(${col} ORDER BY ${col}) AS vs, array_agg(id ORDER BY ${col}, id) AS ids
+      FROM k WHERE ${col} IS NOT NULL GROUP BY k0, k1`;
   // Prints, not rows: grouped by toner class, a print toned twice has a row in each group (\`first\` marks one of them).
   const perPrint = q.groupBy.includes('tonerClass') ? 'count(*) FILTER (WHERE first)' : 'count(*)';
+  // The Cox rows, one per print, in columns: the distinct covariate patterns once, then per print its
+  // pattern's index, time and event (the five factors and the day made 181,688 patterns of 200,000
+  // prints, so grouping by pattern saved nothing and its rows of JSON cost more than the rest).
+  const coxRows = `SELECT x, time, event FROM c WHERE time IS NOT NULL${q.groupBy.includes('tonerClass') ? ' AND first' : ''}`;
   const cox = q.coxFactors.length
-    ? `(SELECT json_agg(json_build_array(x, time, event, n)) FROM (SELECT x, time, event, ${perPrint}::int AS n FROM c WHERE time IS NOT NULL GROUP BY x, time, event) x)`
+    ? `(WITH cr AS MATERIALIZED (${coxRows}),
+             pat AS MATERIALIZED (SELECT x, (row_number() OVER ())::int - 1 AS i FROM (SELECT DISTINCT x FROM cr) d)
+        SELECT json_build_array((SELECT json_agg(x ORDER BY i) FROM pat), array_agg(pat.i), array_agg(cr.time), array_agg(cr.event))
+          FROM cr JOIN pat ON pat.x = cr.x)`
     : 'NULL::json';
   const dist = (metric: string, col: string) => `json_build_array(count(${col}), min(${col}), max(${col}),
                    (SELECT q.qs FROM qs q WHERE q.metric = '${metric}' AND q.k0 IS NOT DISTINCT FROM k.k0 AND q.k1 IS NOT DISTINCT FROM k.k1))`;
   const text = `${head}c AS MATERIALIZED (${c}),
 ${med},
 k AS MATERIALIZED (SELECT c.*, ${k0} AS k0, ${k1} AS k1 FROM c CROSS JOIN m),
-r AS MATERIALIZED (
-  ${ranked('de_per_year', 'de')}
+s AS MATERIALIZED (
+  ${sorted('de_per_year', 'de')}
   UNION ALL
-  ${ranked('density_loss_per_year', 'dl')}),
+  ${sorted('density_loss_per_year', 'dl')}),
 qs AS MATERIALIZED (${QUARTILES}),
 g AS (SELECT k0, k1, count(*)::int AS size, count(de_per_year)::int AS with_rate, count(time)::int AS with_survival,
              (count(*) FILTER (WHERE has_report))::int AS reports, ${dist('de', 'de_per_year')} AS de, ${dist('dl', 'density_loss_per_year')} AS dl
@@ -99,8 +119,9 @@ SELECT (SELECT ${perPrint} FROM c)::int AS total,
        (SELECT min(computed_at) FROM c) AS as_of,
        (SELECT json_build_array(g0, g1) FROM m) AS medians,
        (SELECT json_agg(json_build_array(k0, k1, size, with_rate, with_survival, reports, de, dl)) FROM g) AS groups,
-       (SELECT json_agg(json_build_array(k0, k1, metric, id, (SELECT pr.accession_number FROM prints pr WHERE pr.id = r.id), v) ORDER BY metric, k0, k1, rn)
-          FROM r WHERE ${keep}) AS points,
+       (SELECT json_agg(json_build_array(k0, k1, metric, id, (SELECT pc.accession_number FROM print_cohort pc WHERE pc.print_id = pt.id), v) ORDER BY metric, k0, k1, rn)
+          FROM (SELECT s.k0, s.k1, s.metric, kr.rn, s.ids[kr.rn] AS id, s.vs[kr.rn] AS v
+                  FROM (SELECT s.*, cardinality(s.vs) AS n FROM s) s CROSS JOIN LATERAL (${keptRanks(cap)}) kr) pt) AS points,
        (SELECT json_agg(json_build_array(k0, k1, time, event, n)) FROM (
           SELECT k0, k1, time, event, count(*)::int AS n FROM k WHERE time IS NOT NULL GROUP BY k0, k1, time, event) s) AS survival,
        (SELECT json_agg(json_build_array(k0, k1, term, n)) FROM (
@@ -120,5 +141,6 @@ export interface AggregateAnswer {
   points: [string | null, string | null, 'de' | 'dl', string, string, number][] | null;
   survival: [string | null, string | null, number, boolean, number][] | null;
   terms: [string | null, string | null, string, number][] | null;
-  cox: [(string | null)[] | null, number, boolean, number][] | null;
+  /** The Cox rows: the covariate patterns, then per print its pattern's index, time and event. */
+  cox: [(string | null)[][] | null, number[], number[], boolean[]] | null;
 }

@@ -4,63 +4,56 @@ import type { CohortQuery } from '@toneledger/common/schemas/research';
 /**
  * The cohort statement: one parameterised SELECT per question, built from `COHORT_FACTORS`. Each
  * factor has one SQL expression here (never text from the request; every value of the query is a
- * bind parameter) and names the joins it needs, so a query over the catalogue alone joins nothing
- * else. The statement returns one row per print of the cohort (one per toner class when grouping by
- * `tonerClass`: a print toned twice belongs to both groups) with the raw values of the grouping and
- * Cox factors, its fading rates from `print_outcomes`, and its survival time and event for the
+ * bind parameter), a column of the flat `print_cohort` table, which the statement reads alone (it
+ * joins `print_outcomes` for a term's first day, and `prints` for the accession order and title of
+ * the prints behind a figure). The statement returns one row per print of the cohort (one per toner
+ * class when grouping by `tonerClass`: a print toned twice belongs to both groups) with the raw
+ * values of the grouping and Cox factors, its fading rates, and its survival time and event for the
  * question's event and origin. Groups, bands and figures are assembled by `cohort.service.ts`.
  */
 
-type Need = 'steps' | 'paper' | 'enclosure' | 'outcomes';
-/** The aggregates over a print's process steps a factor reads (columns of `print_step_factors`). */
-type StepColumn = 'n' | 'toned' | 'seq' | 'toning_min' | 'extent' | 'wash_min' | 'hypo' | 'alk_yes' | 'alk_unknown';
-interface FactorSql { expr: string; needs: Need[]; steps?: StepColumn[] }
-
-const flag = (yes: string, no: string) => `CASE WHEN ${yes} THEN 'yes' WHEN ${no} THEN 'no' ELSE 'unknown' END`;
-
-/** The expression of each factor (text for choice/text/flag, float8 for number and year, uuid for place). */
-export const FACTOR_SQL: Record<CohortFactorCode, FactorSql> = {
-  process: { expr: 'p.process', needs: [] },
-  support: { expr: 'p.support', needs: [] },
-  paperBase: { expr: 'pa.base', needs: ['paper'] },
-  paperSurface: { expr: 'pa.surface', needs: ['paper'] },
-  paperTint: { expr: 'pa.base_tint', needs: ['paper'] },
-  // A print toned with two classes has both; the Cox model and a single value take the first.
-  tonerClass: { expr: 'p.toner_classes[1]', needs: [] },
-  toned: { expr: flag('st.toned', 'st.n > 0'), needs: ['steps'], steps: ['n', 'toned'] },
-  tonerSequence: { expr: 'st.seq', needs: ['steps'], steps: ['seq'] },
-  ferricyanideGL: { expr: 'o.ferricyanide_gl', needs: ['outcomes'] },
-  acidGL: { expr: 'o.acid_gl', needs: ['outcomes'] },
-  toningMinutes: { expr: 'st.toning_min', needs: ['steps'], steps: ['toning_min'] },
-  toningExtent: { expr: 'st.extent', needs: ['steps'], steps: ['extent'] },
-  washingMinutes: { expr: 'st.wash_min', needs: ['steps'], steps: ['wash_min'] },
-  hypoClearing: { expr: flag('st.hypo', 'st.n > 0'), needs: ['steps'], steps: ['n', 'hypo'] },
-  alkalineAfterBath: { expr: flag('st.alk_yes', 'st.n > 0 AND NOT st.alk_unknown'), needs: ['steps'], steps: ['n', 'alk_yes', 'alk_unknown'] },
-  enclosureType: { expr: 'et.name', needs: ['enclosure'] },
-  enclosureBuffered: { expr: flag('et.alkaline_buffered', 'et.alkaline_buffered = false'), needs: ['enclosure'] },
-  location: { expr: 'p.location_id', needs: [] },
-  climatePermanence: { expr: 'o.climate_permanence', needs: ['outcomes'] },
-  lightBand: { expr: `CASE WHEN p.over_light_budget THEN 'over' WHEN EXISTS (SELECT 1 FROM display_periods d WHERE d.print_id = p.id) THEN 'within' ELSE 'none' END`, needs: [] },
-  dateMade: { expr: 'extract(year FROM p.date_earliest)::float8', needs: [] },
-  maker: { expr: 'p.maker_name', needs: [] },
-};
+/** The source tables a statement joins beside `print_cohort`: the outcomes' arrays and terms, the print's title. */
+type Need = 'outcomes' | 'print';
+interface FactorSql { expr: string }
 
 /**
- * The step aggregates come from `print_step_factors`, one row per print with steps, kept by triggers
- * on `process_steps` in the transaction that changes them (migration 20261203100000): a cohort query
- * never aggregates the steps. A print without steps has no row, so every step factor reads "unknown"
- * or null for it.
+ * The expression of each factor (text for choice/text/flag, float8 for number and year, uuid for
+ * place): a column of `print_cohort` (migration 20261203190000), which holds every factor already
+ * derived (flags as 'yes'/'no'/'unknown', the light band, the year made) and the outcomes a cohort
+ * reads, kept by triggers on every table a factor comes from, in the transaction that changes it.
  */
-const STEPS_JOIN = 'LEFT JOIN print_step_factors st ON st.print_id = p.id';
-
-const JOINS: Record<Need, string> = {
-  paper: 'LEFT JOIN papers pa ON pa.id = p.paper_id',
-  enclosure: 'LEFT JOIN enclosure_types et ON et.id = p.enclosure_id',
-  outcomes: 'LEFT JOIN print_outcomes o ON o.print_id = p.id',
-  steps: STEPS_JOIN,
+export const FACTOR_SQL: Record<CohortFactorCode, FactorSql> = {
+  process: { expr: 'p.process' },
+  support: { expr: 'p.support' },
+  paperBase: { expr: 'p.paper_base' },
+  paperSurface: { expr: 'p.paper_surface' },
+  paperTint: { expr: 'p.paper_tint' },
+  // A print toned with two classes has both; the Cox model and a single value take the first.
+  tonerClass: { expr: 'p.toner_class' },
+  toned: { expr: 'p.toned' },
+  tonerSequence: { expr: 'p.toner_sequence' },
+  ferricyanideGL: { expr: 'p.ferricyanide_gl' },
+  acidGL: { expr: 'p.acid_gl' },
+  toningMinutes: { expr: 'p.toning_min' },
+  toningExtent: { expr: 'p.toning_extent' },
+  washingMinutes: { expr: 'p.wash_min' },
+  hypoClearing: { expr: 'p.hypo_clearing' },
+  alkalineAfterBath: { expr: 'p.alkaline_after_bath' },
+  enclosureType: { expr: 'p.enclosure_type' },
+  enclosureBuffered: { expr: 'p.enclosure_buffered' },
+  location: { expr: 'p.location_id' },
+  climatePermanence: { expr: 'p.climate_permanence' },
+  lightBand: { expr: 'p.light_band' },
+  dateMade: { expr: 'p.date_made' },
+  maker: { expr: 'p.maker' },
 };
 
-export const GRADE_COLUMN = { good: 'o.good_on', fair: 'o.fair_on', poor: 'o.poor_on', unacceptable: 'o.unacceptable_on' } as const;
+const JOINS: Record<Need, string> = {
+  outcomes: 'LEFT JOIN print_outcomes o ON o.print_id = p.print_id',
+  print: 'JOIN prints pr ON pr.id = p.print_id',
+};
+
+export const GRADE_COLUMN = { good: 'p.good_on', fair: 'p.fair_on', poor: 'p.poor_on', unacceptable: 'p.unacceptable_on' } as const;
 
 export interface CohortRow {
   id: string;
@@ -101,9 +94,7 @@ export interface CohortBase { head: string; c: string; values: unknown[]; bind: 
 export function cohortBase(q: CohortQuery, threshold: number, options: { narrow?: boolean } = {}): CohortBase {
   const values: unknown[] = [];
   const bind = (v: unknown, cast: string) => { values.push(v); return `$${values.length}::${cast}`; };
-  const needs = new Set<Need>(['outcomes']);
-  const used = [...q.filters.map((f) => f.factor), ...q.groupBy, ...q.coxFactors];
-  for (const code of used) for (const n of FACTOR_SQL[code].needs) needs.add(n);
+  const needs = new Set<Need>(options.narrow ? [] : ['print']);
 
   const ctes: string[] = [];
   const where: string[] = [];
@@ -128,41 +119,52 @@ export function cohortBase(q: CohortQuery, threshold: number, options: { narrow?
   const tonerGroup = q.groupBy.includes('tonerClass');
   const groupExpr = (code: CohortFactorCode | undefined) => (!code ? 'NULL' : code === 'tonerClass' ? 'tc.v' : FACTOR_SQL[code].expr);
 
-  const origin = q.origin === 'made' ? 'p.date_earliest' : 'o.first_exam_on';
+  const origin = q.origin === 'made' ? 'p.date_earliest' : 'p.first_exam_on';
   let eventOn: string;
   let censorOn: string;
   if (q.event.kind === 'fading') {
-    // The stored day when the outcomes were computed with this very threshold; else the first fitted point reaching it.
+    // The stored day when the outcomes were computed with this very threshold; else the first fitted
+    // point reaching it, from the arrays in `print_outcomes` (read only for such a row).
     const t = bind(threshold, 'float8');
-    eventOn = `CASE WHEN o.noticeable_threshold = ${t} THEN o.noticeable_on
-                    WHEN cardinality(o.de_dates) > 0 THEN (SELECT min(u.d) FROM unnest(o.de_dates, o.de_values) AS u(d, v) WHERE u.v >= ${t}) END`;
-    censorOn = 'o.last_measured_on';
+    eventOn = `CASE WHEN p.noticeable_threshold = ${t} THEN p.noticeable_on
+                    WHEN p.has_outcomes THEN (SELECT min(u.d) FROM print_outcomes o CROSS JOIN LATERAL unnest(o.de_dates, o.de_values) AS u(d, v)
+                                               WHERE o.print_id = p.print_id AND u.v >= ${t}) END`;
+    censorOn = 'p.last_measured_on';
   } else if (q.event.kind === 'observation') {
+    needs.add('outcomes');
     eventOn = `(o.term_first ->> ${bind(q.event.term, 'text')})::date`;
-    censorOn = 'o.last_report_on';
+    censorOn = 'p.last_report_on';
   } else {
     eventOn = GRADE_COLUMN[q.event.grade!];
-    censorOn = 'o.last_report_on';
+    censorOn = 'p.last_report_on';
   }
   const cox = q.coxFactors.length ? `ARRAY[${q.coxFactors.map((c) => `(${FACTOR_SQL[c].expr})::text`).join(', ')}]` : 'NULL::text[]';
 
-  const joins = (['paper', 'enclosure', 'outcomes', 'steps'] as Need[]).filter((n) => needs.has(n)).map((n) => JOINS[n]).join('\n');
+  const joins = (['print', 'outcomes'] as Need[]).filter((n) => needs.has(n)).map((n) => JOINS[n]).join('\n');
+  // The event's day is computed once per row: `OFFSET 0` keeps the subquery from being merged into the
+  // outer one, which would repeat the expression (and its search of the fitted points) in each use.
   // Narrow: without the print's accession number and title (the figures read them for a few prints only).
   // Narrow: `first` marks one row per print (a print toned twice has a row per toner class), so counting prints needs no DISTINCT.
-  const inner = `SELECT p.id, ${options.narrow ? `${tonerGroup ? 'tc.ord = 1' : 'true'} AS first,` : 'p.accession_number, p.accession_sort, p.title,'}
+  // Grouped by toner class, a row per print and toner class (`tc`; an untoned print has one row with
+  // no class): the first class of every print from its stored column, then the second and later
+  // classes of the few prints toned more than once (unnesting every print's array cost more than the
+  // rest of the cohort).
+  const branch = (tc: string, more: string[]) => `SELECT p.print_id AS id, ${options.narrow ? `${tonerGroup ? 'tc.ord = 1' : 'true'} AS first,` : 'pr.accession_number, pr.accession_sort, pr.title,'}
                (${groupExpr(q.groupBy[0])})::text AS g0, (${groupExpr(q.groupBy[1])})::text AS g1, ${cox} AS x,
-               o.de_per_year, o.density_loss_per_year,
-               ${origin} AS origin_on, coalesce(ev.on_, ${censorOn}) AS end_on, ev.on_ AS event_on,
-               coalesce(o.terms, CASE WHEN o.term_first <> '{}'::jsonb THEN ARRAY(SELECT jsonb_object_keys(o.term_first)) END) AS terms,
-               o.last_report_on IS NOT NULL AS has_report, extract(epoch FROM o.computed_at)::float8 AS computed_at
-          FROM prints p
+               p.de_per_year, p.density_loss_per_year,
+               ${origin} AS origin_on, ${eventOn} AS event_on, ${censorOn} AS censor_on,
+               p.terms, p.last_report_on IS NOT NULL AS has_report, extract(epoch FROM p.computed_at)::float8 AS computed_at
+          FROM print_cohort p ${tc}
           ${joins}
-          ${tonerGroup ? "CROSS JOIN LATERAL unnest(CASE WHEN cardinality(p.toner_classes) = 0 THEN ARRAY[NULL::text] ELSE p.toner_classes END) WITH ORDINALITY AS tc(v, ord)" : ''}
-          LEFT JOIN LATERAL (SELECT ${eventOn} AS on_ OFFSET 0) ev ON true
-         ${where.length ? `WHERE ${where.join('\n           AND ')}` : ''}`;
+         ${where.length || more.length ? `WHERE ${[...more, ...where].join('\n           AND ')}` : ''}
+         OFFSET 0`;
+  const inner = !tonerGroup ? branch('', [])
+    : `(${branch('CROSS JOIN LATERAL (SELECT p.toner_class AS v, 1 AS ord) tc', ['p.toner_classes IS NOT NULL'])})
+       UNION ALL
+       (${branch('CROSS JOIN LATERAL unnest(p.toner_classes) WITH ORDINALITY AS tc(v, ord)', ['cardinality(p.toner_classes) > 1', 'tc.ord > 1'])})`;
   const columns = `id, ${options.narrow ? 'first,' : 'accession_number, accession_sort, title,'} g0, g1, x, de_per_year, density_loss_per_year,
-       CASE WHEN origin_on IS NOT NULL AND end_on > origin_on THEN ((end_on - origin_on) / 365.25)::float8 END AS time,
-       CASE WHEN origin_on IS NOT NULL AND end_on > origin_on THEN event_on IS NOT NULL END AS event,
+       CASE WHEN origin_on IS NOT NULL AND coalesce(event_on, censor_on) > origin_on THEN ((coalesce(event_on, censor_on) - origin_on) / 365.25)::float8 END AS time,
+       CASE WHEN origin_on IS NOT NULL AND coalesce(event_on, censor_on) > origin_on THEN event_on IS NOT NULL END AS event,
        terms, has_report, computed_at`;
   const head = ctes.length ? `WITH RECURSIVE ${ctes.join(', ')},\n` : 'WITH ';
   return { head, c: `SELECT ${columns} FROM (${inner}) i`, values, bind };

@@ -134,7 +134,10 @@ export async function runCohort(q: CohortQuery, options: { pointsCap?: number | 
   for (const [k0, k1, time, event, count] of a!.survival ?? []) byKey.get(keyOf(k0, k1))!.obs.push({ time, event, count });
   for (const [k0, k1, term, n] of a!.terms ?? []) byKey.get(keyOf(k0, k1))!.terms.set(term, n);
   const coxRows: CoxObs[] = [];
-  for (const [x, time, event, n] of a!.cox ?? []) for (let i = 0; i < n; i += 1) coxRows.push({ time, event, x });
+  if (a!.cox) {
+    const [patterns, index, times, events] = a!.cox;
+    for (let i = 0; i < index.length; i += 1) coxRows.push({ time: times[i]!, event: events[i]!, x: patterns![index[i]!]! });
+  }
   const survival = survivalFigures(q, groups);
   survival.eventLabel = survival.eventLabel.replace('the noticeable threshold', String(threshold));
   return {
