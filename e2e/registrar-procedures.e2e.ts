@@ -107,6 +107,9 @@ describe('a registrar records an entry, an acquisition from it and a deaccession
     expect(await page.getByRole('link', { name: 'Edit', exact: true }).count()).toBe(0);
     expect(await page.getByRole('link', { name: 'Edit process history' }).count()).toBe(0);
     expect(await page.getByRole('button', { name: /Delete/ }).count()).toBe(0);
+    // … the page says at the top that the print has left, and it is no longer inspected.
+    await page.getByText(/^This print has left the collection\./).waitFor();
+    await page.getByText(/^No further inspections: the print was deaccessioned on /).waitFor();
     // … and an edit reached by its address is refused with the reason, the typed title kept.
     await page.goto(`${BASE_URL}/catalogue/prints/${print.id}/edit`);
     const title = page.getByLabel('Title', { exact: true });

@@ -3,6 +3,7 @@ import type { Deaccession, DeaccessionInput } from '@toneledger/common/schemas/d
 import type { FieldIssue } from '@toneledger/common/schemas/envelope';
 import { db } from '../db';
 import { conflict, notFound, validationFailed } from '../errors';
+import { markScheduleStale } from './schedule-stale';
 import { recordAudit } from './audit.service';
 import { assertPrintEditable } from './print-lock';
 import type { Actor } from './print.service';
@@ -144,6 +145,8 @@ export async function completeDeaccession(id: string, body: { completedOn: strin
       bind: [row.print_id, body.completedOn], transaction: t,
     });
     await recordAudit({ actor, action: 'print.updated', entityType: 'print', entityId: row.print_id, before: { status: p.status }, after: { status: 'deaccessioned', reason: 'Deaccession completed' }, requestId }, t);
+    // Its next-inspection date goes (a print that has left is not inspected): the schedule job drops it.
+    await markScheduleStale(t, { printIds: [row.print_id] });
     const after = present(await loadRow(id, t));
     await recordAudit({ actor, action: 'deaccession.completed', entityType: ENTITY, entityId: id, before: { status: 'approved' }, after: snapshot(after), requestId }, t);
     return after;

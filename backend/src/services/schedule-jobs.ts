@@ -111,7 +111,8 @@ export function installScheduleWake(queue: JobQueue | null): void {
 export async function markUnscheduled(queue: JobQueue): Promise<number> {
   const [, count] = await db().query(
     `INSERT INTO schedule_stale (print_id) SELECT p.id FROM prints p
-      WHERE NOT EXISTS (SELECT 1 FROM print_schedules s WHERE s.print_id = p.id) OR NOT EXISTS (SELECT 1 FROM print_outcomes o WHERE o.print_id = p.id)
+      WHERE (p.status <> 'deaccessioned' AND NOT EXISTS (SELECT 1 FROM print_schedules s WHERE s.print_id = p.id))
+         OR NOT EXISTS (SELECT 1 FROM print_outcomes o WHERE o.print_id = p.id)
      ON CONFLICT (print_id) DO NOTHING`,
   ) as [unknown, { rowCount?: number } | number];
   await queue.boss.send(QUEUES.scheduleUpdate, {}, { singletonKey: 'schedule-update', singletonSeconds: 2, singletonNextSlot: true });

@@ -24,7 +24,17 @@ import { staleEdit } from './versioning';
  * version moves only when something a person reads changed (date, interval, risk, factors, last check).
  * Returns how many prints were written.
  */
-export async function recomputeSchedules(ids: readonly string[], t?: Transaction, asOf = todayIso(), spots?: SpotAnalyses): Promise<number> {
+export async function recomputeSchedules(allIds: readonly string[], t?: Transaction, asOf = todayIso(), spots?: SpotAnalyses): Promise<number> {
+  if (!allIds.length) return 0;
+  // A deaccessioned print has left the collection: it is no longer inspected, so it has no date
+  // (its row, if any, goes, and with it the print's place on the work list, digests and calendars).
+  const gone = new Set((await db().query<{ id: string }>(
+    `WITH gone AS (SELECT id FROM prints WHERE id = ANY ($1::uuid[]) AND status = 'deaccessioned'),
+          dropped AS (DELETE FROM print_schedules s USING gone WHERE s.print_id = gone.id)
+     SELECT id FROM gone`,
+    { bind: [allIds], transaction: t, type: QueryTypes.SELECT },
+  )).map((r) => r.id));
+  const ids = gone.size ? allIds.filter((id) => !gone.has(id)) : allIds;
   if (!ids.length) return 0;
   const inputs = await loadRiskInputs(ids, asOf, t, spots);
   const rows = [...inputs.entries()].map(([printId, input]) => {
@@ -111,6 +121,8 @@ async function requirePrint(printId: string, t?: Transaction): Promise<void> {
 
 /** A print's schedule; computed and stored on the spot when the print has none yet. */
 export async function printSchedule(printId: string, t?: Transaction): Promise<PrintSchedule> {
+  // 409 naming the day for a deaccessioned print (no longer inspected), 404 for no print.
+  await assertPrintEditable(printId, t);
   let row = await scheduleRow(printId, t);
   if (!row) {
     await requirePrint(printId, t);

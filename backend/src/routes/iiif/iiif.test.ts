@@ -6,7 +6,7 @@ import { errorEnvelopeSchema } from '@toneledger/common/schemas/envelope';
 import { testApp, sessionFor, type TestApp } from '../../../test/app';
 import { accession } from '../../../test/factories';
 import { db } from '../../db';
-import { Exhibition, ExhibitionObject, Image } from '../../models';
+import { Exhibition, ExhibitionObject, ExhibitionVenue, Image } from '../../models';
 import { forgetIiifMemory } from '../../services/iiif-image.service';
 import { purgeWithdrawn } from '../../services/image.service';
 
@@ -341,7 +341,10 @@ describe('IIIF collections', () => {
   });
 
   it("an exhibition's collection lists its prints; 404 for an unknown exhibition", async () => {
+    // An exhibition always has at least one venue with its dates (the contract's rule; the list of
+    // exhibitions other tests read presents them), so the fixture gets one too.
     const e = await Exhibition.create({ title: `Tide lines ${Date.now()}`, organiser: 'Calder Reach', summary: null } as never);
+    await ExhibitionVenue.create({ exhibitionId: e.id, name: 'Calder Reach, East Gallery', place: 'Calder Reach', opensOn: '2025-03-01', closesOn: '2025-05-31', position: 0 } as never);
     await ExhibitionObject.create({ exhibitionId: e.id, printId } as never);
     const res = await get(`/api/iiif/exhibitions/${e.id}/collection`, 'viewer');
     expect(res.status).toBe(200);

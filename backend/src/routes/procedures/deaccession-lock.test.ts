@@ -2,6 +2,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { testApp } from '../../../test/app';
 import { daysFromToday, exhibitionClient } from '../../../test/exhibition-helpers';
 import { createImageRecord, createLocation } from '../../../test/factories';
+import { QueryTypes } from 'sequelize';
+import { db } from '../../db';
+import { settleSchedules } from '../../services/schedule-jobs';
 
 /**
  * A completed deaccession makes the print read-only: every write path that changes the print or a
@@ -117,6 +120,28 @@ describe('a deaccessioned print is read-only', () => {
     // The final record itself is kept as completed.
     const again = await r.post(`/api/deaccessions/${done.id}/withdraw`, { why: 'Changed our minds', version: done.version });
     expect(again.status).toBe(409);
+  });
+
+  it('a deaccessioned print is no longer inspected: its date leaves the work list and its inspection answers 409 naming the day', async () => {
+    const room = await createLocation();
+    const created = await h.as('registrar').post('/api/prints', { accessionNumber: `2026.${Date.now() % 100000}.7`, title: 'Net loft, Calder Reach', process: 'gelatin_silver_developing_out', locationId: room.id });
+    ok(created, 201);
+    const p = created.body.data as { id: string };
+    ok(await h.as('conservator').get(`/api/prints/${p.id}/inspection`));
+    const listed = async () => {
+      const res = await h.as('conservator').get(`/api/inspections?window=all&locationId=${room.id}`);
+      ok(res);
+      return res.body.data.map((r: { printId: string }) => r.printId);
+    };
+    expect(await listed()).toEqual([p.id]);
+    await deaccession(p.id, daysFromToday(-2));
+    await settleSchedules();
+    expect(await listed()).toEqual([]);
+    const after = await h.as('conservator').get(`/api/prints/${p.id}/inspection`);
+    expect(after.status).toBe(409);
+    expect(after.body.error.details).toMatchObject({ printId: p.id, deaccessioned: daysFromToday(-2) });
+    const [{ n }] = await db().query<{ n: number }>('SELECT count(*)::int AS n FROM print_schedules WHERE print_id = $1', { bind: [p.id], type: QueryTypes.SELECT });
+    expect(n).toBe(0);
   });
 
   it('the status deaccessioned is set by the procedure only, not by a print edit', async () => {

@@ -5,7 +5,7 @@ import { can } from '@toneledger/common/domain/roles';
 import type { Print } from '@toneledger/common/schemas/catalogue';
 import type { TimelineEntry } from '@toneledger/common/schemas/images';
 import { Button, buttonClasses } from '@/components/ui/button';
-import { ErrorNotice } from '@/components/ui/notice';
+import { ErrorNotice, Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/loading';
 import { isApiError } from '@/lib/api-client';
 import { useMe } from '@/lib/auth';
@@ -183,6 +183,13 @@ function PrintView({ print, panels }: { print: Print; panels: readonly PrintPage
         </div>
       </header>
 
+      {print.status === 'deaccessioned' ? (
+        <div className="mb-5">
+          <Notice tone="warning" title="Deaccessioned">
+            <p>This print has left the collection. Its record is kept and can be read, but not changed; it is no longer inspected or lent. The deaccession record below says when, how and on whose authority.</p>
+          </Notice>
+        </div>
+      ) : null}
       <div className="grid gap-5 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <div className="flex min-w-0 flex-col gap-5">
           <PrintIdentity print={print} />

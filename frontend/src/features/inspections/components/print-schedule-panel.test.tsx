@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { fireEvent, screen, within } from '@testing-library/react';
 import type { PrintSchedule } from '@toneledger/common/schemas/inspections';
-import { json, mockFetch } from '@/test/fetch-mock';
+import { errorResponse, json, mockFetch } from '@/test/fetch-mock';
 import { makeMe } from '@/test/fixtures';
 import { renderPage } from '@/test/render';
 import { PrintSchedulePanel } from '@/features/inspections/components/print-schedule-panel';
@@ -45,6 +45,14 @@ describe('PrintSchedulePanel', () => {
     expect(screen.getByRole('link', { name: 'East store, drawer 4' }).getAttribute('href')).toBe('/inspections/rounds/a1000000-0000-4000-8000-000000000001');
     // A researcher reads and changes nothing.
     expect(screen.queryByRole('button', { name: 'Set the date' })).toBeNull();
+  });
+
+  it('says a deaccessioned print is no longer inspected, with the day it left, instead of an error', async () => {
+    show('conservator', {
+      [GET]: () => errorResponse(409, 'conflict', 'This print was deaccessioned on 2024-06-14; its record is read-only.', { details: { printId: PRINT_ID, deaccessioned: '2024-06-14' } }),
+    });
+    expect(await screen.findByText('No further inspections: the print was deaccessioned on 14 Jun 2024.')).toBeTruthy();
+    expect(screen.queryByRole('alert')).toBeNull();
   });
 
   it('shows a viewer nothing and asks the server nothing', async () => {

@@ -6,6 +6,7 @@ import { Button } from '@/components/ui/button';
 import { Loading } from '@/components/ui/loading';
 import { ErrorNotice, Notice } from '@/components/ui/notice';
 import { useMe } from '@/lib/auth';
+import { isApiError } from '@/lib/api-client';
 import { formatDay } from '@/lib/format';
 import { usePrintSchedule } from '@/features/inspections/api/print-schedule';
 import { PrintScheduleOverrideForm } from '@/features/inspections/components/print-schedule-override-form';
@@ -108,6 +109,11 @@ function Figures({ schedule, mayWrite }: { schedule: PrintSchedule; mayWrite: bo
   );
 }
 
+function deaccessionedDay(details: unknown): string | null {
+  const day = (details as { deaccessioned?: unknown } | null)?.deaccessioned;
+  return typeof day === 'string' ? day : null;
+}
+
 /**
  * The print page's "Next inspection" panel: the date in force, the risk, the reasons in plain words
  * largest first, the rounds it is in; conservators set a date of their own with a reason. Shown
@@ -119,13 +125,19 @@ export function PrintSchedulePanel({ printId }: { printId: string }) {
   const schedule = usePrintSchedule(printId, mayRead);
   const headingId = useId();
   if (!mayRead) return null;
+  // A deaccessioned print is not inspected: the server answers 409 naming the day it left.
+  const left = schedule.isError && isApiError(schedule.error) && schedule.error.status === 409 ? deaccessionedDay(schedule.error.details) : null;
   return (
     <section aria-labelledby={headingId} className="rounded border border-paper-300 bg-white p-4">
       <h2 id={headingId} className="mb-2 text-lg">
         Next inspection
       </h2>
       {schedule.isPending ? <Loading label="Loading the next inspection…" /> : null}
-      {schedule.isError ? <ErrorNotice error={schedule.error} title="The next inspection could not be loaded." /> : null}
+      {left ? (
+        <p className="text-sm text-ink-800">No further inspections: the print was deaccessioned on {formatDay(left)}.</p>
+      ) : schedule.isError ? (
+        <ErrorNotice error={schedule.error} title="The next inspection could not be loaded." />
+      ) : null}
       {schedule.data ? <Figures schedule={schedule.data} mayWrite={can(me.role, 'schedule.write')} /> : null}
     </section>
   );
