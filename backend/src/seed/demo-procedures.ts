@@ -5,10 +5,26 @@ import { createAcquisition, createEntry, setAcquisitionPrints } from '../service
 import { proposeTreatment } from '../services/treatment.service';
 import { DEMO_ACCOUNTS } from './demo-accounts';
 
+/** Invented reasons the demo's deaccessioned prints left, in turn (month-day of each step within the year). */
+const DEACCESSION_STORIES = [
+  { year: 2024, proposed: '02-05', approved: '04-22', completed: '06-14', method: 'destruction', recipient: null, authority: 'Collections Committee, minute 2024/17',
+    reason: 'Mould growth and water damage from the 2023 roof leak; the image is lost over most of its area',
+    finalNote: 'Destroyed in the presence of two staff; photographs and the certificate of destruction filed' },
+  { year: 2012, proposed: '03-12', approved: '05-30', completed: '09-03', method: 'transfer', recipient: 'Saltmarsh Regional Archive', authority: 'Board of Trustees, minute 2012/09',
+    reason: 'A second print of the same negative; the regional archive holds the photographer’s papers and asked for it',
+    finalNote: 'Transferred with its file; receipt SRA/2012/44 filed' },
+  { year: 2016, proposed: '01-18', approved: '03-07', completed: '04-26', method: 'return', recipient: 'The estate of the photographer', authority: 'Board of Trustees, minute 2016/03',
+    reason: 'Found to have been lent, not given: the 1986 letter names it a loan',
+    finalNote: 'Returned to the estate’s executor against signature; the letter and receipt filed' },
+  { year: 2020, proposed: '10-05', approved: '11-23', completed: '12-14', method: 'transfer', recipient: 'Pellow Point Maritime Museum', authority: 'Collections Committee, minute 2020/31',
+    reason: 'Outside the collecting policy since 2019 (ship portraits); the maritime museum collects them',
+    finalNote: 'Transferred by courier in a sealed box; condition report signed at both ends' },
+] as const;
+
 /**
  * The invented procedure records of the demo: three object entries (2019, 2021, 2024), an acquisition
  * from the first that accessioned the prints numbered 2019.*, a treatment signed in 2023 and one
- * proposed recently, and the deaccession record of one print already deaccessioned. Dates follow
+ * proposed recently, and the deaccession record of every print the demo catalogue deaccessioned. Dates follow
  * each other; signed records carry the day of their signing, not the day of the seed. Runs once
  * (nothing is written when an entry exists).
  */
@@ -56,16 +72,26 @@ export async function seedDemoProceduresIfEmpty(sequelize: Sequelize, log: (m: s
     const today = new Date().toISOString().slice(0, 10);
     await proposeTreatment(other.id, { proposedOn: today, conditionFound: 'Silver mirroring in the shadows along the upper margin', aims: 'Reduce the mirroring without touching the image', optionsConsidered: 'Leave as is and watch it; local treatment', chosenMethod: 'Local treatment at the margin, cleared and washed' }, conservator, 'seed');
   }
-  const [gone] = await sequelize.query<{ id: string }>(`SELECT id FROM prints WHERE status = 'deaccessioned' ORDER BY accession_sort LIMIT 1`, { type: QueryTypes.SELECT });
-  if (gone) {
-    await sequelize.query(`UPDATE prints SET deaccessioned_on = '2024-06-14' WHERE id = $1`, { bind: [gone.id] });
+  // Every print the demo catalogue marked deaccessioned gets its completed record, each dated after
+  // its accession year and before today, so no print has left without saying when, how and why.
+  const gone = await sequelize.query<{ id: string; year: number }>(
+    `SELECT id, split_part(accession_number, '.', 1)::int AS year FROM prints WHERE status = 'deaccessioned' ORDER BY accession_sort`, { type: QueryTypes.SELECT },
+  );
+  for (const [i, g] of gone.entries()) {
+    const story = DEACCESSION_STORIES[i % DEACCESSION_STORIES.length];
+    // The year the print left: the story's own, or the year after the accession when that is later (kept before this year).
+    const year = Math.min(Math.max(story.year, g.year + 1), new Date().getUTCFullYear() - 1);
+    const on = (monthDay: string) => `${year}-${monthDay}`;
+    await sequelize.query(`UPDATE prints SET deaccessioned_on = $2 WHERE id = $1`, { bind: [g.id, on(story.completed)] });
     const [{ id }] = await sequelize.query<{ id: string }>(
-      `INSERT INTO deaccessions (print_id, status, proposed_on, proposed_by, proposed_by_name, reason, method, authority, approved_on, completed_on, completed_by_name, final_note, created_at, updated_at)
-       VALUES ($1, 'completed', '2024-02-05', $2, $3, 'Mould growth and water damage from the 2023 roof leak; the image is lost over most of its area', 'destruction',
-         'Collections Committee, minute 2024/17', '2024-04-22', '2024-06-14', $3, 'Destroyed in the presence of two staff; photographs and the certificate of destruction filed', '2024-02-05T09:00:00Z', '2024-06-14T15:00:00Z') RETURNING id`,
-      { bind: [gone.id, registrar.id, registrar.name], type: QueryTypes.SELECT },
+      `INSERT INTO deaccessions (print_id, status, proposed_on, proposed_by, proposed_by_name, reason, method, recipient, authority, approved_on, completed_on, completed_by_name, final_note, created_at, updated_at)
+       VALUES ($1, 'completed', $4, $2, $3, $5, $6, $7, $8, $9, $10, $3, $11, ($4::date + time '09:00') AT TIME ZONE 'UTC', ($10::date + time '15:00') AT TIME ZONE 'UTC') RETURNING id`,
+      {
+        bind: [g.id, registrar.id, registrar.name, on(story.proposed), story.reason, story.method, story.recipient, story.authority, on(story.approved), on(story.completed), story.finalNote],
+        type: QueryTypes.SELECT,
+      },
     );
-    await recordAudit({ actor: registrar, action: 'deaccession.completed', entityType: 'deaccession', entityId: id, after: { printId: gone.id, status: 'completed' }, requestId: 'seed' });
+    await recordAudit({ actor: registrar, action: 'deaccession.completed', entityType: 'deaccession', entityId: id, after: { printId: g.id, status: 'completed' }, requestId: 'seed' });
   }
   return true;
 }
