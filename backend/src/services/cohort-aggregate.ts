@@ -11,7 +11,7 @@ import { cohortBase, type CohortSql } from './cohort-sql';
  *   at (n − 1)·p, R's type 7, the rule of `describe`; checked in `cohort-aggregate.test.ts`);
  * - `points`: per group and rate at most `pointsCap` prints, evenly spaced by rank (`PICK_EVENLY`),
  *   so a strip plot of 200,000 prints keeps its shape; every print when the cap is null (the export);
- * - `survival`: (group, time, event, count) rows for the Kaplan–Meier curves and the log-rank test;
+ * - `survival`: per group its (time, event, count) rows, as columns, for the Kaplan–Meier curves and the log-rank test;
  * - `terms`: per group and term the prints with a signed report showing it;
  * - `cox`: the Cox values' distinct patterns, and per print (as columns) its pattern, time and event;
  * - `total`, `asOf` (the oldest `computed_at`) and the medians of number factors split at the median.
@@ -31,15 +31,16 @@ export const pickEvenly = (rn: string, n: string, cap: string) =>
  * computes them, without a sort of its own: for each p, h = p·(n − 1) in float8, the values at ranks
  * 1 + floor(h) and 1 + ceil(h), and lo + (h − floor(h))·(hi − lo) (PostgreSQL's float8 interpolation,
  * operation for operation), or lo when h is whole; R's type 7, the rule of `describe`.
- * `cohort-aggregate.test.ts` checks it equals `percentile_cont` exactly.
+ * `cohort-aggregate.test.ts` checks it equals `percentile_cont` exactly. `d`: n, min, max and the quartiles.
  */
-export const QUARTILES = `SELECT k0, k1, metric, json_build_array(${[0.25, 0.5, 0.75].map((p) => {
+export const QUARTILES = `SELECT k0, k1, metric, qs, json_build_array(cardinality(vs), vs[1], vs[cardinality(vs)], qs) AS d
+    FROM (SELECT k0, k1, metric, vs, json_build_array(${[0.25, 0.5, 0.75].map((p) => {
   const h = `${p}::float8 * (cardinality(vs) - 1)::float8`;
   const lo = `vs[(1 + floor(${h}))::int]`;
   const hi = `vs[(1 + ceil(${h}))::int]`;
   return `CASE WHEN ceil(${h}) > floor(${h}) THEN ${lo} + ((${h} - floor(${h})) * (${hi} - ${lo})) ELSE ${lo} END`;
 }).join(', ')}) AS qs
-    FROM s`;
+            FROM s) q`;
 
 /**
  * The ranks `pickEvenly` keeps of `n` (the column `n` of the row), as rows `rn`, without testing every
@@ -63,8 +64,11 @@ export interface AggregateOptions {
 
 export function buildAggregateSql(q: CohortQuery, threshold: number, options: AggregateOptions): CohortSql {
   const { head, c, values, bind } = cohortBase(q, threshold, { narrow: true });
+  const needsMedian = q.groupBy.some((f) => COHORT_FACTORS[f].kind === 'number' && !q.bands?.[f]);
+  // Without a median split the group codes need nothing but the row: the cohort carries them itself
+  // (one materialised pass over the prints instead of two), reading the inner rows as c0.
   const code = (i: 0 | 1, factor: CohortFactorCode | undefined): string => {
-    const g = `c.g${i}`;
+    const g = `${needsMedian ? 'c' : 'c0'}.g${i}`;
     if (!factor) return 'NULL::text';
     const kind = COHORT_FACTORS[factor].kind;
     if (kind === 'number') {
@@ -102,18 +106,20 @@ export function buildAggregateSql(q: CohortQuery, threshold: number, options: Ag
         SELECT json_build_array((SELECT json_agg(x ORDER BY i) FROM pat), array_agg(pat.i), array_agg(cr.time), array_agg(cr.event))
           FROM cr JOIN pat ON pat.x = cr.x)`
     : 'NULL::json';
-  const dist = (metric: string, col: string) => `json_build_array(count(${col}), min(${col}), max(${col}),
-                   (SELECT q.qs FROM qs q WHERE q.metric = '${metric}' AND q.k0 IS NOT DISTINCT FROM k.k0 AND q.k1 IS NOT DISTINCT FROM k.k1))`;
-  const text = `${head}c AS MATERIALIZED (${c}),
+  // A rate's n, min, max and quartiles come from its sorted array (`qs`); a group with no value of it has none.
+  const dist = (metric: string) => `coalesce((SELECT q.d FROM qs q WHERE q.metric = '${metric}' AND q.k0 IS NOT DISTINCT FROM k.k0 AND q.k1 IS NOT DISTINCT FROM k.k1),
+                   json_build_array(0, NULL, NULL, NULL))`;
+  // The group codes in the "C" collation: grouping and sorting by them compares bytes (equality is the same).
+  const text = `${head}c AS MATERIALIZED (${needsMedian ? c : `SELECT c0.*, (${k0}) COLLATE "C" AS k0, (${k1}) COLLATE "C" AS k1 FROM (${c}) c0`}),
 ${med},
-k AS MATERIALIZED (SELECT c.*, ${k0} AS k0, ${k1} AS k1 FROM c CROSS JOIN m),
+k AS ${needsMedian ? `MATERIALIZED (SELECT c.*, (${k0}) COLLATE "C" AS k0, (${k1}) COLLATE "C" AS k1 FROM c CROSS JOIN m)` : '(SELECT * FROM c)'},
 s AS MATERIALIZED (
   ${sorted('de_per_year', 'de')}
   UNION ALL
   ${sorted('density_loss_per_year', 'dl')}),
 qs AS MATERIALIZED (${QUARTILES}),
 g AS (SELECT k0, k1, count(*)::int AS size, count(de_per_year)::int AS with_rate, count(time)::int AS with_survival,
-             (count(*) FILTER (WHERE has_report))::int AS reports, ${dist('de', 'de_per_year')} AS de, ${dist('dl', 'density_loss_per_year')} AS dl
+             (count(*) FILTER (WHERE has_report))::int AS reports, ${dist('de')} AS de, ${dist('dl')} AS dl
         FROM k GROUP BY k0, k1)
 SELECT (SELECT ${perPrint} FROM c)::int AS total,
        (SELECT min(computed_at) FROM c) AS as_of,
@@ -122,10 +128,11 @@ SELECT (SELECT ${perPrint} FROM c)::int AS total,
        (SELECT json_agg(json_build_array(k0, k1, metric, id, (SELECT pc.accession_number FROM print_cohort pc WHERE pc.print_id = pt.id), v) ORDER BY metric, k0, k1, rn)
           FROM (SELECT s.k0, s.k1, s.metric, kr.rn, s.ids[kr.rn] AS id, s.vs[kr.rn] AS v
                   FROM (SELECT s.*, cardinality(s.vs) AS n FROM s) s CROSS JOIN LATERAL (${keptRanks(cap)}) kr) pt) AS points,
-       (SELECT json_agg(json_build_array(k0, k1, time, event, n)) FROM (
-          SELECT k0, k1, time, event, count(*)::int AS n FROM k WHERE time IS NOT NULL GROUP BY k0, k1, time, event) s) AS survival,
+       (SELECT json_agg(json_build_array(k0, k1, times, events, ns)) FROM (
+          SELECT k0, k1, array_agg(time) AS times, array_agg(event) AS events, array_agg(n) AS ns FROM (
+            SELECT k0, k1, time, event, count(*)::int AS n FROM k WHERE time IS NOT NULL GROUP BY k0, k1, time, event) s GROUP BY k0, k1) s) AS survival,
        (SELECT json_agg(json_build_array(k0, k1, term, n)) FROM (
-          SELECT k0, k1, term, count(*)::int AS n FROM k CROSS JOIN LATERAL unnest(terms) AS term WHERE has_report GROUP BY k0, k1, term) t) AS terms,
+          SELECT k0, k1, term, count(*)::int AS n FROM (SELECT k0, k1, unnest(terms) AS term FROM k WHERE has_report) u GROUP BY k0, k1, term) t) AS terms,
        ${cox} AS cox`;
   return { text, values };
 }
@@ -139,7 +146,8 @@ export interface AggregateAnswer {
   medians: [Num, Num] | null;
   groups: AggregateGroup[] | null;
   points: [string | null, string | null, 'de' | 'dl', string, string, number][] | null;
-  survival: [string | null, string | null, number, boolean, number][] | null;
+  /** Per group, its (time, event, count) rows as three columns. */
+  survival: [string | null, string | null, number[], boolean[], number[]][] | null;
   terms: [string | null, string | null, string, number][] | null;
   /** The Cox rows: the covariate patterns, then per print its pattern's index, time and event. */
   cox: [(string | null)[][] | null, number[], number[], boolean[]] | null;

@@ -202,6 +202,10 @@ export function coxFigures(q: CohortQuery, usable: CoxObs[]): CohortResult['cox'
   const warnings: string[] = [];
   type Col = { label: string; factor: CohortFactorCode; level: string | null; reference: string | null; value: (raw: string | null) => number | null };
   const cols: Col[] = [];
+  // Prints sharing a covariate pattern share its array (the statement sends each pattern once): the
+  // levels are counted and the model's columns computed once per pattern, then given to its prints.
+  const patterns = new Map<CoxObs['x'], number>();
+  for (const r of usable) patterns.set(r.x, (patterns.get(r.x) ?? 0) + 1);
   for (const [j, code] of q.coxFactors.entries()) {
     const kind = COHORT_FACTORS[code].kind;
     if (kind === 'number' || kind === 'year') {
@@ -210,7 +214,7 @@ export function coxFigures(q: CohortQuery, usable: CoxObs[]): CohortResult['cox'
     }
     if (kind === 'place') { warnings.push('The storage place is left out of the model: group by it instead.'); continue; }
     const counts = new Map<string, number>();
-    for (const r of usable) { const v = r.x?.[j] ?? (kind === 'flag' ? UNKNOWN : 'none'); counts.set(String(v), (counts.get(String(v)) ?? 0) + 1); }
+    for (const [x, m] of patterns) { const v = String(x?.[j] ?? (kind === 'flag' ? UNKNOWN : 'none')); counts.set(v, (counts.get(v) ?? 0) + m); }
     const levels = [...counts].sort((a, b) => b[1] - a[1] || a[0].localeCompare(b[0])).map(([v]) => v);
     if (levels.length < 2) { warnings.push(`${code} takes one value in this cohort and is left out of the model.`); continue; }
     const kept = levels.slice(0, MAX_COX_LEVELS);
@@ -222,10 +226,14 @@ export function coxFigures(q: CohortQuery, usable: CoxObs[]): CohortResult['cox'
   }
   const modelRows: { time: number; event: boolean; x: number[] }[] = [];
   const colIndex = cols.map((c) => q.coxFactors.indexOf(c.factor));
+  const modelX = new Map<CoxObs['x'], number[] | null>();
+  for (const raw of patterns.keys()) {
+    const x = cols.map((c, k) => c.value((raw?.[colIndex[k]!] ?? null) as string | null));
+    modelX.set(raw, x.some((v) => v === null || !Number.isFinite(v)) ? null : x as number[]);
+  }
   for (const r of usable) {
-    const x = cols.map((c, k) => c.value((r.x?.[colIndex[k]!] ?? null) as string | null));
-    if (x.some((v) => v === null || !Number.isFinite(v))) continue;
-    modelRows.push({ time: r.time, event: r.event, x: x as number[] });
+    const x = modelX.get(r.x);
+    if (x) modelRows.push({ time: r.time, event: r.event, x });
   }
   const events = modelRows.filter((r) => r.event).length;
   if (modelRows.length < usable.length) warnings.push(`${usable.length - modelRows.length} prints without a value of a numeric factor are left out of the model.`);

@@ -131,7 +131,10 @@ export async function runCohort(q: CohortQuery, options: { pointsCap?: number | 
     const g = byKey.get(keyOf(k0, k1))!;
     (metric === 'de' ? g.de : g.dl).points.push({ printId, accessionNumber, value });
   }
-  for (const [k0, k1, time, event, count] of a!.survival ?? []) byKey.get(keyOf(k0, k1))!.obs.push({ time, event, count });
+  for (const [k0, k1, times, events, counts] of a!.survival ?? []) {
+    const obs = byKey.get(keyOf(k0, k1))!.obs;
+    for (let i = 0; i < times.length; i += 1) obs.push({ time: times[i]!, event: events[i]!, count: counts[i]! });
+  }
   for (const [k0, k1, term, n] of a!.terms ?? []) byKey.get(keyOf(k0, k1))!.terms.set(term, n);
   const coxRows: CoxObs[] = [];
   if (a!.cox) {
