@@ -98,12 +98,13 @@ export function buildAggregateSql(q: CohortQuery, threshold: number, options: Ag
   const perPrint = q.groupBy.includes('tonerClass') ? 'count(*) FILTER (WHERE first)' : 'count(*)';
   // The Cox rows, one per print, in columns: the distinct covariate patterns once, then per print its
   // pattern's index, time and event (the five factors and the day made 181,688 patterns of 200,000
-  // prints, so grouping by pattern saved nothing and its rows of JSON cost more than the rest).
+  // prints, so grouping by pattern saved nothing and its rows of JSON cost more than the rest). Sent
+  // in the order `coxPH` sorts them (latest time first), so its sort finds one run.
   const coxRows = `SELECT x, time, event FROM c WHERE time IS NOT NULL${q.groupBy.includes('tonerClass') ? ' AND first' : ''}`;
   const cox = q.coxFactors.length
     ? `(WITH cr AS MATERIALIZED (${coxRows}),
              pat AS MATERIALIZED (SELECT x, (row_number() OVER ())::int - 1 AS i FROM (SELECT DISTINCT x FROM cr) d)
-        SELECT json_build_array((SELECT json_agg(x ORDER BY i) FROM pat), array_agg(pat.i), array_agg(cr.time), array_agg(cr.event))
+        SELECT json_build_array((SELECT json_agg(x ORDER BY i) FROM pat), ${['pat.i', 'cr.time', 'cr.event'].map((col) => `array_agg(${col} ORDER BY cr.time DESC, pat.i, cr.event)`).join(', ')})
           FROM cr JOIN pat ON pat.x = cr.x)`
     : 'NULL::json';
   // A rate's n, min, max and quartiles come from its sorted array (`qs`); a group with no value of it has none.
