@@ -2,10 +2,12 @@ import type { Writable } from 'node:stream';
 import { Op, QueryTypes, type WhereOptions } from 'sequelize';
 import type { AuditEvent, AuditExportQuery, AuditListQuery } from '@toneledger/common/schemas/audit';
 import { actionLabel } from '@toneledger/common/fields/audit-words';
+import { recordKindChoices } from '@toneledger/common/fields/audit-records';
 import { db } from '../db';
 import { AuditEventModel } from '../models';
 import { validationFailed } from '../errors';
 import { presentAuditEvent } from '../presenters/audit.presenter';
+import { auditRecords } from './audit-records.service';
 import { isoCell, streamCsv, type ExportColumn } from './exports/columns';
 
 /**
@@ -38,19 +40,15 @@ function whereOf(query: AuditExportQuery): WhereOptions<AuditEventModel> {
   return where as WhereOptions<AuditEventModel>;
 }
 
-/** Accession numbers of the prints a page of events is about (a snapshot of a move holds only the place). */
-async function printNames(events: AuditEventModel[]): Promise<Map<string, string>> {
-  const ids = [...new Set(events.filter((e) => e.entityType === 'print' && e.entityId && UUID.test(e.entityId)).map((e) => e.entityId!))];
-  if (!ids.length) return new Map();
-  const rows = await db().query<{ id: string; accession_number: string }>('SELECT id::text AS id, accession_number FROM prints WHERE id = ANY($1::uuid[])', {
-    bind: [ids], type: QueryTypes.SELECT,
-  });
-  return new Map(rows.map((r) => [r.id, `print ${r.accession_number}`]));
-}
-
+/** The page of events presented, each with its record named and linked (one query for the page, audit-records.service.ts). */
 async function present(events: AuditEventModel[]): Promise<AuditEvent[]> {
-  const names = await printNames(events);
-  return events.map((e) => presentAuditEvent(e, e.entityType === 'print' && e.entityId ? names.get(e.entityId) : null));
+  const records = await auditRecords(events);
+  return events.map((e, i) => {
+    const record = records[i]!;
+    // A print's sentence names it by accession number even when the snapshot holds only a place (a move).
+    const printName = e.entityType === 'print' && record.name ? `print ${record.name}` : null;
+    return presentAuditEvent(e, printName, record);
+  });
 }
 
 export async function listAudit(query: AuditListQuery) {
@@ -80,6 +78,7 @@ export async function auditChoices() {
   return {
     people,
     actions: actions.map((a) => ({ code: a.action, label: actionLabel(a.action) })).sort((x, y) => x.label.localeCompare(y.label)),
+    recordKinds: recordKindChoices(),
   };
 }
 
@@ -93,7 +92,8 @@ export const AUDIT_COLUMNS: ExportColumn<AuditRow>[] = [
   { name: 'person', meaning: 'Who did it; empty for the system.', type: 'text', source: `${A}: actor name (kept as it was at the time)`, cell: (r) => r.event.actorName },
   { name: 'action', meaning: 'What was done, in a few words.', type: 'text', source: `${A}: action, as its label`, cell: (r) => r.event.actionLabel },
   { name: 'sentence', meaning: 'The event as a sentence.', type: 'text', source: 'Computed from the action, the person and the record', cell: (r) => r.event.sentence },
-  { name: 'record_type', meaning: 'The kind of record changed (print, loan, user…).', type: 'text', source: `${A}: record type`, cell: (r) => r.event.entityType.replace(/_/g, ' ') },
+  { name: 'record_type', meaning: 'The kind of record changed (Print, Loan, Person…).', type: 'text', source: `${A}: record type, as its label (common/src/fields/audit-records.ts)`, cell: (r) => r.event.record.kind },
+  { name: 'record', meaning: "The record by its name (a print's accession number, a person's name, a loan's reference…); empty when it has none.", type: 'text', source: 'The record as it is now, or its snapshot when it was deleted', cell: (r) => r.event.record.name },
   { name: 'record_id', meaning: "The changed record's id.", type: 'id', source: `${A}: record id`, cell: (r) => r.event.entityId },
   { name: 'field', meaning: 'The field that changed, by its label; empty for an event without field changes.', type: 'text', source: 'Field tables (common/src/fields), otherwise the key in words', cell: (r) => r.change?.label ?? null },
   { name: 'before', meaning: 'Its value before, as the screens show it.', type: 'text', source: `${A}: before`, cell: (r) => r.change?.before ?? null },

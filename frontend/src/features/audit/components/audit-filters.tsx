@@ -3,10 +3,10 @@ import { auditListQuerySchema, type AuditListQuery } from '@toneledger/common/sc
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
 import { issuesToFieldErrors } from '@/lib/forms/field-errors';
-import { limitsOf } from '@/lib/forms/limits';
 import { useAuditChoices } from '@/features/audit/api/get-audit-choices';
 
 const FIELDS = ['actorId', 'action', 'from', 'to', 'entityType', 'entityId'] as const;
+/** What the form edits; the record (`entityId`) is chosen from the table and shown as a chip. */
 type FilterField = (typeof FIELDS)[number];
 type Draft = Record<FilterField, string>;
 
@@ -16,7 +16,7 @@ const LABELS: Record<FilterField, string> = {
   from: 'From (day)',
   to: 'To (day)',
   entityType: 'Record type',
-  entityId: 'Record id',
+  entityId: 'Record',
 };
 
 function draftFrom(query: Partial<AuditListQuery>): Draft {
@@ -24,11 +24,12 @@ function draftFrom(query: Partial<AuditListQuery>): Draft {
 }
 
 /**
- * The audit screen's filters: a person and an action picked from what the trail holds, a range of
- * days (UTC, both ends included), and a record by type and id. Applied together with Filter; the
- * URL holds them, so a filtered view can be shared and exported as shown.
+ * The audit screen's filters: a person, an action and a kind of record picked from what the trail
+ * holds, and a range of days (UTC, both ends included). Applied together with Filter; the URL holds
+ * them, so a filtered view can be shared and exported as shown. One record, chosen from the table, is a
+ * chip with its name (`recordName`) and ✕; its id is never typed or shown.
  */
-export function AuditFilters({ query, onChange }: { query: AuditListQuery; onChange: (patch: Partial<AuditListQuery>) => void }) {
+export function AuditFilters({ query, onChange, recordName }: { query: AuditListQuery; onChange: (patch: Partial<AuditListQuery>) => void; recordName: string }) {
   const choices = useAuditChoices();
   const [draft, setDraft] = useState<Draft>(() => draftFrom(query));
   const [errors, setErrors] = useState<Partial<Record<FilterField, string>>>({});
@@ -44,6 +45,8 @@ export function AuditFilters({ query, onChange }: { query: AuditListQuery; onCha
     event.preventDefault();
     const patch: Partial<AuditListQuery> = {};
     for (const field of FIELDS) patch[field] = draft[field].trim() || undefined;
+    // Another kind of record picked: the one record chosen before is not of it.
+    if (patch.entityType !== query.entityType) patch.entityId = undefined;
     const parsed = auditListQuerySchema.safeParse({ ...query, ...patch });
     const next: Partial<Record<FilterField, string>> = {};
     if (!parsed.success) {
@@ -63,6 +66,8 @@ export function AuditFilters({ query, onChange }: { query: AuditListQuery; onCha
   // A value in the URL that the pickers do not list (an old link) is still shown and kept.
   const personKnown = !draft.actorId || people.some((p) => p.id === draft.actorId);
   const actionKnown = !draft.action || actions.some((a) => a.code === draft.action);
+  const kinds = choices.data?.recordKinds ?? [];
+  const kindKnown = !draft.entityType || kinds.some((k) => k.code === draft.entityType);
 
   return (
     <form role="search" aria-label="Filter audit events" onSubmit={submit} noValidate className="mb-4 flex flex-wrap items-start gap-3">
@@ -86,25 +91,30 @@ export function AuditFilters({ query, onChange }: { query: AuditListQuery; onCha
       </SelectField>
       <TextField type="date" label={LABELS.from} value={draft.from} onChange={set('from')} error={errors.from} fieldClassName="w-44" />
       <TextField type="date" label={LABELS.to} value={draft.to} onChange={set('to')} error={errors.to} fieldClassName="w-44" />
-      <TextField
-        label={LABELS.entityType}
-        value={draft.entityType}
-        onChange={set('entityType')}
-        error={errors.entityType}
-        fieldClassName="w-36"
-        maxLength={limitsOf(auditListQuerySchema, 'entityType').maxLength}
-        spellCheck={false}
-      />
-      <TextField
-        label={LABELS.entityId}
-        value={draft.entityId}
-        onChange={set('entityId')}
-        error={errors.entityId}
-        className="mono"
-        fieldClassName="w-40"
-        maxLength={limitsOf(auditListQuerySchema, 'entityId').maxLength}
-        spellCheck={false}
-      />
+      <SelectField label={LABELS.entityType} value={draft.entityType} onChange={set('entityType')} error={errors.entityType} fieldClassName="w-52">
+        <option value="">Any record</option>
+        {kinds.map((k) => (
+          <option key={k.code} value={k.code}>
+            {k.label}
+          </option>
+        ))}
+        {kindKnown ? null : <option value={draft.entityType}>Record type not listed</option>}
+      </SelectField>
+      {query.entityId ? (
+        <div className="pt-5">
+          <span className="inline-flex items-center gap-1 rounded-full border border-iron-200 bg-iron-50 py-1 pr-1 pl-3 text-sm text-ink-900">
+            <span>Only this record: {recordName}</span>
+            <button
+              type="button"
+              className="rounded-full px-1.5 text-iron-700 hover:bg-iron-100"
+              aria-label={`Show every record, not only ${recordName}`}
+              onClick={() => onChange({ entityId: undefined })}
+            >
+              <span aria-hidden="true">✕</span>
+            </button>
+          </span>
+        </div>
+      ) : null}
       <div className="flex gap-2 pt-5">
         <Button type="submit" variant="primary">
           Filter

@@ -1,13 +1,13 @@
 import { createColumnHelper, getCoreRowModel, getExpandedRowModel, useReactTable } from '@tanstack/react-table';
 import type { AuditEvent, AuditListQuery } from '@toneledger/common/schemas/audit';
+import { Link } from 'react-router-dom';
+import { recordLabel, recordPagePath } from '@toneledger/common/fields/audit-records';
 import { DataTable } from '@/components/ui/data-table';
 import { formatDateTime } from '@/lib/format';
 import { ChangeView } from '@/features/audit/components/change-view';
 
 const column = createColumnHelper<AuditEvent>();
 
-/** A record type as words: `condition_report` → "condition report". */
-const recordTypeWords = (type: string) => type.replace(/_/g, ' ');
 
 const filterButton = 'text-left text-iron-700 underline decoration-iron-200 underline-offset-2 hover:text-iron-900 hover:decoration-iron-700';
 
@@ -19,25 +19,13 @@ export interface AuditTableProps {
   onFilter: (patch: Partial<AuditListQuery>) => void;
 }
 
-/** Audit events, newest first as the server sends them; each change opens to its before and after. */
+/**
+ * Audit events, newest first as the server sends them; "Show changes" (in the "What happened" cell, so
+ * no column stands empty on events without changes) opens each field's before and after. The record is
+ * its kind and name in words, linked to its page; its id only travels in the "Only this record" filter.
+ */
 export function AuditTable({ events, query, total, busy, onFilter }: AuditTableProps) {
   const columns = [
-    column.display({
-      id: 'expand',
-      header: () => <span className="sr-only">Changes</span>,
-      cell: ({ row }) =>
-        row.getCanExpand() ? (
-          <button
-            type="button"
-            onClick={row.getToggleExpandedHandler()}
-            aria-expanded={row.getIsExpanded()}
-            className="rounded px-1.5 py-0.5 text-xs font-medium whitespace-nowrap text-iron-700 hover:bg-iron-50"
-          >
-            <span aria-hidden="true">{row.getIsExpanded() ? '▾ ' : '▸ '}</span>
-            {row.getIsExpanded() ? 'Hide changes' : 'Show changes'}
-          </button>
-        ) : null,
-    }),
     column.accessor('at', {
       header: 'When',
       cell: (info) => (
@@ -67,31 +55,54 @@ export function AuditTable({ events, query, total, busy, onFilter }: AuditTableP
     column.accessor('sentence', {
       header: 'What happened',
       cell: ({ row }) => (
-        <span className="flex flex-col gap-0.5">
+        <span className="flex flex-col items-start gap-0.5">
           <span className="text-ink-900">{row.original.sentence}</span>
-          <button type="button" className={`${filterButton} text-xs`} title="Show only this action" onClick={() => onFilter({ action: row.original.action })}>
-            {row.original.actionLabel}
-          </button>
+          <span className="flex flex-wrap items-center gap-x-3 gap-y-0.5 text-xs">
+            <button type="button" className={filterButton} title="Show only this action" onClick={() => onFilter({ action: row.original.action })}>
+              {row.original.actionLabel}
+            </button>
+            {row.getCanExpand() ? (
+              <button
+                type="button"
+                onClick={row.getToggleExpandedHandler()}
+                aria-expanded={row.getIsExpanded()}
+                className="rounded px-1 font-medium whitespace-nowrap text-iron-700 hover:bg-iron-50"
+              >
+                <span aria-hidden="true">{row.getIsExpanded() ? '▾ ' : '▸ '}</span>
+                {row.getIsExpanded() ? 'Hide changes' : 'Show changes'}
+              </button>
+            ) : null}
+          </span>
         </span>
       ),
     }),
-    column.accessor('entityType', {
+    column.accessor('record', {
       header: 'Record',
       cell: ({ row }) => {
-        const { entityType, entityId } = row.original;
+        const { entityType, entityId, record } = row.original;
+        const named = recordLabel(record);
         return (
-          <span className="flex flex-col">
+          <span className="flex flex-col items-start gap-0.5">
             <button type="button" className={filterButton} title="Show only this kind of record" onClick={() => onFilter({ entityType, entityId: undefined })}>
-              {recordTypeWords(entityType)}
+              {record.kind}
             </button>
+            {record.name ? (
+              record.link ? (
+                <Link to={recordPagePath(record.link)} className="[overflow-wrap:anywhere] text-ink-900 underline underline-offset-2 hover:text-iron-800">
+                  {record.name}
+                </Link>
+              ) : (
+                <span className="[overflow-wrap:anywhere] text-ink-900">{record.name}</span>
+              )
+            ) : null}
             {entityId ? (
               <button
                 type="button"
-                className={`${filterButton} mono text-xs break-all`}
-                title="Show only this record"
+                className={`${filterButton} text-xs whitespace-nowrap`}
+                aria-label={`Show only the events of ${named}`}
                 onClick={() => onFilter({ entityType, entityId })}
               >
-                {entityId}
+                Only this record
               </button>
             ) : null}
           </span>

@@ -1,6 +1,7 @@
 import { auditApi } from '@toneledger/common/api/users';
 import { auditListQuerySchema } from '@toneledger/common/schemas/audit';
 import { exportsApi } from '@toneledger/common/api/exports';
+import { recordKindLabel, recordLabel } from '@toneledger/common/fields/audit-records';
 import { ExportLinks } from '@/components/ui/export-links';
 import { PageHeader } from '@/components/ui/page-header';
 import { PagedList } from '@/components/ui/paged-list';
@@ -16,6 +17,9 @@ export function AuditPage() {
   const [query, setQuery] = useSearchQuery(auditListQuerySchema);
   const events = useAuditEvents(query);
   const { page: _page, pageSize: _size, ...filters } = query;
+  // The chosen record by its name, from the events listed (each is about it); its kind alone before they come.
+  const chosen = query.entityId ? events.data?.data.find((e) => e.entityId === query.entityId && e.entityType === (query.entityType ?? e.entityType)) : undefined;
+  const recordName = chosen ? recordLabel(chosen.record) : recordKindLabel(query.entityType ?? 'record');
 
   return (
     <section>
@@ -23,7 +27,7 @@ export function AuditPage() {
         title="Audit trail"
         description="Every sign-in, sign-out and change: who did what and when, and each field before and after. Pick a person, an action or a range of days, or select one in the table to see only its events."
       />
-      <AuditFilters query={query} onChange={setQuery} />
+      <AuditFilters query={query} onChange={setQuery} recordName={recordName} />
       <div className="mb-3">
         <ExportLinks what="the audit trail as filtered" csv={urlOf(auditApi.exportCsv, { query: filters })} dictionary={urlOf(exportsApi.dictionaryCsv, { params: { name: 'audit' } })} />
       </div>
