@@ -11,7 +11,8 @@ import { cohortBase, type CohortSql } from './cohort-sql';
  *   at (n − 1)·p, R's type 7, the rule of `describe`; checked in `cohort-aggregate.test.ts`);
  * - `points`: per group and rate at most `pointsCap` prints, evenly spaced by rank (`PICK_EVENLY`),
  *   so a strip plot of 200,000 prints keeps its shape; every print when the cap is null (the export);
- * - `survival`: per group its (time, event, count) rows, as columns, for the Kaplan–Meier curves and the log-rank test;
+ * - `survival`: per group its (time, event, count) rows, as columns in time order (the statistics' own
+ *   sorts then find them in order), for the Kaplan–Meier curves and the log-rank test;
  * - `terms`: per group and term the prints with a signed report showing it;
  * - `cox`: the Cox values' distinct patterns, and per print (as columns) its pattern, time and event;
  * - `total`, `asOf` (the oldest `computed_at`) and the medians of number factors split at the median.
@@ -130,7 +131,7 @@ SELECT (SELECT ${perPrint} FROM c)::int AS total,
           FROM (SELECT s.k0, s.k1, s.metric, kr.rn, s.ids[kr.rn] AS id, s.vs[kr.rn] AS v
                   FROM (SELECT s.*, cardinality(s.vs) AS n FROM s) s CROSS JOIN LATERAL (${keptRanks(cap)}) kr) pt) AS points,
        (SELECT json_agg(json_build_array(k0, k1, times, events, ns)) FROM (
-          SELECT k0, k1, array_agg(time) AS times, array_agg(event) AS events, array_agg(n) AS ns FROM (
+          SELECT k0, k1, array_agg(time ORDER BY time, event) AS times, array_agg(event ORDER BY time, event) AS events, array_agg(n ORDER BY time, event) AS ns FROM (
             SELECT k0, k1, time, event, count(*)::int AS n FROM k WHERE time IS NOT NULL GROUP BY k0, k1, time, event) s GROUP BY k0, k1) s) AS survival,
        (SELECT json_agg(json_build_array(k0, k1, term, n)) FROM (
           SELECT k0, k1, term, count(*)::int AS n FROM (SELECT k0, k1, unnest(terms) AS term FROM k WHERE has_report) u GROUP BY k0, k1, term) t) AS terms,
