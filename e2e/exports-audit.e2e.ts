@@ -62,4 +62,43 @@ describe('exports and the audit trail', () => {
     expect(new URL(href!, BASE_URL).searchParams.get('from')).toBe(today);
     await screenshot(page, 'audit-filtered');
   });
+
+  it('at 1440 × 900 shows every column of the trail unclipped, each record by its kind and name linked to its page, never an id or a code', async () => {
+    await signInAs(page, 'admin');
+    await page.setViewportSize({ width: 1440, height: 900 });
+    await page.goto(`${BASE_URL}/admin/audit`);
+    await page.getByRole('table', { name: 'Audit events' }).waitFor();
+    await page.getByLabel('Record type').selectOption({ label: 'Loan' });
+    await page.getByRole('button', { name: 'Filter' }).click();
+    await page.waitForURL(/entityType=loan/);
+    const link = page.getByRole('link', { name: reference }).first();
+    await link.waitFor();
+    const loanId = new URL((await link.getAttribute('href'))!, BASE_URL).pathname.split('/').pop()!;
+    expect(await link.getAttribute('href')).toBe(`/loans/${loanId}`);
+
+    await page.getByRole('button', { name: `Show only the events of Loan ${reference}` }).first().click();
+    await page.waitForURL(new RegExp(`entityId=${loanId}`));
+    await page.getByText(`Only this record: Loan ${reference}`).waitFor();
+    expect(await page.getByRole('textbox', { name: /record/i }).count()).toBe(0);
+
+    // The whole trail, sign-ins included: no column is clipped and the table needs no sideways scroll.
+    await page.getByRole('button', { name: 'Clear filters' }).click();
+    await page.waitForURL((url) => !url.search.includes('entity'));
+    await page.getByText(/signed in\./).first().waitFor();
+    const layout = await page.evaluate(() => {
+      const main = document.querySelector('table')!;
+      const table = main.parentElement!;
+      const headers = [...main.querySelectorAll('thead th')].map((h) => ({ text: h.textContent, right: Math.round(h.getBoundingClientRect().right), width: Math.round(h.getBoundingClientRect().width) }));
+      const clipped = [...main.querySelectorAll('th, td')].filter((c) => c.scrollWidth > c.clientWidth + 1).map((c) => (c.textContent ?? '').slice(0, 40));
+      return { headers, clipped, wrap: { scroll: table.scrollWidth, client: table.clientWidth }, viewport: window.innerWidth };
+    });
+    expect(layout.headers.map((h) => h.text)).toEqual(['When', 'Who', 'What happened', 'Record']);
+    expect(layout.clipped).toEqual([]);
+    expect(layout.wrap.scroll).toBeLessThanOrEqual(layout.wrap.client);
+    for (const h of layout.headers) expect(h.right, `${h.text} ends inside the window`).toBeLessThanOrEqual(layout.viewport);
+    const body = await page.locator('main').innerText();
+    expect(body).not.toMatch(/[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}/i);
+    expect(body).not.toMatch(/\b(condition_report|measurement_session|measurement_spot|print_schedule|object_entry)\b/);
+    await screenshot(page, 'audit-1440');
+  });
 });

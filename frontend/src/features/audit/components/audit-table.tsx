@@ -23,6 +23,7 @@ export interface AuditTableProps {
  * Audit events, newest first as the server sends them; "Show changes" (in the "What happened" cell, so
  * no column stands empty on events without changes) opens each field's before and after. The record is
  * its kind and name in words, linked to its page; its id only travels in the "Only this record" filter.
+ * The request id (a raw id, for matching the server log) is in the CSV export, not on the screen.
  */
 export function AuditTable({ events, query, total, busy, onFilter }: AuditTableProps) {
   const columns = [
@@ -108,11 +109,6 @@ export function AuditTable({ events, query, total, busy, onFilter }: AuditTableP
           </span>
         );
       },
-    }),
-    column.accessor('requestId', {
-      header: 'Request',
-      cell: (info) =>
-        info.getValue() ? <code className="mono text-xs text-ink-700 select-all">{info.getValue()}</code> : null,
     }),
   ];
 
