@@ -89,6 +89,8 @@ describe('the audit trail in people\'s words', () => {
     expect(new Set(rows.map((r) => r.action))).toEqual(new Set(['Print edited']));
     expect(rows.find((r) => r.field === 'Status')).toMatchObject({ before: 'In store', after: 'In treatment', sentence: `${registrarName} edited print ${number}.` });
     expect(rows[0].at).toMatch(/^\d{4}-\d{2}-\d{2}T.*Z$/);
+    // The record by its kind and name, and its id kept for matching (the screen shows only the first two).
+    expect(rows.every((r) => r.record_type === 'Print' && r.record === number && r.record_id === printId)).toBe(true);
     expect(body).not.toMatch(/in_store|in_treatment/);
     const bad = await supertest(t.app).get('/api/audit/export.csv?from=2024-02-01&to=2024-01-01').set('Cookie', admin);
     expect(bad.status).toBe(400);
