@@ -45,10 +45,10 @@ export function AuditTable({ events, query, total, busy, onFilter }: AuditTableP
             type="button"
             className={filterButton}
             title="Show only this person's events"
-            aria-label={`${actorName ?? actorId}: show only this person's events`}
+            aria-label={`${actorName ?? 'A person without a name'}: show only this person's events`}
             onClick={() => onFilter({ actorId })}
           >
-            {actorName ?? actorId}
+            {actorName ?? 'A person without a name'}
           </button>
         );
       },
