@@ -96,6 +96,14 @@ describe('AuditPage', () => {
     expect(text).not.toMatch(/condition_report|\buser\b|\bsession\b/);
   });
 
+  it('never shows a person\'s id in place of a missing name', async () => {
+    const unnamed: AuditEvent = { ...signIn, id: 'ev-3', actorName: null, sentence: 'The system signed in.', record: { kind: 'Person', name: null, link: null } };
+    mockFetch({ 'GET /api/audit': () => json({ data: [unnamed], pagination: { page: 1, pageSize: 50, total: 1 } }), 'GET /api/audit/choices': () => json(choices) });
+    renderPage(<AuditPage />, { path: '/admin/audit', me: makeMe('admin') });
+    expect(await screen.findByRole('button', { name: "A person without a name: show only this person's events" })).toBeTruthy();
+    expect(document.body.textContent).not.toContain(actorId);
+  });
+
   it('picks the kind of record from its labels, and shows one record chosen from the table as a chip that clears', async () => {
     const { requests } = mockFetch({ 'GET /api/audit': () => json({ data: [statusChange], pagination: { page: 1, pageSize: 50, total: 1 } }), 'GET /api/audit/choices': () => json(choices) });
     const { router } = renderPage(<AuditPage />, { path: '/admin/audit', me: makeMe('admin') });
