@@ -47,7 +47,7 @@ describe('the schedule on the job queue', () => {
     await startWorkers(t.deps.queue!, t.deps.store, pino({ level: 'silent' }), { fixityCron: t.deps.env.TONELEDGER_FIXITY_CRON, retentionDays: t.deps.env.IMAGE_RETENTION_DAYS });
     const dated = await eventually(() => row(p.id), (r) => r !== null);
     expect(dated).not.toBeNull();
-    expect(await eventually(() => count('SELECT count(*)::int AS n FROM prints p WHERE NOT EXISTS (SELECT 1 FROM print_schedules s WHERE s.print_id = p.id)'), (n) => n === 0)).toBe(0);
+    expect(await eventually(() => count("SELECT count(*)::int AS n FROM prints p WHERE p.status <> 'deaccessioned' AND NOT EXISTS (SELECT 1 FROM print_schedules s WHERE s.print_id = p.id)"), (n) => n === 0)).toBe(0);
 
     const examinedOn = daysFromToday(-10);
     const draft = await h.as('conservator').post(`/api/prints/${p.id}/condition-reports`, { examinedOn, context: 'routine', grade: 'good' });

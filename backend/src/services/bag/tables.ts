@@ -60,5 +60,6 @@ export const LEFT_OUT_TABLES: Readonly<Record<string, string>> = {
   bag_jobs: 'this installation\'s own exports and imports of bags',
   schedule_stale: 'marks of prints whose next inspection date a job recomputes',
   print_step_factors: 'a research cache recomputed from the process steps',
+  print_cohort: 'a research cache of each print\'s factors and outcomes, recomputed from the records',
   iiif_cache: 'image tiles and sizes made from the originals',
 };
