@@ -151,6 +151,26 @@ describe('print_cohort', () => {
     expect(await row(ids[0]!)).toMatchObject({ has_outcomes: true, last_report_on: '2016-03-01' });
   });
 
+  it('keeps both of two transactions changing different sources of one print at once', async () => {
+    // The steps change in one transaction; the outcomes in another, whose trigger waits for the first's
+    // lock on the row. Each source writes only its own columns, so neither overwrites the other's.
+    const steps = await db().transaction();
+    const outcomes = await db().transaction();
+    try {
+      await db().query(`UPDATE process_steps SET toner_class = 'gold' WHERE print_id = $1 AND type = 'toning'`, { bind: [ids[0]], transaction: steps });
+      const waiting = db().query('UPDATE print_outcomes SET climate_permanence = 1.25 WHERE print_id = $1', { bind: [ids[0]], transaction: outcomes });
+      await new Promise((r) => setTimeout(r, 300));
+      await steps.commit();
+      await waiting;
+      await outcomes.commit();
+    } catch (err) {
+      await Promise.allSettled([steps.rollback(), outcomes.rollback()]);
+      throw err;
+    }
+    await expectCurrent(3);
+    expect(await row(ids[0]!)).toMatchObject({ toner_sequence: 'gold', climate_permanence: 1.25 });
+  });
+
   it('loses the row of a deleted print', async () => {
     const gone = await newPrint(`${base}.9`, room);
     ids.push(gone.id);
