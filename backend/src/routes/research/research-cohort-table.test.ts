@@ -112,6 +112,8 @@ describe('print_cohort', () => {
 
   it('follows the display periods (the light band) and the budget flag', async () => {
     const [{ id: show }] = await db().query<{ id: string }>(`INSERT INTO exhibitions (title) VALUES ($1) RETURNING id`, { bind: [`Tideline ${base}`], type: QueryTypes.SELECT });
+    // Every exhibition has a venue with its dates (other tests list the exhibitions through the contract).
+    await db().query(`INSERT INTO exhibition_venues (exhibition_id, name, opens_on, closes_on, position) VALUES ($1, 'Tideline rooms', '2019-04-01', '2019-06-30', 0)`, { bind: [show] });
     await db().query('INSERT INTO exhibition_objects (exhibition_id, print_id) VALUES ($1, $2)', { bind: [show, ids[2]] });
     await db().query(`INSERT INTO display_periods (print_id, exhibition_id, starts_on, ends_on, lux, hours_per_day) VALUES ($1, $2, '2019-04-01', '2019-06-30', 50, 8)`, { bind: [ids[2], show] });
     await expectCurrent(3);
