@@ -70,7 +70,8 @@ describe('a registrar catalogues a print', () => {
     await page.getByRole('button', { name: 'Add step' }).click();
     const step = page.getByRole('listitem', { name: /Step 1: Toning/ });
     await step.getByLabel('Toner', { exact: true }).selectOption('iron_blue');
-    await step.getByLabel('Recipe').selectOption({ label: `Iron blue single bath ${stamp}` });
+    // The recipe holds potassium ferricyanide, so the list marks it hazardous.
+    await step.getByLabel('Recipe').selectOption({ label: `Iron blue single bath ${stamp} (⚠ hazardous)` });
     await step.getByLabel('Time (m:ss or seconds)').fill('4:00');
     await step.getByLabel('Extent').selectOption('full');
     await page.getByRole('button', { name: 'Save process history' }).click();
