@@ -86,7 +86,14 @@ describe('the deep-zoom viewer', () => {
     await expect.poll(() => level(dialog), { timeout: 10_000 }).toBeGreaterThan(fitted * 4);
     // Zoomed in, the viewer asks for tiles at a finer scale than the fitted view's.
     await expect.poll(() => tiles.length, { timeout: 15_000 }).toBeGreaterThan(before);
-    const zoomedIn = await level(dialog);
+    // The zoom animates: take the level once it has settled (two reads 400 ms apart agree).
+    let zoomedIn = await level(dialog);
+    await expect.poll(async () => {
+      const earlier = zoomedIn;
+      await page.waitForTimeout(400);
+      zoomedIn = await level(dialog);
+      return zoomedIn === earlier;
+    }, { timeout: 10_000 }).toBe(true);
     await page.getByRole('img', { name: /deep-zoom view/ }).focus();
     await page.keyboard.press('-');
     await expect.poll(() => level(dialog), { timeout: 10_000 }).toBeLessThan(zoomedIn);

@@ -160,7 +160,7 @@ export function CatalogueTable(props: CatalogueTableProps) {
     }
   }
 
-  const cellPad = compact ? 'px-1.5 py-1 whitespace-nowrap align-middle' : 'px-3 py-2 align-top';
+  const cellPad = compact ? 'px-1 py-1 whitespace-nowrap align-middle' : 'px-3 py-2 align-top';
   return (
     <div className="overflow-x-auto rounded border border-paper-300 bg-white" data-testid="catalogue-table">
       <table className={`w-full border-collapse text-left ${compact ? 'text-xs' : 'text-sm'}`} aria-busy={busy || undefined} data-compact={compact || undefined}>
@@ -177,7 +177,7 @@ export function CatalogueTable(props: CatalogueTableProps) {
                     key={header.id}
                     scope="col"
                     aria-sort={canSort ? (direction === 'asc' ? 'ascending' : direction === 'desc' ? 'descending' : 'none') : undefined}
-                    className={`border-b border-paper-300 text-xs font-semibold whitespace-nowrap text-ink-700 ${compact ? 'px-1.5 py-1' : 'px-3 py-2 tracking-wide uppercase'}`}
+                    className={`border-b border-paper-300 text-xs font-semibold whitespace-nowrap text-ink-700 ${compact ? 'px-1 py-1' : 'px-3 py-2 tracking-wide uppercase'}`}
                   >
                     {canSort ? (
                       <button type="button" onClick={header.column.getToggleSortingHandler()} className={`inline-flex items-center gap-1 hover:text-iron-800 ${compact ? '' : 'uppercase'}`}>
