@@ -1,7 +1,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { describe as summarise } from '@toneledger/common/domain/distribution';
 import { testApp } from '../../test/app';
-import { QUARTILES, keptRanks, pickEvenly } from './cohort-aggregate';
+import { QUARTILES, keptRanks, pickEvenly, pointRows } from './cohort-aggregate';
 import { pgRows } from './print-list.service';
 
 // The aggregated cohort statement computes quartiles with PostgreSQL's percentile_cont and picks the
@@ -83,11 +83,41 @@ describe('the strip-plot points', () => {
 
   it('are the ranks keptRanks lists without testing every rank', async () => {
     // keptRanks tests only 1 + round(j·(n − 1)/(cap − 1)) ± 1; the reference is pickEvenly over every rank.
-    for (const [n, cap] of [[7, 10], [10, 10], [11, 5], [1001, 500], [200000, 500], [501, 500], [1000, 2], [12345, 37]] as const) {
+    // n = cap + 1 has the smallest step (cap/(cap − 1)), so the least margin in the proof of keptRanks.
+    for (const [n, cap] of [[7, 10], [10, 10], [11, 5], [1001, 500], [200000, 500], [200001, 500], [501, 500], [999, 500], [1000, 2], [3, 2], [12345, 37], [100003, 499]] as const) {
       const listed = (await pgRows<{ rn: number }>(`SELECT rn FROM (SELECT $1::int AS n) x CROSS JOIN LATERAL (${keptRanks('$2::int')}) k ORDER BY rn`, [n, cap])).map((r) => Number(r.rn));
       expect(listed, `${n} of ${cap}`).toEqual(await picked(n, cap));
     }
     // No cap (the export): every rank.
     expect((await pgRows<{ rn: number }>(`SELECT rn FROM (SELECT 4 AS n) x CROSS JOIN LATERAL (${keptRanks('NULL')}) k ORDER BY rn`, [])).map((r) => Number(r.rn))).toEqual([1, 2, 3, 4]);
+  });
+});
+
+describe("the strip-plot points' prints", () => {
+  it('are the prints at the kept ranks when each group is ordered by value, then id, ties included', async () => {
+    // Reference: the ids sorted by value then id (what the statement sorted before pointRows) read at each kept rank.
+    for (const [n, cap] of [[40, 7], [1001, 50], [300, 500], [5000, 499]] as const) {
+      // Values rounded to whole tens of the list, so most values are tied and ranks fall inside tie runs.
+      const vals = values(n).map((v) => Math.round(v / 10));
+      const rows = await pgRows<{ k0: string; rn: number; v: number; id: string; want: string; want_v: number; tied: boolean }>(
+        `WITH k AS (SELECT (CASE WHEN i % 3 = 0 THEN 'b' ELSE 'a' END) COLLATE "C" AS k0, NULL::text COLLATE "C" AS k1, v, md5(i::text)::uuid AS id
+                      FROM unnest($1::float8[]) WITH ORDINALITY AS u(v, i)),
+              a AS (SELECT k0, k1, array_agg(v) AS vs0, array_agg(id) AS ids0 FROM k GROUP BY k0, k1),
+              s AS (SELECT k0, k1, 'de'::text AS metric, vs0, ids0, (SELECT array_agg(v ORDER BY v) FROM unnest(vs0) AS v) AS vs FROM a),
+              ${pointRows('$2::int')},
+              ref AS (SELECT k0, array_agg(id ORDER BY v, id) AS ids, array_agg(v ORDER BY v, id) AS vs FROM k GROUP BY k0)
+         SELECT pt.k0, pt.rn, pt.v, pt.id::text AS id, ref.ids[pt.rn]::text AS want, ref.vs[pt.rn] AS want_v,
+                pt.rn > 1 AND ref.vs[pt.rn - 1] = pt.v AS tied
+           FROM pt JOIN ref ON ref.k0 = pt.k0 ORDER BY pt.k0, pt.rn`,
+        [vals, cap]);
+      const sizes = { a: vals.filter((_, i) => (i + 1) % 3 !== 0).length, b: vals.filter((_, i) => (i + 1) % 3 === 0).length };
+      for (const g of ['a', 'b'] as const) expect(rows.filter((r) => r.k0 === g), `${g}, ${n} of ${cap}`).toHaveLength(Math.min(sizes[g], cap));
+      for (const r of rows) {
+        expect(r.id, `${r.k0} rank ${r.rn}`).toBe(r.want);
+        expect(r.v).toBe(r.want_v);
+      }
+      // The data does reach a rank inside a run of ties (the branch that looks for the run's first rank).
+      expect(rows.some((r) => r.tied), `${n} of ${cap}`).toBe(true);
+    }
   });
 });

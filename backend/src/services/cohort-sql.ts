@@ -153,7 +153,7 @@ export function cohortBase(q: CohortQuery, threshold: number, options: { narrow?
                (${groupExpr(q.groupBy[0])})::text AS g0, (${groupExpr(q.groupBy[1])})::text AS g1, ${cox} AS x,
                p.de_per_year, p.density_loss_per_year,
                ${origin} AS origin_on, ${eventOn} AS event_on, ${censorOn} AS censor_on,
-               p.terms, p.last_report_on IS NOT NULL AS has_report, extract(epoch FROM p.computed_at)::float8 AS computed_at
+               p.terms, p.last_report_on IS NOT NULL AS has_report, date_part('epoch', p.computed_at) AS computed_at
           FROM print_cohort p ${tc}
           ${joins}
          ${where.length || more.length ? `WHERE ${[...more, ...where].join('\n           AND ')}` : ''}
@@ -163,7 +163,7 @@ export function cohortBase(q: CohortQuery, threshold: number, options: { narrow?
        UNION ALL
        (${branch('CROSS JOIN LATERAL unnest(p.toner_classes) WITH ORDINALITY AS tc(v, ord)', ['cardinality(p.toner_classes) > 1', 'tc.ord > 1'])})`;
   const columns = `id, ${options.narrow ? 'first,' : 'accession_number, accession_sort, title,'} g0, g1, x, de_per_year, density_loss_per_year,
-       CASE WHEN origin_on IS NOT NULL AND coalesce(event_on, censor_on) > origin_on THEN ((coalesce(event_on, censor_on) - origin_on) / 365.25)::float8 END AS time,
+       CASE WHEN origin_on IS NOT NULL AND coalesce(event_on, censor_on) > origin_on THEN (coalesce(event_on, censor_on) - origin_on)::float8 / 365.25::float8 END AS time,
        CASE WHEN origin_on IS NOT NULL AND coalesce(event_on, censor_on) > origin_on THEN event_on IS NOT NULL END AS event,
        terms, has_report, computed_at`;
   const head = ctes.length ? `WITH RECURSIVE ${ctes.join(', ')},\n` : 'WITH ';

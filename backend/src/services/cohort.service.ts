@@ -1,6 +1,6 @@
 import { QueryTypes } from 'sequelize';
 import { COHORT_FACTORS, COHORT_FACTOR_CODES } from '@toneledger/common/fields/cohort';
-import type { CohortQuery, CohortResult } from '@toneledger/common/schemas/research';
+import { COHORT_FIGURES, type CohortFigure, type CohortQuery, type CohortResult } from '@toneledger/common/schemas/research';
 import type { cohortPrintSchema, cohortPrintsInputSchema } from '@toneledger/common/schemas/research';
 import type { FieldIssue } from '@toneledger/common/schemas/envelope';
 import type { z } from 'zod';
@@ -95,16 +95,18 @@ export const POINTS_CAP = 500;
 
 /**
  * The figures of a query, grouped in SQL (`cohort-aggregate.ts`). `pointsCap`: strip-plot points per
- * group and rate (null: every print, for the export).
+ * group and rate (null: every print, for the export). `figures`: those to compute (all when left
+ * out); the groups and their sizes come with every part.
  */
-export async function runCohort(q: CohortQuery, options: { pointsCap?: number | null } = {}): Promise<CohortResult> {
+export async function runCohort(q: CohortQuery, options: { pointsCap?: number | null; figures?: readonly CohortFigure[] } = {}): Promise<CohortResult> {
   checkQuery(q);
+  const figures = COHORT_FIGURES.filter((f) => !options.figures || options.figures.includes(f));
   const threshold = q.event.thresholdDeltaE ?? (await getMeasurementSettings()).noticeableDeltaE;
   const places = await placeGroups(q);
-  const sql = buildAggregateSql(q, threshold, { places, pointsCap: options.pointsCap === undefined ? POINTS_CAP : options.pointsCap });
+  const sql = buildAggregateSql(q, threshold, { places, pointsCap: options.pointsCap === undefined ? POINTS_CAP : options.pointsCap, figures });
   const [[a], terms] = await Promise.all([
     withWorkMem<AggregateAnswer>(sql.text, sql.values),
-    db().query<{ code: string; label: string }>('SELECT code, label FROM condition_terms', { type: QueryTypes.SELECT }),
+    figures.includes('incidence') ? db().query<{ code: string; label: string }>('SELECT code, label FROM condition_terms', { type: QueryTypes.SELECT }) : [],
   ]);
   const codeKey = (k0: string | null, k1: string | null) => `${k0 ?? ''}\u0000${k1 ?? ''}`;
   const identity = new Map<string, ReturnType<typeof groupIdentity>>();
@@ -141,16 +143,18 @@ export async function runCohort(q: CohortQuery, options: { pointsCap?: number | 
     const [patterns, index, times, events] = a!.cox;
     for (let i = 0; i < index.length; i += 1) coxRows.push({ time: times[i]!, event: events[i]!, x: patterns![index[i]!]! });
   }
-  const survival = survivalFigures(q, groups);
+  const survival = survivalFigures(q, figures.includes('survival') ? groups : []);
   survival.eventLabel = survival.eventLabel.replace('the noticeable threshold', String(threshold));
+  const has = (f: CohortFigure) => figures.includes(f);
   return {
     query: q,
+    figures,
     total: a!.total,
     groups: groups.map((g) => ({ key: g.key, label: g.label, values: g.values, size: g.size, withRate: g.withRate, withSurvival: g.withSurvival })),
-    fading: groups.map((g) => ({ key: g.key, deltaEPerYear: g.de, densityLossPerYear: g.dl })),
-    survival,
-    cox: coxFigures(q, coxRows),
-    incidence: incidenceFigures(groups.map((g) => ({ key: g.key, seen: g.reports, counts: g.terms })), new Map(terms.map((t) => [t.code, t.label]))),
+    fading: has('fading') ? groups.map((g) => ({ key: g.key, deltaEPerYear: g.de, densityLossPerYear: g.dl })) : [],
+    survival: has('survival') ? survival : { ...survival, groups: [], logRank: null },
+    cox: has('cox') ? coxFigures(q, coxRows) : null,
+    incidence: has('incidence') ? incidenceFigures(groups.map((g) => ({ key: g.key, seen: g.reports, counts: g.terms })), new Map(terms.map((t) => [t.code, t.label]))) : [],
     outcomesAsOf: a!.as_of !== null ? new Date(a!.as_of * 1000).toISOString() : null,
   };
 }

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { dataEnvelope, pageEnvelope } from '../schemas/envelope';
 import { idParamsSchema, versionQuerySchema } from '../schemas/primitives';
 import {
-  cohortPrintSchema, cohortPrintsInputSchema, cohortQuerySchema, cohortResultSchema, savedQueryInputSchema, savedQueryListSchema, savedQuerySchema,
+  cohortPrintSchema, cohortPrintsInputSchema, cohortQuerySchema, cohortResultSchema, cohortRunQuerySchema, savedQueryInputSchema, savedQueryListSchema, savedQuerySchema,
   savedQueryUpdateSchema,
 } from '../schemas/research';
 import { endpoint } from './endpoint';
@@ -10,8 +10,8 @@ import { endpoint } from './endpoint';
 export const researchApi = {
   run: endpoint({
     method: 'post', path: '/api/research/cohort',
-    summary: 'Runs a cohort query: groups with their sizes, fading rates, Kaplan–Meier curves with the log-rank test, a Cox model, incidence of deterioration terms (reads only)',
-    tags: ['research'], access: 'research.run', body: cohortQuerySchema, response: { description: 'Figures', schema: dataEnvelope(cohortResultSchema) },
+    summary: 'Runs a cohort query: groups with their sizes, and the figures asked for (`figures`, all when left out): fading rates, Kaplan–Meier curves with the log-rank test, incidence of deterioration terms, a Cox model (reads only)',
+    tags: ['research'], access: 'research.run', query: cohortRunQuerySchema, body: cohortQuerySchema, response: { description: 'Figures', schema: dataEnvelope(cohortResultSchema) },
   }),
   prints: endpoint({
     method: 'post', path: '/api/research/cohort/prints', summary: 'The prints behind a figure of a cohort query (reads only)',

@@ -141,8 +141,36 @@ export const incidenceSchema = z.object({
   groups: z.array(z.object({ key: z.string(), n: z.number().int(), count: z.number().int(), share: z.number(), lower: z.number(), upper: z.number() })),
 });
 
+/**
+ * The figures a run computes: `fading` (rates per group with their strip-plot points), `survival`
+ * (Kaplan–Meier curves and the log-rank test), `incidence` (deterioration terms), `cox` (the model).
+ * Every run answers the groups with their sizes. The screen asks for them in parts, at once, so each
+ * part is shown when it is ready; the export asks for all.
+ */
+export const COHORT_FIGURES = ['fading', 'survival', 'incidence', 'cox'] as const;
+export type CohortFigure = (typeof COHORT_FIGURES)[number];
+/** `?figures=fading,survival`: the figures to compute (each at most once, in any order); all when left out. */
+export const cohortRunQuerySchema = z.object({
+  figures: z
+    .string()
+    .max(100)
+    .optional()
+    .transform((v, ctx) => {
+      if (v === undefined || v === '') return [...COHORT_FIGURES];
+      const parts = v.split(',').map((x) => x.trim());
+      const unknown = parts.filter((x) => !(COHORT_FIGURES as readonly string[]).includes(x));
+      if (unknown.length) {
+        ctx.addIssue({ code: 'custom', message: `Not a figure: ${unknown.join(', ')}; choose from ${COHORT_FIGURES.join(', ')}` });
+        return z.NEVER;
+      }
+      return COHORT_FIGURES.filter((f) => parts.includes(f));
+    }),
+});
+
 export const cohortResultSchema = z.object({
   query: cohortQuerySchema,
+  /** The figures computed; the others are answered empty (`fading` and `incidence` []; `survival` without groups; `cox` null). */
+  figures: z.array(z.enum(COHORT_FIGURES)),
   total: z.number().int(),
   groups: z.array(cohortGroupSchema),
   fading: z.array(z.object({ key: z.string(), deltaEPerYear: distributionSchema, densityLossPerYear: distributionSchema })),

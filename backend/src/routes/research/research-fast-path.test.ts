@@ -6,7 +6,7 @@ import { db } from '../../db';
 import { getMeasurementSettings } from '../../services/measurement.service';
 import { recomputeOutcomes } from '../../services/print-outcomes';
 import { recomputePrints } from '../../services/schedule-jobs';
-import { researchClient, settleOutcomes } from './research-helpers';
+import { paths, researchClient, settleOutcomes } from './research-helpers';
 
 // The cohort statement reads stored values where it can (migration 20261203100000): the day the
 // settings' threshold was first reached, the terms' keys, the process-step factors. Each is checked
@@ -169,6 +169,45 @@ describe('the process-step factors', () => {
     );
     expect(differ).toBe(0);
     expect(await factors(ids.f2!)).toMatchObject({ n: 4, toned: true, seq: 'iron_blue', toning_min: 4, wash_min: 10, alk_yes: true });
+  });
+});
+
+describe('the figures asked for', () => {
+  it('each part equals the same part of a run asking for every figure, with the groups in every part', async () => {
+    const query = inPlace({ groupBy: ['alkalineAfterBath'], coxFactors: ['alkalineAfterBath'], event: { kind: 'fading', thresholdDeltaE: 1 } });
+    const all = await run(query);
+    expect(all.figures).toEqual(['fading', 'survival', 'incidence', 'cox']);
+    const part = async (figures: string) => {
+      const res = await api('researcher').post(`/api/research/cohort?figures=${figures}`, query);
+      expect(res.status, JSON.stringify(res.body)).toBe(200);
+      expect(res.body.data.groups).toEqual(all.groups);
+      expect(res.body.data.total).toBe(all.total);
+      return res.body.data;
+    };
+    const fading = await part('fading');
+    expect(fading.figures).toEqual(['fading']);
+    expect(fading.fading).toEqual(all.fading);
+    expect(fading.fading.some((f: { deltaEPerYear: { n: number } }) => f.deltaEPerYear.n > 0)).toBe(true);
+    expect([fading.survival.groups, fading.survival.logRank, fading.incidence, fading.cox]).toEqual([[], null, [], null]);
+    // Any order, each once: answered in the list's order.
+    const survival = await part('incidence,survival');
+    expect(survival.figures).toEqual(['survival', 'incidence']);
+    expect(survival.survival).toEqual(all.survival);
+    expect(survival.survival.groups.length).toBe(2);
+    expect(survival.incidence).toEqual(all.incidence);
+    expect([survival.fading, survival.cox]).toEqual([[], null]);
+    const cox = await part('cox');
+    expect(cox.cox).toEqual(all.cox);
+    expect(cox.cox).not.toBeNull();
+    expect([cox.fading, cox.survival.groups, cox.incidence]).toEqual([[], [], []]);
+  });
+
+  it('an unknown figure is a 400 naming the parameter', async () => {
+    for (const figures of ['nope', 'fading,points', 'fading;cox']) {
+      const res = await api('researcher').post(`/api/research/cohort?figures=${encodeURIComponent(figures)}`, inPlace());
+      expect(res.status, figures).toBe(400);
+      expect(paths(res)).toContain('query.figures');
+    }
   });
 });
 

@@ -6,7 +6,7 @@ import { deleteSavedQuery, getSavedQuery, listSavedQueries, saveQuery, updateSav
 
 export function researchRoutes(): RouteDef[] {
   return implement(researchApi, {
-    run: async ({ body }) => ({ data: await runCohort(body) }),
+    run: async ({ query, body }) => ({ data: await runCohort(body, { figures: query.figures }) }),
     prints: async ({ body }) => cohortPrints(body),
     export: async ({ body, actor, requestId, res }) => {
       res.setHeader('Content-Type', 'application/zip');

@@ -5,7 +5,7 @@ export interface PrintsAsk { groupKey?: string; which: 'all' | 'with_rate' | 'ev
 
 export const researchKeys = {
   all: ['research'] as const,
-  cohort: (q: CohortQuery) => [...researchKeys.all, 'cohort', q] as const,
+  cohort: (q: CohortQuery, part: string) => [...researchKeys.all, 'cohort', q, part] as const,
   prints: (q: CohortQuery, ask: PrintsAsk, page: number) => [...researchKeys.all, 'prints', q, ask, page] as const,
   factors: () => [...researchKeys.all, 'factors'] as const,
   terms: () => [...researchKeys.all, 'terms'] as const,

@@ -2,16 +2,24 @@ import { keepPreviousData, useMutation, useQuery, useQueryClient } from '@tansta
 import type { BodyIn } from '@toneledger/common/api/endpoint';
 import { conditionTermsApi } from '@toneledger/common/api/condition';
 import { researchApi } from '@toneledger/common/api/research';
-import type { CohortQuery, SavedQuery } from '@toneledger/common/schemas/research';
+import type { CohortFigure, CohortQuery, SavedQuery } from '@toneledger/common/schemas/research';
 import { call, callData, callFile } from '@/lib/api-client';
 import { researchKeys, type PrintsAsk } from '@/features/research/api/keys';
 
-/** Runs the query (reads only); nothing is asked until there is a query. */
-export function useCohort(query: CohortQuery | null) {
+/**
+ * The screen's figures in three parts, asked for at once so each is shown when it is ready (and the
+ * server works on them side by side): the fading rates; the survival curves with the incidence of
+ * terms; the Cox model. Every part also answers the groups with their sizes.
+ */
+export const COHORT_PARTS = { fading: ['fading'], survival: ['survival', 'incidence'], cox: ['cox'] } as const satisfies Record<string, readonly CohortFigure[]>;
+export type CohortPart = keyof typeof COHORT_PARTS;
+
+/** Runs one part of the query (reads only); nothing is asked until there is a query, nor the Cox part without its factors. */
+export function useCohort(query: CohortQuery | null, part: CohortPart) {
   return useQuery({
-    queryKey: researchKeys.cohort(query!),
-    queryFn: ({ signal }) => callData(researchApi.run, { body: query!, signal }),
-    enabled: query !== null,
+    queryKey: researchKeys.cohort(query!, part),
+    queryFn: ({ signal }) => callData(researchApi.run, { query: { figures: COHORT_PARTS[part].join(',') }, body: query!, signal }),
+    enabled: query !== null && (part !== 'cox' || query.coxFactors.length > 0),
     placeholderData: keepPreviousData,
   });
 }

@@ -88,11 +88,11 @@ describe('ResearchPage', { timeout: 30_000 }, () => {
     const groups = await screen.findByRole('table', { name: 'Groups' });
     expect(within(groups).getByRole('row', { name: /after-bath: no/ }).textContent).toBe('Alkaline after-bath: no554');
     // Type-7 quartiles of 0.1…0.5 are 0.2, 0.3, 0.4 (R's default; d3-array in the fixture).
-    const fading = screen.getByRole('table', { name: 'ΔE00 per year: figures per group' });
+    const fading = await screen.findByRole('table', { name: 'ΔE00 per year: figures per group' });
     expect(within(fading).getByRole('row', { name: /after-bath: no/ }).textContent).toBe('Alkaline after-bath: no50.3000.200 – 0.4000.100 – 0.500');
     // 0.05, 0.07, 0.12, 0.2: median 0.095, quartiles 0.065 and 0.14.
     expect(within(fading).getByRole('row', { name: /after-bath: yes/ }).textContent).toBe('Alkaline after-bath: yes40.0950.065 – 0.1400.050 – 0.200');
-    const atRisk = screen.getByRole('table', { name: 'Number at risk' });
+    const atRisk = await screen.findByRole('table', { name: 'Number at risk' });
     expect(within(atRisk).getByRole('row', { name: /after-bath: no/ }).textContent).toBe('Alkaline after-bath: no4321');
     const curves = screen.getByRole('table', { name: 'Curves per group' });
     expect(within(curves).getByRole('row', { name: /after-bath: no/ }).textContent).toBe('Alkaline after-bath: no4315.0 (2.0 to not reached)');
@@ -100,7 +100,7 @@ describe('ResearchPage', { timeout: 30_000 }, () => {
     expect(screen.getByTestId('logrank-figures').textContent).toBe('χ² = 3.84, df = 1, p = 0.050');
     // The server's warning names the group by its key; the page by its label.
     expect(screen.getByText('Group Alkaline after-bath: yes has 3 events (fewer than 5): the test has little power.')).toBeTruthy();
-    const hr = screen.getByRole('table', { name: 'Hazard ratios' });
+    const hr = await screen.findByRole('table', { name: 'Hazard ratios' });
     expect(within(hr).getByRole('row', { name: /against No/ }).textContent).toBe('Alkaline after-bath: Yes (against No)0.400.08 – 1.92p = 0.252');
     expect(screen.getByTestId('cox-lr').textContent).toBe('Likelihood-ratio test: χ² = 1.41, df = 1, p = 0.235');
     expect(screen.getByText(/no sign that the hazard ratio changes over time/).textContent).toMatch(/^Alkaline after-bath: Yes \(against No\): no sign/);
@@ -112,6 +112,37 @@ describe('ResearchPage', { timeout: 30_000 }, () => {
     const panel = await screen.findByRole('dialog', { name: 'Prints behind the figure' });
     expect((await within(panel).findByRole('link', { name: '2019.1' })).getAttribute('href')).toBe(`/catalogue/prints/${PRINT_A}`);
     expect(requests.find((r) => r.path === '/api/research/cohort/prints')!.body).toMatchObject({ query: IRON_BLUE_QUERY, groupKey: 'alkalineAfterBath=no', which: 'events', page: 1 });
+  });
+
+  it('asks for its figures in three parts at once and shows each part when it is ready', async () => {
+    let release: () => void = () => {};
+    const held = new Promise<void>((resolve) => { release = resolve; });
+    const { requests } = setup({
+      'POST /api/research/cohort': async (r) => {
+        // The survival part waits until the test lets it go.
+        if (r.search.get('figures') === 'survival,incidence') await held;
+        return json({ data: makeResult() });
+      },
+    });
+    await screen.findByRole('table', { name: 'ΔE00 per year: figures per group' });
+    await screen.findByRole('table', { name: 'Hazard ratios' });
+    expect(screen.getByText('Working out the survival curves…')).toBeTruthy();
+    expect(screen.queryByRole('table', { name: 'Number at risk' })).toBeNull();
+    expect(screen.queryByRole('table', { name: 'Incidence per term' })).toBeNull();
+    const asked = requests.filter((r) => r.path === '/api/research/cohort');
+    expect(asked.map((r) => r.search.get('figures')).sort()).toEqual(['cox', 'fading', 'survival,incidence']);
+    for (const r of asked) expect(r.body).toEqual(IRON_BLUE_QUERY);
+    release();
+    await screen.findByRole('table', { name: 'Number at risk' });
+    expect(screen.getByRole('table', { name: 'Incidence per term' })).toBeTruthy();
+    expect(screen.queryByText('Working out the survival curves…')).toBeNull();
+  });
+
+  it('asks for no Cox part when the query has no Cox factors', async () => {
+    const { requests } = setup({}, { path: `/research?q=${encodeURIComponent(encodeQuery({ ...IRON_BLUE_QUERY, coxFactors: [] }))}` });
+    await screen.findByRole('table', { name: 'Number at risk' });
+    expect(screen.getByText('No Cox model: choose its factors in the query.')).toBeTruthy();
+    expect(requests.filter((r) => r.path === '/api/research/cohort').map((r) => r.search.get('figures')).sort()).toEqual(['fading', 'survival,incidence']);
   });
 
   it('offers the data package to a role with research.export and downloads it; no button for a role without it', async () => {

@@ -31,7 +31,10 @@ export function ResearchPage() {
   const text = params.get(QUERY_PARAM);
   const decoded = decodeQuery(text);
   const query = decoded?.query ?? null;
-  const cohort = useCohort(query);
+  const fading = useCohort(query, 'fading');
+  const survival = useCohort(query, 'survival');
+  const cox = useCohort(query, 'cox');
+  const parts = [fading, survival, cox];
   const exporting = useExportPackage();
   const [saving, setSaving] = useState(false);
   const [savedNote, setSavedNote] = useState<string | null>(null);
@@ -42,9 +45,12 @@ export function ResearchPage() {
     setSavedNote(null);
     setParams({ [QUERY_PARAM]: encodeQuery(q) });
   };
-  const refused = isApiError(cohort.error) && cohort.error.fieldIssues.length > 0 ? cohort.error : null;
-  const result = cohort.data;
+  // The parts answer the same query, so one refusal or failure stands for all; the groups and sizes come with every part.
+  const error = parts.find((p) => p.error)?.error ?? null;
+  const refused = isApiError(error) && error.fieldIssues.length > 0 ? error : null;
+  const result = fading.data ?? survival.data ?? cox.data;
   const labelOf = (key: string) => result?.groups.find((g) => g.key === key)?.label ?? key;
+  const waiting = (label: string) => <Loading label={label} />;
   const show = (ask: PrintsAsk, title: string) => setShown({ ask, title });
 
   return (
@@ -80,16 +86,16 @@ export function ResearchPage() {
       ) : null}
       <div className="grid gap-6 lg:grid-cols-[minmax(0,26rem)_minmax(0,1fr)]">
         <div className="flex flex-col gap-6">
-          <CohortBuilder key={text ?? ''} query={query ?? EMPTY_QUERY} onRun={run} refusal={refused} busy={cohort.isFetching} />
+          <CohortBuilder key={text ?? ''} query={query ?? EMPTY_QUERY} onRun={run} refusal={refused} busy={parts.some((p) => p.isFetching)} />
           <SavedQueries onOpen={run} />
         </div>
         <div className="flex min-w-0 flex-col gap-6">
           {shown && query ? <PrintsPanel key={JSON.stringify(shown.ask)} query={query} ask={shown.ask} title={shown.title} onClose={() => setShown(null)} /> : null}
           {!query && !decoded?.problem ? <p className="text-sm text-ink-700">Choose the prints, how to group them and the event, then run the query.</p> : null}
-          {cohort.isPending && query ? <Loading label="Running the query…" /> : null}
-          {cohort.error && !refused ? <ErrorNotice error={cohort.error} title="The query was not run." /> : null}
+          {!result && !error && query ? <Loading label="Running the query…" /> : null}
+          {error && !refused ? <ErrorNotice error={error} title="The query was not run." /> : null}
           {refused ? <Notice tone="error" role="alert" title="The query was refused.">The problems are marked on the query form.</Notice> : null}
-          {result && !cohort.error ? (
+          {result && !error ? (
             <>
               <section aria-labelledby="groups-heading" className="flex flex-col gap-2">
                 <h2 id="groups-heading" className="text-lg">Groups</h2>
@@ -99,10 +105,11 @@ export function ResearchPage() {
                 </p>
                 <GroupsTable result={result} onShow={show} />
               </section>
-              <FadingPlots result={result} labelOf={labelOf} onShow={show} />
-              <SurvivalSection survival={result.survival} labelOf={labelOf} onShow={show} />
-              {result.cox ? <CoxTable cox={result.cox} onShow={show} /> : <p className="text-sm text-ink-600">No Cox model: choose its factors in the query.</p>}
-              <IncidenceTables incidence={result.incidence} labelOf={labelOf} onShow={show} />
+              {fading.data ? <FadingPlots result={fading.data} labelOf={labelOf} onShow={show} /> : waiting('Working out the fading rates…')}
+              {survival.data ? <SurvivalSection survival={survival.data.survival} labelOf={labelOf} onShow={show} /> : waiting('Working out the survival curves…')}
+              {!query?.coxFactors.length ? <p className="text-sm text-ink-600">No Cox model: choose its factors in the query.</p>
+                : cox.data?.cox ? <CoxTable cox={cox.data.cox} onShow={show} /> : waiting('Fitting the Cox model…')}
+              {survival.data ? <IncidenceTables incidence={survival.data.incidence} labelOf={labelOf} onShow={show} /> : null}
             </>
           ) : null}
         </div>

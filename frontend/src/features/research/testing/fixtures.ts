@@ -45,6 +45,7 @@ export function makeResult(over: Partial<CohortResult> = {}): CohortResult {
   const step = (t: number, atRisk: number, events: number, censored: number, s: number, lower: number | null, upper: number | null) => ({ t, atRisk, events, censored, s, se: null, lower, upper });
   return {
     query: IRON_BLUE_QUERY,
+    figures: ['fading', 'survival', 'incidence', 'cox'],
     total: 9,
     groups: [
       { key: 'alkalineAfterBath=no', label: 'Alkaline after-bath: no', values: { alkalineAfterBath: 'no' }, size: 5, withRate: 5, withSurvival: 4 },
