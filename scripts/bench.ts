@@ -315,7 +315,7 @@ const climate = (ONLY && !CLIMATE_ONLY) || SCHEDULE_ONLY ? { status: 0 } : spawn
 if (climate.status !== 0 && code === 0) code = climate.status ?? 1;
 const schedule = ONLY && !SCHEDULE_ONLY ? { status: 0 } : spawnSync(path.join(ROOT, 'node_modules', '.bin', 'tsx'), [path.join(ROOT, 'scripts', 'bench-schedule.ts')], { stdio: 'inherit', cwd: ROOT });
 if (schedule.status !== 0 && code === 0) code = schedule.status ?? 1;
-const research = ONLY && !RESEARCH_ONLY ? { status: 0 } : spawnSync(path.join(ROOT, 'node_modules', '.bin', 'tsx'), [path.join(ROOT, 'scripts', 'bench-research.ts'), ...(ONLY ? ['--only', ONLY] : [])], { stdio: 'inherit', cwd: ROOT });
+const research = ONLY && !RESEARCH_ONLY ? { status: 0 } : spawnSync(path.join(ROOT, 'node_modules', '.bin', 'tsx'), [path.join(ROOT, 'scripts', 'bench-research.ts'), ...(ONLY ? ['--only', ONLY] : []), ...(process.argv.includes('--runs') ? ['--runs', String(RUNS)] : [])], { stdio: 'inherit', cwd: ROOT });
 if (research.status !== 0 && code === 0) code = research.status ?? 1;
 // The readings export at scale (scripts/bench-exports.ts): with the full bench only; alone: `npx tsx scripts/bench-exports.ts [--process cyanotype]`.
 const exportsRun = ONLY ? { status: 0 } : spawnSync(path.join(ROOT, 'node_modules', '.bin', 'tsx'), [path.join(ROOT, 'scripts', 'bench-exports.ts'), '--process', 'cyanotype'], { stdio: 'inherit', cwd: ROOT });
