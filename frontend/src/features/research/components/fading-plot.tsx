@@ -8,7 +8,8 @@ import { fixed } from '@/features/research/utils/words';
 type Metric = 'deltaEPerYear' | 'densityLossPerYear';
 const METRICS: { key: Metric; title: string; unit: string; digits: number }[] = [
   { key: 'deltaEPerYear', title: 'ΔE00 per year', unit: 'ΔE00/yr', digits: 3 },
-  { key: 'densityLossPerYear', title: 'Density loss per year', unit: 'D/yr', digits: 4 },
+  // The loss is a share of the baseline density (as the measurement screens and the export's dictionary say), not density units.
+  { key: 'densityLossPerYear', title: 'Density loss per year, % of the baseline density', unit: '%/yr', digits: 3 },
 ];
 
 /** Fading rates per group: a box (quartiles, median) over every print's rate as a point, and the figures in a table. */

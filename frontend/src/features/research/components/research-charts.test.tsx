@@ -31,6 +31,15 @@ describe('research charts', () => {
     expect(container.querySelectorAll('.recharts-scatter-symbol').length).toBe(2 * (5 + 4));
   });
 
+  it('gives the density loss as a share of the baseline density per year, not density units', () => {
+    // The outcome is the slope of the percentage of the baseline density lost (spot-analysis.ts, densityLossRate),
+    // as the export's dictionary says (%/year).
+    const view = renderPage(<FadingPlots result={result} labelOf={labelOf} onShow={vi.fn()} width={640} />, { me: makeMe('researcher') });
+    expect(view.getByRole('heading', { name: 'Density loss per year, % of the baseline density' })).toBeTruthy();
+    expect(view.container.textContent).toContain('%/yr');
+    expect(view.container.textContent).not.toContain('D/yr');
+  });
+
   it('says how many points are shown when the answer carries fewer points than prints', () => {
     // Every point is shown in the fixture: no note.
     const full = renderPage(<FadingPlots result={result} labelOf={labelOf} onShow={vi.fn()} width={640} />, { me: makeMe('researcher') });
