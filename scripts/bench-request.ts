@@ -108,8 +108,23 @@ export function instrument(app: Express): Instrumented {
   return result;
 }
 
-/** The app as production builds it, its log going to /dev/null; listens on a free loopback port. */
-export async function productionApp(deps: AppDeps): Promise<{ app: Express; url: string; close(): Promise<void>; instrumented: Instrumented }> {
+export interface ProductionApp {
+  /** The measured app: as production builds it, nothing added. */
+  app: Express;
+  url: string;
+  /** A second, identical app whose every stage is timed (`instrument`), for the breakdown alone. */
+  instrumentedUrl: string;
+  instrumented: Instrumented;
+  close(): Promise<void>;
+}
+
+/**
+ * The app as production builds it, its log going to /dev/null, listening on a free loopback port;
+ * beside it an identical app with every stage timed. The timing wrappers cost time and garbage of
+ * their own on every request, so the figures compared with targets come from the plain app and
+ * the breakdown from the timed one.
+ */
+export async function productionApp(deps: AppDeps): Promise<ProductionApp> {
   const { pino } = await import('pino');
   const { buildApp } = await import('../backend/src/app');
   const devNull = await open('/dev/null', 'w');
@@ -117,26 +132,64 @@ export async function productionApp(deps: AppDeps): Promise<{ app: Express; url:
     { level: 'info', redact: ['req.headers.cookie', 'res.headers["set-cookie"]'] },
     pino.destination({ fd: devNull.fd, sync: false }),
   );
-  const app = buildApp({ ...deps, env: { ...deps.env, NODE_ENV: 'production' } }, logger);
+  const build = () => buildApp({ ...deps, env: { ...deps.env, NODE_ENV: 'production' } }, logger);
+  const app = build();
+  const timed = build();
   // Touch the lazy router so its stack exists, then time it.
-  app.get('/__bench_never', (_req, res) => res.end());
-  const instrumented = instrument(app);
+  timed.get('/__bench_never', (_req, res) => res.end());
+  const instrumented = instrument(timed);
+  const listen = (a: Express) =>
+    new Promise<Server>((resolve) => {
+      const s = a.listen(0, '127.0.0.1', () => resolve(s));
+    });
+  const servers = [await listen(app), await listen(timed)];
+  const [url, instrumentedUrl] = servers.map((server) => {
+    const address = server.address();
+    return `http://127.0.0.1:${typeof address === 'object' && address ? address.port : 0}`;
+  });
+  return {
+    app,
+    url: url!,
+    instrumentedUrl: instrumentedUrl!,
+    instrumented,
+    close: async () => {
+      await Promise.all(
+        servers.map(
+          (server) =>
+            new Promise<void>((resolve) => {
+              server.close(() => resolve());
+              server.closeAllConnections();
+            }),
+        ),
+      );
+      await devNull.close();
+    },
+  };
+}
+
+/**
+ * The floor under the house: plain Express answering GET `path` with `answer()` as JSON, nothing
+ * else (no session, no log line, no security headers, no contract). What a request costs in this
+ * process before anything the product adds.
+ */
+export async function plainExpress(path: string, answer: () => Promise<unknown>): Promise<{ url: string; close(): Promise<void> }> {
+  const express = (await import('express')).default;
+  const app = express();
+  app.set('etag', false);
+  app.get(path, (_req, res, next) => {
+    answer().then((body) => res.json(body), next);
+  });
   const server = await new Promise<Server>((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
   });
   const address = server.address();
-  const port = typeof address === 'object' && address ? address.port : 0;
   return {
-    app,
-    url: `http://127.0.0.1:${port}`,
-    instrumented,
-    close: async () => {
-      await new Promise<void>((resolve) => {
+    url: `http://127.0.0.1:${typeof address === 'object' && address ? address.port : 0}`,
+    close: () =>
+      new Promise<void>((resolve) => {
         server.close(() => resolve());
         server.closeAllConnections();
-      });
-      await devNull.close();
-    },
+      }),
   };
 }
 
@@ -168,30 +221,41 @@ export function getJson<T = unknown>(url: string, cookie: string): Promise<{ sta
 
 /** GET /api/me `runs` times after `warmup`; prints the breakdown and returns the client's times (ms). */
 export function measureMe(
-  base: string, cookie: string, runs: number, warmup: number, instrumented: Instrumented,
+  target: ProductionApp, cookie: string, runs: number, warmup: number,
   inProcess: { label: string; run: () => unknown }[],
 ): Promise<{ median: number; p95: number }> {
-  return measureRequest(base, '/api/me', 'Cost of a signed-in request: GET /api/me', cookie, runs, warmup, instrumented, inProcess);
+  return measureRequest(target, '/api/me', 'Cost of a signed-in request: GET /api/me', cookie, runs, warmup, inProcess);
 }
 
-/** GET `path` `runs` times after `warmup`; prints each stage's median and returns the client's times (ms). */
+/**
+ * GET `path` `runs` times after `warmup` from the plain app (the figures returned), then as many
+ * times from the timed app for each stage's median; prints both.
+ */
 export async function measureRequest(
-  base: string, path: string, title: string, cookie: string, runs: number, warmup: number, instrumented: Instrumented,
+  target: ProductionApp, path: string, title: string, cookie: string, runs: number, warmup: number,
   inProcess: { label: string; run: () => unknown }[],
 ): Promise<{ median: number; p95: number }> {
-  const client: number[] = [];
-  for (let i = 0; i < runs + warmup; i++) {
-    if (i === warmup) instrumented.reset();
-    const t0 = performance.now();
-    const res = await getJson(`${base}${path}`, cookie);
-    if (res.status !== 200) throw new Error(`GET ${path} answered ${res.status}`);
-    if (i >= warmup) client.push(performance.now() - t0);
-  }
+  const { instrumented } = target;
+  const times = async (base: string, before?: () => void) => {
+    const xs: number[] = [];
+    for (let i = 0; i < runs + warmup; i++) {
+      if (i === warmup) before?.();
+      const t0 = performance.now();
+      const res = await getJson(`${base}${path}`, cookie);
+      if (res.status !== 200) throw new Error(`GET ${path} answered ${res.status}`);
+      if (i >= warmup) xs.push(performance.now() - t0);
+    }
+    return xs;
+  };
+  const client = await times(target.url);
+  const timedClient = await times(target.instrumentedUrl, () => instrumented.reset());
   const us = (x: number) => `${Math.round(x).toString().padStart(6)} µs`;
-  const width = Math.max(...instrumented.stages.map((s) => s.label.length), ...inProcess.map((s) => s.label.length + 4), 44);
+  const width = Math.max(...instrumented.stages.map((s) => s.label.length), ...inProcess.map((s) => s.label.length + 4), 52);
   console.log('');
   console.log(`${title}, ${runs} runs after ${warmup} warm-up, production configuration (medians):`);
-  for (const s of instrumented.stages) if (s.samples.length) console.log(`  ${s.label.padEnd(width)} ${us(median(s.samples))}`);
+  console.log(`  ${'client: whole request'.padEnd(width)} ${us(median(client) * 1000)}   p95 ${us(quantile(client, 0.95) * 1000)}`);
+  console.log(`  where the time goes, from the same app with each stage timed (${runs} runs more):`);
+  for (const s of instrumented.stages) if (s.samples.length) console.log(`    ${s.label.padEnd(width - 2)} ${us(median(s.samples))}`);
   for (const p of inProcess) {
     const xs: number[] = [];
     for (let i = 0; i < 200; i++) {
@@ -199,13 +263,13 @@ export async function measureRequest(
       await p.run();
       xs.push(now() - t0);
     }
-    console.log(`    ${p.label.padEnd(width - 2)} ${us(median(xs))}   (in process, 200 runs)`);
+    console.log(`      ${p.label.padEnd(width - 4)} ${us(median(xs))}   (in process, 200 runs)`);
   }
-  console.log(`  ${'pino-http log line (on finish, after the answer)'.padEnd(width)} ${us(median(instrumented.log))}`);
+  console.log(`    ${'pino-http log line (on finish, after the answer)'.padEnd(width - 2)} ${us(median(instrumented.log))}`);
   const server = median(instrumented.server);
-  const total = median(client) * 1000;
-  console.log(`  ${'server: first middleware → res.end'.padEnd(width)} ${us(server)}`);
-  console.log(`  ${'HTTP on loopback + client (node:http, JSON)'.padEnd(width)} ${us(total - server)}`);
-  console.log(`  ${'client: whole request'.padEnd(width)} ${us(total)}   p95 ${us(quantile(client, 0.95) * 1000)}`);
+  const total = median(timedClient) * 1000;
+  console.log(`    ${'server: first middleware → res.end'.padEnd(width - 2)} ${us(server)}`);
+  console.log(`    ${'HTTP on loopback + client (node:http, JSON)'.padEnd(width - 2)} ${us(total - server)}`);
+  console.log(`    ${'client: whole request, stages timed'.padEnd(width - 2)} ${us(total)}   p95 ${us(quantile(timedClient, 0.95) * 1000)}`);
   return { median: median(client), p95: quantile(client, 0.95) };
 }
