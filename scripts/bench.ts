@@ -296,11 +296,12 @@ try {
         const runs = Math.max(RUNS, 200);
         for (let i = 0; i < runs + 50; i++) {
           let t0 = performance.now();
-          await getJson(`${base}${path}`, cookie);
+          const fromApp = await getJson(`${base}${path}`, cookie);
           const app = performance.now() - t0;
           t0 = performance.now();
-          await getJson(`${floor.url}${path}`, '');
+          const fromPlain = await getJson(`${floor.url}${path}`, '');
           const plain = performance.now() - t0;
+          if (fromApp.status !== 200 || fromPlain.status !== 200) throw new Error(`floor: the app answered ${fromApp.status}, plain Express ${fromPlain.status}`);
           t0 = performance.now();
           await Promise.all([sqlPool!.query(sql.select, sql.params), sqlPool!.query(sql.count, sql.countParams)]);
           if (answer.estimated) await sqlPool!.query(sql.estimate, sql.countParams);
